@@ -1,0 +1,111 @@
+namespace FinWatch.SeedDemo;
+
+/// <summary>
+/// The deterministic generator of <b>Quorvale Fab 2</b>, an <b>invented</b> demo fab of the invented company
+/// Quorvale Devices. Its products, tools, chambers, operators and history are all made up; no real company,
+/// person, product or tool is meant. See <c>seed-demo/README.md</c> for the fab and its planted events.
+/// </summary>
+/// <remarks>
+/// The output depends only on the seed and the <see cref="DemoScale"/>: every random stream is a
+/// <c>new Random(int)</c> seeded from <c>seed</c>, and the time window is fixed (it ends at <see cref="EndUtc"/>),
+/// so the same arguments always give byte-identical CSV and no time lies in the future.
+/// </remarks>
+public static class DemoFab
+{
+    /// <summary>The seed of the published demo data set.</summary>
+    public const int DefaultSeed = 20261202;
+
+    /// <summary>The CSV header of FinWatch's ingest format, in column order.</summary>
+    public const string CsvHeader =
+        "lot_id,wafer_slot,site_id,site_x_mm,site_y_mm,product,step,etch_tool,etch_chamber,liner_tool,liner_chamber,"
+        + "metrology_tool,measured_at,operator,top_width_nm,bottom_width_nm,fin_height_nm,corner_radius_nm,liner_thickness_nm";
+
+    /// <summary>The post-liner profile step: all five values on every wafer, 13 (TRN7) or 9 (BRM7) sites.</summary>
+    public const string ProfileStep = "FIN-PROFILE";
+
+    /// <summary>The post-etch CD step: top and bottom width only, on 3 wafers of the lot at 5 sites.</summary>
+    public const string EtchCdStep = "POST-ETCH-CD";
+
+    /// <summary>Every generated time is strictly before this fixed end: 2026-11-30T00:00:00Z.</summary>
+    public static DateTime EndUtc => FabLayout.EndUtc;
+
+    /// <summary>How long a maintenance takes a chamber down (its lots run on the tool's other chamber meanwhile).</summary>
+    public static TimeSpan MaintenanceDowntime => FabLayout.MaintenanceDowntime;
+
+    /// <summary>The invented products: TRN7 (tri-gate logic) and BRM7 (double-gate, hard mask).</summary>
+    public static IReadOnlyList<DemoProduct> Products { get; } = [.. ProductRecipe.All.Select(r => r.Product)];
+
+    /// <summary>The planted maintenances and drifts, in time order; the same for every seed and scale.</summary>
+    public static IReadOnlyList<DemoEvent> Events => FabLayout.Events;
+
+    /// <summary>The first day of the data window: <see cref="EndUtc"/> minus <see cref="DemoScale.Days"/>.</summary>
+    public static DateTime StartUtc(DemoScale? scale = null) => FabLayout.StartUtc(Validate(scale));
+
+    /// <summary>
+    /// Streams the whole demo data set as CSV in FinWatch's ingest format: header first, LF line ends, invariant
+    /// culture, UTC ISO-8601 times with 'Z', rows in measurement-time order. Nothing but one line is held in memory.
+    /// </summary>
+    /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
+    public static void WriteMeasurementsCsv(TextWriter writer, int seed = DefaultSeed, DemoScale? scale = null)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        IEnumerable<DemoSiteRow> rows = GenerateRows(seed, scale);
+        var csv = new CsvLineWriter(writer);
+        csv.WriteHeader();
+        foreach (DemoSiteRow row in rows)
+        {
+            csv.Write(row);
+        }
+    }
+
+    /// <summary>
+    /// The rows of the demo data set, generated lazily in measurement-time order (ties in lot, step, wafer and site
+    /// order). Values are rounded as the CSV writes them.
+    /// </summary>
+    /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
+    public static IEnumerable<DemoSiteRow> GenerateRows(int seed = DefaultSeed, DemoScale? scale = null) =>
+        RowStream.Generate(seed, Validate(scale));
+
+    /// <summary>
+    /// The planted bad wafers (about 1 in 400) that appear in the data of this seed and scale, in lot and slot order.
+    /// </summary>
+    /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
+    public static IEnumerable<DemoExcursionWafer> ExcursionWafers(int seed = DefaultSeed, DemoScale? scale = null)
+    {
+        DemoScale checkedScale = Validate(scale);
+        return Enumerate(LotPlan.PlanAll(seed, checkedScale));
+
+        IEnumerable<DemoExcursionWafer> Enumerate(List<LotPlan> lots)
+        {
+            int[] cdSlots = LotPlan.CdSlots(checkedScale.WafersPerLot);
+            foreach (LotPlan lot in lots)
+            {
+                foreach (WaferState wafer in FinModel.Wafers(seed, lot, checkedScale.WafersPerLot))
+                {
+                    bool measured = lot.ProfileAtUtc is not null || (lot.CdAtUtc is not null && cdSlots.Contains(wafer.Slot));
+                    if (wafer.Excursion is { } kind && measured)
+                    {
+                        yield return new DemoExcursionWafer(
+                            lot.LotId, wafer.Slot, lot.Recipe.Product.Code, wafer.Chamber.Id, kind,
+                            wafer.ExcursionWidthNm, wafer.ExcursionHeightNm);
+                    }
+                }
+            }
+        }
+    }
+
+    private static DemoScale Validate(DemoScale? scale)
+    {
+        scale ??= new DemoScale();
+        ArgumentOutOfRangeException.ThrowIfLessThan(scale.Days, 1, nameof(scale));
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(scale.Days, FabLayout.MaxDays, nameof(scale));
+        if (!(scale.LotsPerDay > 0.0 && scale.LotsPerDay <= 240.0))
+        {
+            throw new ArgumentOutOfRangeException(nameof(scale), scale.LotsPerDay, "LotsPerDay must be greater than 0 and at most 240.");
+        }
+
+        ArgumentOutOfRangeException.ThrowIfLessThan(scale.WafersPerLot, 1, nameof(scale));
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(scale.WafersPerLot, 25, nameof(scale));
+        return scale;
+    }
+}

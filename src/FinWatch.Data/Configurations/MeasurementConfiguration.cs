@@ -1,0 +1,26 @@
+using FinWatch.Data.Entities;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.Metadata.Builders;
+
+namespace FinWatch.Data.Configurations;
+
+internal sealed class MeasurementConfiguration : IEntityTypeConfiguration<Measurement>
+{
+    public void Configure(EntityTypeBuilder<Measurement> builder)
+    {
+        builder.ToTable("measurements");
+        foreach (var p in new[] { nameof(Measurement.LotId), nameof(Measurement.SiteId), nameof(Measurement.Step),
+                     nameof(Measurement.EtchTool), nameof(Measurement.EtchChamber), nameof(Measurement.LinerTool),
+                     nameof(Measurement.LinerChamber), nameof(Measurement.MetrologyTool), nameof(Measurement.Operator) })
+        {
+            builder.Property(p).HasMaxLength(64);
+        }
+
+        // The natural key: re-sending a batch must not duplicate a site (the ingest reports it as already present).
+        builder.HasIndex(m => new { m.LotId, m.WaferSlot, m.SiteId, m.Step, m.MeasuredAtMs }).IsUnique();
+        // Series and chart queries: one product and step in time order.
+        builder.HasIndex(m => new { m.ProductId, m.Step, m.MeasuredAtMs });
+        builder.HasOne<Product>().WithMany().HasForeignKey(m => m.ProductId).OnDelete(DeleteBehavior.Restrict);
+        builder.HasOne<IngestBatch>().WithMany().HasForeignKey(m => m.BatchId).OnDelete(DeleteBehavior.Restrict);
+    }
+}

@@ -1,0 +1,19 @@
+using FinWatch.Data.Entities;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.Metadata.Builders;
+
+namespace FinWatch.Data.Configurations;
+
+internal sealed class ProductConfiguration : IEntityTypeConfiguration<Product>
+{
+    public void Configure(EntityTypeBuilder<Product> builder)
+    {
+        builder.ToTable("products");
+        builder.HasIndex(p => p.Code).IsUnique();
+        builder.Property(p => p.Code).HasMaxLength(64);
+        builder.Property(p => p.Name).HasMaxLength(200);
+        builder.Property(p => p.Description).HasMaxLength(2000);
+        builder.Property(p => p.GateFaces).HasConversion<string>().HasMaxLength(16);
+        builder.HasMany(p => p.Specs).WithOne().HasForeignKey(s => s.ProductId).OnDelete(DeleteBehavior.Cascade);
+    }
+}

@@ -1,0 +1,58 @@
+using System.Text;
+using FinWatch.Data.Entities;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Data;
+
+/// <summary>
+/// The one model of FinWatch's database. Each provider has a derived context with its own migration set
+/// (<see cref="SqliteFinWatchDbContext"/>); handlers depend on this base type only.
+/// </summary>
+public abstract class FinWatchDbContext(DbContextOptions options) : DbContext(options)
+{
+    public DbSet<Product> Products => Set<Product>();
+    public DbSet<SpecLimit> SpecLimits => Set<SpecLimit>();
+    public DbSet<Measurement> Measurements => Set<Measurement>();
+    public DbSet<IngestBatch> IngestBatches => Set<IngestBatch>();
+    public DbSet<LotStep> LotSteps => Set<LotStep>();
+    public DbSet<LotChamber> LotChambers => Set<LotChamber>();
+
+    protected override void OnModelCreating(ModelBuilder modelBuilder)
+    {
+        modelBuilder.ApplyConfigurationsFromAssembly(typeof(FinWatchDbContext).Assembly);
+
+        // snake_case columns: the ingest's bulk insert and operators reading the database use these names.
+        foreach (var entity in modelBuilder.Model.GetEntityTypes())
+        {
+            foreach (var property in entity.GetProperties())
+            {
+                property.SetColumnName(ToSnakeCase(property.Name));
+            }
+        }
+    }
+
+    /// <summary>"MeasuredAtMs" becomes "measured_at_ms"; digits stay with the word before them.</summary>
+    public static string ToSnakeCase(string name)
+    {
+        var sb = new StringBuilder(name.Length + 8);
+        for (var i = 0; i < name.Length; i++)
+        {
+            var c = name[i];
+            if (char.IsUpper(c))
+            {
+                if (i > 0)
+                {
+                    sb.Append('_');
+                }
+
+                sb.Append(char.ToLowerInvariant(c));
+            }
+            else
+            {
+                sb.Append(c);
+            }
+        }
+
+        return sb.ToString();
+    }
+}

@@ -1,0 +1,31 @@
+using System.Reflection;
+using FinWatch.Server.Features.Demo;
+
+namespace FinWatch.Server.Features.About;
+
+public sealed record AboutResponse(string Name, string Version, string Job, string DemoData, IReadOnlyDictionary<string, string> Links);
+
+public static class AboutEndpoints
+{
+    /// <summary>The root answers with what this service is and where its parts are (the floor pages arrive with the live monitor).</summary>
+    public static IEndpointRouteBuilder MapAbout(this IEndpointRouteBuilder app)
+    {
+        app.MapGet("/", (DemoLoader demo) => TypedResults.Ok(new AboutResponse(
+            "FinWatch",
+            typeof(AboutEndpoints).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "dev",
+            "Fin-profile metrology ingest, derived fin geometry and (to come) SPC and electrical-impact estimates for FinFET lines.",
+            demo.State,
+            new Dictionary<string, string>
+            {
+                ["openapi"] = "/openapi/v1.json",
+                ["health"] = "/health",
+                ["products"] = "/api/products",
+                ["parameters"] = "/api/parameters",
+                ["lots"] = "/api/lots",
+                ["series"] = "/api/series?product={code}&step={step}&parameter=taper_deg&level=wafer",
+                ["ingest_json"] = "POST /api/measurements",
+                ["ingest_csv"] = "POST /api/measurements/csv",
+            }))).WithTags("About").WithSummary("What this service is, and links to its API");
+        return app;
+    }
+}

@@ -1,0 +1,163 @@
+using System.Diagnostics;
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using FinWatch.Physics;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.Options;
+
+namespace FinWatch.Server.Features.Measurements;
+
+/// <summary>
+/// The ingest use case: read rows, validate, derive the fin geometry, store, all in one transaction.
+/// Every source (JSON, CSV, the inbox, the demo loader) comes through here, so they share one set of rules.
+/// </summary>
+public sealed class IngestMeasurements(
+    FinWatchDbContext db, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ILogger<IngestMeasurements> logger)
+{
+    /// <summary>Ingests the rows as one batch. Nothing is stored unless every row is valid.</summary>
+    public async Task<IngestOutcome> RunAsync(IAsyncEnumerable<RawRow> rows, string source, string? label, CancellationToken cancellationToken)
+    {
+        var o = options.Value;
+        var started = Stopwatch.GetTimestamp();
+        var products = await LoadProductsAsync(cancellationToken);
+        var validator = new RowValidator(products, clock.GetUtcNow(), TimeSpan.FromMinutes(o.FutureToleranceMinutes));
+
+        using var turn = await gate.EnterAsync(cancellationToken);
+        await using var writer = await SqliteSiteWriter.BeginAsync(db, source, label, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
+
+        var errors = new List<RowError>();
+        var errorCount = 0;
+        var rowsRead = 0;
+        var inserted = 0;
+        var presentRows = new List<int>();
+        var present = 0;
+        var reEntrant = 0;
+        var radiusTooLarge = 0;
+        var lotProducts = new Dictionary<string, int>(StringComparer.Ordinal);
+        var lotSteps = new HashSet<(string, string)>();
+        var chambers = new HashSet<(string, string, string)>();
+        var rowErrors = new List<RowError>();
+
+        void Report(RowError e)
+        {
+            errorCount++;
+            if (errors.Count < o.MaxReportedErrors)
+            {
+                errors.Add(e);
+            }
+        }
+
+        try
+        {
+            await foreach (var raw in rows.WithCancellation(cancellationToken))
+            {
+                rowsRead++;
+                rowErrors.Clear();
+                var site = validator.Validate(raw, rowErrors);
+                if (site is not null && !LotProductMatches(site, writer, lotProducts, products, rowErrors))
+                {
+                    site = null;
+                }
+
+                rowErrors.ForEach(Report);
+                if (site is null)
+                {
+                    continue;
+                }
+
+                switch (writer.Insert(site))
+                {
+                    case InsertResult.Inserted:
+                        inserted++;
+                        break;
+                    case InsertResult.AlreadyPresent:
+                        present++;
+                        if (presentRows.Count < o.MaxReportedErrors)
+                        {
+                            presentRows.Add(site.Row);
+                        }
+
+                        break;
+                    case InsertResult.DuplicateInBatch:
+                        Report(RowError.For(site.Row, null, $"{site.LotId} / {site.WaferSlot} / {site.SiteId} / {site.Step} / {raw.Cells[(int)IngestColumn.MeasuredAt]}",
+                            "the same lot, wafer, site, step and measured-at time appear earlier in this batch"));
+                        continue;
+                }
+
+                if (errorCount > 0)
+                {
+                    continue; // the batch is lost anyway; keep reading only to report every error
+                }
+
+                lotSteps.Add((site.LotId, site.Step));
+                AddChamber(chambers, site, site.EtchChamber);
+                AddChamber(chambers, site, site.LinerChamber);
+                reEntrant += (site.Derived.Flags & GeometryFlags.ReEntrant) != 0 ? 1 : 0;
+                radiusTooLarge += (site.Derived.Flags & GeometryFlags.RadiusExceedsMax) != 0 ? 1 : 0;
+            }
+        }
+        catch (IngestFormatException e)
+        {
+            Report(e.Error);
+        }
+        catch (IngestHeaderException e)
+        {
+            foreach (var error in e.Errors)
+            {
+                Report(error);
+            }
+        }
+
+        if (errorCount > 0)
+        {
+            logger.LogInformation("Rejected {Source} batch {Label}: {ErrorCount} errors in {Rows} rows", source, label, errorCount, rowsRead);
+            return new IngestOutcome(null, new IngestRejected(rowsRead, errorCount, errors));
+        }
+
+        await writer.CommitAsync(lotSteps, chambers, rowsRead, inserted, present, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
+        var ms = Stopwatch.GetElapsedTime(started).TotalMilliseconds;
+        logger.LogInformation("Accepted {Source} batch {BatchId} {Label}: {Inserted} stored, {Present} already present, {Ms:0} ms",
+            source, writer.BatchId, label, inserted, present, ms);
+        return new IngestOutcome(new IngestAccepted(writer.BatchId, rowsRead, inserted, present, presentRows, reEntrant, radiusTooLarge, Math.Round(ms, 1)), null);
+    }
+
+    private static void AddChamber(HashSet<(string, string, string)> chambers, SiteRecord site, string? chamber)
+    {
+        if (chamber is not null)
+        {
+            chambers.Add((site.LotId, site.Step, chamber));
+        }
+    }
+
+    // A lot belongs to one product: within the batch and against what is stored.
+    private static bool LotProductMatches(SiteRecord site, SqliteSiteWriter writer, Dictionary<string, int> lotProducts,
+        IReadOnlyDictionary<string, ProductRef> products, List<RowError> errors)
+    {
+        if (!lotProducts.TryGetValue(site.LotId, out var productId))
+        {
+            productId = writer.StoredProductOfLot(site.LotId) ?? site.ProductId;
+            lotProducts[site.LotId] = productId;
+        }
+
+        if (productId == site.ProductId)
+        {
+            return true;
+        }
+
+        var other = products.Values.FirstOrDefault(p => p.Id == productId)?.Code ?? productId.ToString(System.Globalization.CultureInfo.InvariantCulture);
+        errors.Add(RowError.For(site.Row, "product", products.Values.First(p => p.Id == site.ProductId).Code,
+            $"lot {site.LotId} belongs to product {other}; a lot has one product"));
+        return false;
+    }
+
+    private async Task<IReadOnlyDictionary<string, ProductRef>> LoadProductsAsync(CancellationToken cancellationToken)
+    {
+        var list = await db.Products.AsNoTracking()
+            .Select(p => new { p.Id, p.Code, p.GateFaces })
+            .ToListAsync(cancellationToken);
+        return list.ToDictionary(
+            p => p.Code,
+            p => new ProductRef(p.Id, p.Code, p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate),
+            StringComparer.Ordinal);
+    }
+}

@@ -1,0 +1,121 @@
+using Microsoft.AspNetCore.Http.Features;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.AspNetCore.WebUtilities;
+using Microsoft.Extensions.Options;
+using Microsoft.Net.Http.Headers;
+
+namespace FinWatch.Server.Features.Measurements;
+
+public static class MeasurementsEndpoints
+{
+    public const string InvalidBatchType = "/problems/invalid-batch";
+
+    public static IServiceCollection AddMeasurements(this IServiceCollection services)
+    {
+        services.AddOptions<IngestOptions>().BindConfiguration(IngestOptions.Section).ValidateDataAnnotations().ValidateOnStart();
+        services.AddSingleton<IngestGate>();
+        services.AddScoped<IngestMeasurements>();
+        services.AddHostedService<InboxWatcher>();
+        return services;
+    }
+
+    public static IEndpointRouteBuilder MapMeasurements(this IEndpointRouteBuilder app)
+    {
+        var group = app.MapGroup("/api/measurements").WithTags("Measurements");
+        group.MapPost("/", IngestJsonAsync)
+            .Accepts<IngestRowExample[]>("application/json")
+            .WithSummary("Ingest a JSON batch: an array of site rows (all or nothing)");
+        group.MapPost("/csv", IngestCsvAsync)
+            .Accepts<IFormFile>("text/csv", "multipart/form-data")
+            .WithSummary("Ingest a CSV file, sent as the body (text/csv) or as a multipart form file (all or nothing)");
+        return app;
+    }
+
+    private static async Task<Results<Ok<IngestAccepted>, ProblemHttpResult>> IngestJsonAsync(
+        HttpContext http, IngestMeasurements ingest, IOptions<IngestOptions> options, CancellationToken cancellationToken)
+    {
+        AllowLargeBody(http, options.Value);
+        var rows = JsonRowSource.ReadAsync(http.Request.Body, cancellationToken);
+        return ToResult(await ingest.RunAsync(rows, "api-json", null, cancellationToken));
+    }
+
+    private static async Task<Results<Ok<IngestAccepted>, ProblemHttpResult>> IngestCsvAsync(
+        HttpContext http, IngestMeasurements ingest, IOptions<IngestOptions> options, CancellationToken cancellationToken)
+    {
+        AllowLargeBody(http, options.Value);
+        var (stream, name) = await OpenCsvAsync(http.Request, cancellationToken);
+        if (stream is null)
+        {
+            return TypedResults.Problem(Rejection(new IngestRejected(0, 1,
+                [RowError.For(1, null, null, "the multipart form has no file part; send the CSV as a form file or as the request body")])));
+        }
+
+        var rows = CsvRowSource.ReadAsync(stream, cancellationToken);
+        return ToResult(await ingest.RunAsync(rows, "api-csv", name, cancellationToken));
+    }
+
+    /// <summary>The request body, or the first file part of a multipart form, read as it arrives.</summary>
+    private static async Task<(Stream? Stream, string? Name)> OpenCsvAsync(HttpRequest request, CancellationToken cancellationToken)
+    {
+        if (!MediaTypeHeaderValue.TryParse(request.ContentType, out var type)
+            || !type.MediaType.Equals("multipart/form-data", StringComparison.OrdinalIgnoreCase))
+        {
+            return (request.Body, null);
+        }
+
+        var boundary = HeaderUtilities.RemoveQuotes(type.Boundary).Value;
+        if (string.IsNullOrEmpty(boundary))
+        {
+            return (null, null);
+        }
+
+        var reader = new MultipartReader(boundary, request.Body);
+        while (await reader.ReadNextSectionAsync(cancellationToken) is { } section)
+        {
+            if (ContentDispositionHeaderValue.TryParse(section.ContentDisposition, out var disposition) && disposition.IsFileDisposition())
+            {
+                return (section.Body, Path.GetFileName(HeaderUtilities.RemoveQuotes(disposition.FileName).Value));
+            }
+        }
+
+        return (null, null);
+    }
+
+    private static void AllowLargeBody(HttpContext http, IngestOptions options)
+    {
+        if (http.Features.Get<IHttpMaxRequestBodySizeFeature>() is { IsReadOnly: false } limit)
+        {
+            limit.MaxRequestBodySize = options.MaxBodyBytes;
+        }
+    }
+
+    private static Results<Ok<IngestAccepted>, ProblemHttpResult> ToResult(IngestOutcome outcome) =>
+        outcome.Accepted is { } accepted ? TypedResults.Ok(accepted) : TypedResults.Problem(Rejection(outcome.Rejected!));
+
+    /// <summary>The one shape of a rejected batch: problem details listing each bad row, column, value and reason.</summary>
+    public static ProblemDetails Rejection(IngestRejected rejected)
+    {
+        var shown = rejected.Errors.Count < rejected.ErrorCount ? $" The first {rejected.Errors.Count} are listed." : "";
+        return new ProblemDetails
+        {
+            Type = InvalidBatchType,
+            Title = "The batch was rejected; nothing was stored.",
+            Status = StatusCodes.Status400BadRequest,
+            Detail = $"{rejected.ErrorCount} problem{(rejected.ErrorCount == 1 ? "" : "s")} in {rejected.RowsRead} row{(rejected.RowsRead == 1 ? "" : "s")} read.{shown} Correct them and send the whole batch again.",
+            Extensions =
+            {
+                ["error_count"] = rejected.ErrorCount,
+                ["rows_read"] = rejected.RowsRead,
+                ["errors"] = rejected.Errors,
+            },
+        };
+    }
+}
+
+/// <summary>The JSON row shape, for the OpenAPI document only; ingest reads rows field by field to report each bad cell.</summary>
+public sealed record IngestRowExample(
+    string LotId, int WaferSlot, string SiteId, double SiteXMm, double SiteYMm, string Product, string Step,
+    string? EtchTool, string? EtchChamber, string? LinerTool, string? LinerChamber, string? MetrologyTool,
+    DateTimeOffset MeasuredAt, string? Operator,
+    double? TopWidthNm, double? BottomWidthNm, double? FinHeightNm, double? CornerRadiusNm, double? LinerThicknessNm);

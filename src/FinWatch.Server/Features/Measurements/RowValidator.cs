@@ -1,0 +1,262 @@
+using System.Globalization;
+using FinWatch.Physics;
+
+namespace FinWatch.Server.Features.Measurements;
+
+/// <summary>The product facts that validation needs, looked up by the code used in files.</summary>
+public sealed record ProductRef(int Id, string Code, GatedFaces Faces);
+
+/// <summary>
+/// Turns a <see cref="RawRow"/> into a <see cref="SiteRecord"/>, or reports every problem in it with its column and value.
+/// The plausibility ranges are the ones the foundation issue names; they reject typing and unit mistakes, not process excursions.
+/// </summary>
+public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> products, DateTimeOffset now, TimeSpan futureTolerance)
+{
+    public const double MaxWidthNm = 100, MaxHeightNm = 300, MaxRadiusNm = 50, MaxLinerNm = 20;
+    public const int MaxSlot = 25;
+
+    /// <summary>A 300 mm wafer: sites lie within 150 mm of its centre.</summary>
+    public const double WaferRadiusMm = 150;
+
+    public const int MaxTextLength = 64;
+
+    private static readonly DateTimeOffset Earliest = new(2000, 1, 1, 0, 0, 0, TimeSpan.Zero);
+
+    /// <summary>Validates one row; on failure returns null and appends the problems to <paramref name="errors"/>.</summary>
+    public SiteRecord? Validate(RawRow raw, List<RowError> errors)
+    {
+        var before = errors.Count;
+        if (raw.Problems is { } problems)
+        {
+            errors.AddRange(problems);
+        }
+
+        var row = raw.Row;
+        var cells = raw.Cells;
+        var lot = Text(row, cells, IngestColumn.LotId, required: true, errors);
+        var slot = Slot(row, cells, errors);
+        var site = Text(row, cells, IngestColumn.SiteId, required: true, errors);
+        var x = Number(row, cells, IngestColumn.SiteXMm, -WaferRadiusMm, WaferRadiusMm, lowInclusive: true, "mm", errors, required: true);
+        var y = Number(row, cells, IngestColumn.SiteYMm, -WaferRadiusMm, WaferRadiusMm, lowInclusive: true, "mm", errors, required: true);
+        if (x is { } xv && y is { } yv && (xv * xv) + (yv * yv) > WaferRadiusMm * WaferRadiusMm)
+        {
+            errors.Add(RowError.For(row, "site_x_mm", Cell(cells, IngestColumn.SiteXMm),
+                string.Create(CultureInfo.InvariantCulture, $"the site ({xv}, {yv}) mm lies outside the 300 mm wafer (radius {WaferRadiusMm} mm)")));
+        }
+
+        var product = ProductOf(row, cells, errors);
+        var step = Text(row, cells, IngestColumn.Step, required: true, errors);
+        var etchTool = Text(row, cells, IngestColumn.EtchTool, required: false, errors);
+        var etchChamber = Text(row, cells, IngestColumn.EtchChamber, required: false, errors);
+        var linerTool = Text(row, cells, IngestColumn.LinerTool, required: false, errors);
+        var linerChamber = Text(row, cells, IngestColumn.LinerChamber, required: false, errors);
+        var metrologyTool = Text(row, cells, IngestColumn.MetrologyTool, required: false, errors);
+        var op = Text(row, cells, IngestColumn.Operator, required: false, errors);
+        var at = Time(row, cells, errors);
+
+        var wt = Number(row, cells, IngestColumn.TopWidthNm, 0, MaxWidthNm, lowInclusive: false, "nm", errors);
+        var wb = Number(row, cells, IngestColumn.BottomWidthNm, 0, MaxWidthNm, lowInclusive: false, "nm", errors);
+        var h = Number(row, cells, IngestColumn.FinHeightNm, 0, MaxHeightNm, lowInclusive: false, "nm", errors);
+        var r = Number(row, cells, IngestColumn.CornerRadiusNm, 0, MaxRadiusNm, lowInclusive: true, "nm", errors);
+        var liner = Number(row, cells, IngestColumn.LinerThicknessNm, 0, MaxLinerNm, lowInclusive: true, "nm", errors);
+        if (errors.Count == before && wt is null && wb is null && h is null && r is null && liner is null)
+        {
+            errors.Add(RowError.For(row, null, null, "the row has no measured value; fill at least one of "
+                + string.Join(", ", IngestColumns.Values.Select(IngestColumns.NameOf))));
+        }
+
+        if (errors.Count != before)
+        {
+            return null;
+        }
+
+        return new SiteRecord
+        {
+            Row = row,
+            LotId = lot!,
+            WaferSlot = slot!.Value,
+            SiteId = site!,
+            SiteXMm = x!.Value,
+            SiteYMm = y!.Value,
+            ProductId = product!.Id,
+            Step = step!,
+            EtchTool = etchTool,
+            EtchChamber = etchChamber,
+            LinerTool = linerTool,
+            LinerChamber = linerChamber,
+            MetrologyTool = metrologyTool,
+            Operator = op,
+            MeasuredAtMs = at!.Value.ToUnixTimeMilliseconds(),
+            TopWidthNm = wt,
+            BottomWidthNm = wb,
+            FinHeightNm = h,
+            CornerRadiusNm = r,
+            LinerThicknessNm = liner,
+            Derived = DerivedFin.From(wt, wb, h, r, product.Faces),
+        };
+    }
+
+    private static string? Cell(string?[] cells, IngestColumn column) => cells[(int)column];
+
+    private static string? Text(int row, string?[] cells, IngestColumn column, bool required, List<RowError> errors)
+    {
+        var value = Cell(cells, column);
+        var name = IngestColumns.NameOf(column);
+        if (value is null)
+        {
+            if (required)
+            {
+                errors.Add(RowError.For(row, name, null, "a value is required"));
+            }
+
+            return null;
+        }
+
+        if (value.Length > MaxTextLength)
+        {
+            errors.Add(RowError.For(row, name, value, $"longer than {MaxTextLength} characters"));
+            return null;
+        }
+
+        if (value.Any(char.IsControl))
+        {
+            errors.Add(RowError.For(row, name, value, "contains a control character"));
+            return null;
+        }
+
+        return value;
+    }
+
+    private static int? Slot(int row, string?[] cells, List<RowError> errors)
+    {
+        var value = Cell(cells, IngestColumn.WaferSlot);
+        if (value is null)
+        {
+            errors.Add(RowError.For(row, "wafer_slot", null, "a value is required"));
+            return null;
+        }
+
+        if (!int.TryParse(value, NumberStyles.Integer, CultureInfo.InvariantCulture, out var slot))
+        {
+            errors.Add(RowError.For(row, "wafer_slot", value, "not a whole number"));
+            return null;
+        }
+
+        if (slot is < 1 or > MaxSlot)
+        {
+            errors.Add(RowError.For(row, "wafer_slot", value, $"wafer slot must be 1 to {MaxSlot}"));
+            return null;
+        }
+
+        return slot;
+    }
+
+    private ProductRef? ProductOf(int row, string?[] cells, List<RowError> errors)
+    {
+        var code = Cell(cells, IngestColumn.Product);
+        if (code is null)
+        {
+            errors.Add(RowError.For(row, "product", null, "a value is required"));
+            return null;
+        }
+
+        if (!products.TryGetValue(code, out var product))
+        {
+            errors.Add(RowError.For(row, "product", code, "unknown product; create it first (POST /api/products)"));
+            return null;
+        }
+
+        return product;
+    }
+
+    private DateTimeOffset? Time(int row, string?[] cells, List<RowError> errors)
+    {
+        var value = Cell(cells, IngestColumn.MeasuredAt);
+        if (value is null)
+        {
+            errors.Add(RowError.For(row, "measured_at", null, "a value is required"));
+            return null;
+        }
+
+        if (!DateTimeOffset.TryParse(value, CultureInfo.InvariantCulture, DateTimeStyles.None, out var at)
+            || !HasZone(value))
+        {
+            errors.Add(RowError.For(row, "measured_at", value,
+                "not an ISO 8601 time with a zone, such as 2026-11-03T14:05:00Z or 2026-11-03T15:05:00+01:00"));
+            return null;
+        }
+
+        if (at > now + futureTolerance)
+        {
+            errors.Add(RowError.For(row, "measured_at", value,
+                $"the time lies in the future (more than {futureTolerance.TotalMinutes:0} min after the server's clock, {now:u})"));
+            return null;
+        }
+
+        if (at < Earliest)
+        {
+            errors.Add(RowError.For(row, "measured_at", value, "the time is before the year 2000"));
+            return null;
+        }
+
+        return at.ToUniversalTime();
+    }
+
+    // A zone is "Z" or a +hh:mm / -hh:mm offset after the time; a date alone or a local time is ambiguous.
+    private static bool HasZone(string value)
+    {
+        var t = value.IndexOf('T', StringComparison.OrdinalIgnoreCase);
+        if (t < 0)
+        {
+            t = value.IndexOf(' ', StringComparison.Ordinal);
+        }
+
+        if (t < 0)
+        {
+            return false;
+        }
+
+        var time = value.AsSpan(t + 1);
+        return time.EndsWith("Z", StringComparison.OrdinalIgnoreCase) || time.Contains('+') || time.Contains('-');
+    }
+
+    private static double? Number(int row, string?[] cells, IngestColumn column, double low, double high, bool lowInclusive,
+        string unit, List<RowError> errors, bool required = false)
+    {
+        var value = Cell(cells, column);
+        var name = IngestColumns.NameOf(column);
+        if (value is null)
+        {
+            if (required)
+            {
+                errors.Add(RowError.For(row, name, null, "a value is required"));
+            }
+
+            return null;
+        }
+
+        if (!double.TryParse(value, NumberStyles.Float, CultureInfo.InvariantCulture, out var number))
+        {
+            var hint = value.Contains(',', StringComparison.Ordinal) ? " (use '.' as the decimal separator)" : "";
+            errors.Add(RowError.For(row, name, value, $"not a number{hint}"));
+            return null;
+        }
+
+        if (!double.IsFinite(number))
+        {
+            errors.Add(RowError.For(row, name, value, "not a finite number"));
+            return null;
+        }
+
+        var tooLow = lowInclusive ? number < low : number <= low;
+        if (tooLow || number > high)
+        {
+            var lowText = lowInclusive ? $"{low.ToString(CultureInfo.InvariantCulture)} ≤ value" : $"{low.ToString(CultureInfo.InvariantCulture)} < value";
+            errors.Add(RowError.For(row, name, value,
+                $"out of range: expected {lowText} ≤ {high.ToString(CultureInfo.InvariantCulture)} {unit}"));
+            return null;
+        }
+
+        return number;
+    }
+}

@@ -1,0 +1,27 @@
+using System.ComponentModel.DataAnnotations;
+
+namespace FinWatch.Server.Features.Products;
+
+/// <summary>A product's nominal fin profile; every length in nm.</summary>
+public sealed record NominalProfile(
+    [property: Range(0.001, 100)] double TopWidthNm,
+    [property: Range(0.001, 100)] double BottomWidthNm,
+    [property: Range(0.001, 300)] double FinHeightNm,
+    [property: Range(0, 50)] double CornerRadiusNm,
+    [property: Range(0, 20)] double LinerThicknessNm);
+
+/// <summary>Lower spec, target and upper spec of one parameter (in its unit, see GET /api/parameters), each optional.</summary>
+public sealed record SpecLimitDto([property: Required] string Parameter, double? Lower, double? Target, double? Upper);
+
+/// <summary>Create a product. <c>gate_faces</c> is "tri-gate" (top and sidewalls gated) or "double-gate" (hard mask on top).</summary>
+public sealed record ProductRequest(
+    [property: Required, RegularExpression("^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$", ErrorMessage = "1 to 64 letters, digits, '.', '_' or '-', starting with a letter or digit")] string Code,
+    [property: Required, StringLength(200, MinimumLength = 1)] string Name,
+    [property: StringLength(2000)] string? Description,
+    [property: Required] string GateFaces,
+    [property: Required] NominalProfile Nominal,
+    List<SpecLimitDto>? Specs);
+
+public sealed record ProductResponse(
+    string Code, string Name, string Description, string GateFaces, NominalProfile Nominal,
+    IReadOnlyList<SpecLimitDto> Specs, DateTime CreatedAt, DateTime UpdatedAt);

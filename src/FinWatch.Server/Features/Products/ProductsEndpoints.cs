@@ -1,0 +1,121 @@
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Parameters;
+using FinWatch.Server.Infrastructure;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Server.Features.Products;
+
+public static class ProductsEndpoints
+{
+    public static IEndpointRouteBuilder MapProducts(this IEndpointRouteBuilder app)
+    {
+        var group = app.MapGroup("/api/products").WithTags("Products");
+        group.MapGet("/", ListAsync).WithSummary("All products with nominal profile and specification limits");
+        group.MapGet("/{code}", GetAsync).WithSummary("One product");
+        group.MapPost("/", CreateAsync).WithSummary("Create a product");
+        group.MapPut("/{code}", UpdateAsync).WithSummary("Replace a product's name, description, gate faces, nominal profile and specifications");
+        return app;
+    }
+
+    private static async Task<Ok<List<ProductResponse>>> ListAsync(FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var products = await db.Products.AsNoTracking().Include(p => p.Specs).OrderBy(p => p.Code).ToListAsync(cancellationToken);
+        return TypedResults.Ok(products.Select(ToResponse).ToList());
+    }
+
+    private static async Task<Results<Ok<ProductResponse>, NotFound<Microsoft.AspNetCore.Mvc.ProblemDetails>>> GetAsync(
+        string code, FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var product = await db.Products.AsNoTracking().Include(p => p.Specs).SingleOrDefaultAsync(p => p.Code == code, cancellationToken);
+        return product is null ? NotFound(code) : TypedResults.Ok(ToResponse(product));
+    }
+
+    private static async Task<Results<Created<ProductResponse>, ValidationProblem, Conflict<Microsoft.AspNetCore.Mvc.ProblemDetails>>> CreateAsync(
+        ProductRequest request, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
+    {
+        if (ProductRules.Check(request) is { Count: > 0 } errors)
+        {
+            return TypedResults.ValidationProblem(errors);
+        }
+
+        if (await db.Products.AnyAsync(p => p.Code == request.Code, cancellationToken))
+        {
+            return TypedResults.Conflict(new Microsoft.AspNetCore.Mvc.ProblemDetails
+            {
+                Type = "/problems/product-exists",
+                Title = "A product with this code exists already.",
+                Status = StatusCodes.Status409Conflict,
+                Detail = $"Product '{request.Code}' exists; change it with PUT /api/products/{request.Code}.",
+            });
+        }
+
+        var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        var product = new Product { Code = request.Code, Name = request.Name, CreatedAtMs = now };
+        Apply(product, request, now);
+        db.Products.Add(product);
+        await db.SaveChangesAsync(cancellationToken);
+        return TypedResults.Created($"/api/products/{product.Code}", ToResponse(product));
+    }
+
+    private static async Task<Results<Ok<ProductResponse>, ValidationProblem, NotFound<Microsoft.AspNetCore.Mvc.ProblemDetails>>> UpdateAsync(
+        string code, ProductRequest request, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
+    {
+        if (ProductRules.Check(request) is { Count: > 0 } errors)
+        {
+            return TypedResults.ValidationProblem(errors);
+        }
+
+        if (request.Code != code)
+        {
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]>
+            {
+                ["code"] = [$"the code in the body ('{request.Code}') differs from the one in the path ('{code}'); codes cannot be renamed"],
+            });
+        }
+
+        var product = await db.Products.Include(p => p.Specs).SingleOrDefaultAsync(p => p.Code == code, cancellationToken);
+        if (product is null)
+        {
+            return NotFound(code);
+        }
+
+        Apply(product, request, clock.GetUtcNow().ToUnixTimeMilliseconds());
+        await db.SaveChangesAsync(cancellationToken);
+        return TypedResults.Ok(ToResponse(product));
+    }
+
+    private static NotFound<Microsoft.AspNetCore.Mvc.ProblemDetails> NotFound(string code) => TypedResults.NotFound(new Microsoft.AspNetCore.Mvc.ProblemDetails
+    {
+        Type = "/problems/not-found",
+        Title = "No such product.",
+        Status = StatusCodes.Status404NotFound,
+        Detail = $"There is no product with code '{code}'.",
+    });
+
+    private static void Apply(Product product, ProductRequest request, long nowMs)
+    {
+        product.Name = request.Name;
+        product.Description = request.Description ?? "";
+        product.GateFaces = ProductRules.ParseFaces(request.GateFaces)!.Value;
+        product.NominalTopWidthNm = request.Nominal.TopWidthNm;
+        product.NominalBottomWidthNm = request.Nominal.BottomWidthNm;
+        product.NominalFinHeightNm = request.Nominal.FinHeightNm;
+        product.NominalCornerRadiusNm = request.Nominal.CornerRadiusNm;
+        product.NominalLinerThicknessNm = request.Nominal.LinerThicknessNm;
+        product.UpdatedAtMs = nowMs;
+        product.Specs.Clear();
+        foreach (var s in request.Specs ?? [])
+        {
+            product.Specs.Add(new SpecLimit { Parameter = s.Parameter, Lower = s.Lower, Target = s.Target, Upper = s.Upper });
+        }
+    }
+
+    internal static ProductResponse ToResponse(Product p) => new(
+        p.Code, p.Name, p.Description, ProductRules.FacesName(p.GateFaces),
+        new NominalProfile(p.NominalTopWidthNm, p.NominalBottomWidthNm, p.NominalFinHeightNm, p.NominalCornerRadiusNm, p.NominalLinerThicknessNm),
+        p.Specs.OrderBy(s => FinParameters.All.ToList().FindIndex(f => f.Name == s.Parameter))
+            .Select(s => new SpecLimitDto(s.Parameter, s.Lower, s.Target, s.Upper)).ToList(),
+        Time.FromMs(p.CreatedAtMs), Time.FromMs(p.UpdatedAtMs));
+}

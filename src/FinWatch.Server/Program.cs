@@ -1,0 +1,28 @@
+using FinWatch.Server.Features.About;
+using FinWatch.Server.Features.Demo;
+using FinWatch.Server.Features.Lots;
+using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Features.Parameters;
+using FinWatch.Server.Features.Products;
+using FinWatch.Server.Features.Series;
+using FinWatch.Server.Infrastructure;
+
+var builder = WebApplication.CreateBuilder(args);
+builder.AddFinWatchApiDefaults();
+builder.AddFinWatchData();
+builder.AddDemo(args);
+builder.Services.AddMeasurements();
+
+var app = builder.Build();
+await app.MigrateFinWatchDatabaseAsync();
+app.UseFinWatchApiDefaults();
+app.MapAbout();
+app.MapParameters();
+app.MapProducts();
+app.MapMeasurements();
+app.MapLots();
+app.MapSeries();
+await app.RunAsync();
+
+/// <summary>Entry point; public so the integration tests' WebApplicationFactory can boot the real app.</summary>
+public partial class Program;
