@@ -39,8 +39,8 @@ internal sealed class ProductRecipe
         new DemoProfile(6.0, 10.0, 42.0, 2.0, 2.5),
         lotShare: 0.6,
         SitePosition.CentreAndRings("S", (4, 70.0, 0.0), (8, 135.0, 22.5)),
-        topWidth: (5.2, 6.8), bottomWidth: (9.0, 11.0), height: (39.0, 45.0),
-        cornerRadius: (1.2, 2.8), liner: (2.2, 2.8), taperDeg: (1.8, 3.6), midWidth: (7.2, 8.8));
+        topWidth: (5.1, 6.9), bottomWidth: (8.8, 11.2), height: (39.0, 45.0),
+        cornerRadius: (1.2, 2.8), liner: (2.15, 2.85), taperDeg: (1.8, 3.6), midWidth: (7.1, 8.9));
 
     /// <summary>Double-gate (hard mask on top): 9 sites (centre, 4 at 75 mm, 4 at 140 mm); corner radius has an upper limit only.</summary>
     public static readonly ProductRecipe DoubleGate = Create(
@@ -51,8 +51,8 @@ internal sealed class ProductRecipe
         new DemoProfile(7.0, 9.0, 38.0, 1.5, 2.0),
         lotShare: 0.4,
         SitePosition.CentreAndRings("S", (4, 75.0, 45.0), (4, 140.0, 0.0)),
-        topWidth: (6.2, 7.8), bottomWidth: (8.1, 9.9), height: (35.5, 40.5),
-        cornerRadius: (null, 2.2), liner: (1.75, 2.25), taperDeg: (0.8, 2.3), midWidth: (7.2, 8.8));
+        topWidth: (6.1, 7.9), bottomWidth: (7.9, 10.1), height: (35.0, 41.0),
+        cornerRadius: (null, 2.2), liner: (1.7, 2.3), taperDeg: (0.8, 2.4), midWidth: (7.1, 8.9));
 
     public static IReadOnlyList<ProductRecipe> All { get; } = [TriGate, DoubleGate];
 

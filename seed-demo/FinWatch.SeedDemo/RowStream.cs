@@ -6,29 +6,10 @@ namespace FinWatch.SeedDemo;
 /// </summary>
 internal static class RowStream
 {
+    /// <summary>The rows in time order; nothing (not even the lot plan) is computed before the first MoveNext.</summary>
     public static IEnumerable<DemoSiteRow> Generate(int seed, DemoScale scale)
     {
-        List<StepRun> runs = [];
-        foreach (LotPlan lot in LotPlan.PlanAll(seed, scale))
-        {
-            if (lot.CdAtUtc is { } cdAt)
-            {
-                runs.Add(new StepRun(cdAt, lot, IsProfile: false));
-            }
-
-            if (lot.ProfileAtUtc is { } profileAt)
-            {
-                runs.Add(new StepRun(profileAt, lot, IsProfile: true));
-            }
-        }
-
-        // Ties (same start) are broken by lot and then step, so the order never depends on the sort algorithm.
-        runs.Sort((a, b) => (a.StartUtc, a.Lot.Index, a.IsProfile).CompareTo((b.StartUtc, b.Lot.Index, b.IsProfile)));
-        return Merge(seed, scale, runs);
-    }
-
-    private static IEnumerable<DemoSiteRow> Merge(int seed, DemoScale scale, List<StepRun> runs)
-    {
+        List<StepRun> runs = PlanRuns(seed, scale);
         var active = new PriorityQueue<IEnumerator<DemoSiteRow>, (DateTime At, int Run)>();
         int next = 0;
         try
@@ -74,6 +55,28 @@ internal static class RowStream
                 rows.Dispose();
             }
         }
+    }
+
+    /// <summary>Every lot step that fits the window, in start order.</summary>
+    private static List<StepRun> PlanRuns(int seed, DemoScale scale)
+    {
+        List<StepRun> runs = [];
+        foreach (LotPlan lot in LotPlan.PlanAll(seed, scale))
+        {
+            if (lot.CdAtUtc is { } cdAt)
+            {
+                runs.Add(new StepRun(cdAt, lot, IsProfile: false));
+            }
+
+            if (lot.ProfileAtUtc is { } profileAt)
+            {
+                runs.Add(new StepRun(profileAt, lot, IsProfile: true));
+            }
+        }
+
+        // Ties (same start) are broken by lot and then step, so the order never depends on the sort algorithm.
+        runs.Sort((a, b) => (a.StartUtc, a.Lot.Index, a.IsProfile).CompareTo((b.StartUtc, b.Lot.Index, b.IsProfile)));
+        return runs;
     }
 
     private static IEnumerable<DemoSiteRow> Rows(int seed, DemoScale scale, StepRun run)

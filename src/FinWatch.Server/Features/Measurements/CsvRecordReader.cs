@@ -5,14 +5,19 @@ namespace FinWatch.Server.Features.Measurements;
 /// <summary>
 /// Streaming RFC 4180 reader: comma separated, optional double-quoted fields ("" is a quote inside one),
 /// CRLF, LF or CR line ends, UTF-8 with or without BOM. Invalid UTF-8 is an error, not a replacement
-/// character. Reads through a fixed buffer, so a file of any size is never held in memory.
+/// character, reported with its row and line. Reads through a fixed buffer, so a file of any size is never held in memory.
 /// </summary>
 public sealed class CsvRecordReader : IDisposable
 {
     /// <summary>A longer record is taken as a sign of a wrong file rather than data.</summary>
     public const int MaxRecordChars = 65_536;
 
-    private static readonly UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
+    // Invalid byte sequences decode to U+FFFF, a noncharacter that never appears in interchanged text, so the parser can
+    // report the row and line where they occur (a throwing decoder fails a whole buffer ahead of the parser).
+    private const char InvalidUtf8 = '\uFFFF';
+
+    private static readonly Encoding MarkingUtf8 = Encoding.GetEncoding(
+        "utf-8", EncoderFallback.ExceptionFallback, new DecoderReplacementFallback(InvalidUtf8.ToString()));
 
     private readonly TextReader reader;
     private readonly char[] buffer = new char[64 * 1024];
@@ -24,7 +29,7 @@ public sealed class CsvRecordReader : IDisposable
     private int recordChars;
 
     public CsvRecordReader(Stream stream) =>
-        reader = new StreamReader(stream, StrictUtf8, detectEncodingFromByteOrderMarks: true, bufferSize: 64 * 1024, leaveOpen: true);
+        reader = new StreamReader(stream, MarkingUtf8, detectEncodingFromByteOrderMarks: true, bufferSize: 64 * 1024, leaveOpen: true);
 
     /// <summary>Number of records returned so far (the header is record 1).</summary>
     public int Records { get; private set; }
@@ -164,7 +169,13 @@ public sealed class CsvRecordReader : IDisposable
             throw Error($"the row is longer than {MaxRecordChars} characters; this does not look like a FinWatch CSV file");
         }
 
-        return buffer[pos++];
+        var c = buffer[pos++];
+        if (c == InvalidUtf8)
+        {
+            throw Error("the file is not valid UTF-8 here (an invalid byte sequence); save it as UTF-8");
+        }
+
+        return c;
     }
 
     private void ConsumeLineEnd(char c)
@@ -189,14 +200,7 @@ public sealed class CsvRecordReader : IDisposable
             return false;
         }
 
-        try
-        {
-            len = reader.Read(buffer, 0, buffer.Length);
-        }
-        catch (DecoderFallbackException)
-        {
-            throw Error("the file is not valid UTF-8");
-        }
+        len = reader.Read(buffer, 0, buffer.Length);
 
         pos = 0;
         eof = len == 0;
@@ -215,14 +219,7 @@ public sealed class CsvRecordReader : IDisposable
             return false;
         }
 
-        try
-        {
-            len = await reader.ReadAsync(buffer.AsMemory(), cancellationToken);
-        }
-        catch (DecoderFallbackException)
-        {
-            throw Error("the file is not valid UTF-8");
-        }
+        len = await reader.ReadAsync(buffer.AsMemory(), cancellationToken);
 
         pos = 0;
         eof = len == 0;

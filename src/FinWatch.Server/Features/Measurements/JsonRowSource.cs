@@ -35,7 +35,7 @@ public static class JsonRowSource
             }
 
             row++;
-            yield return ToRow(row, element);
+            yield return SafeToRow(row, element);
         }
 
         if (row == 0)
@@ -49,6 +49,19 @@ public static class JsonRowSource
         await foreach (var element in JsonSerializer.DeserializeAsyncEnumerable<JsonElement>(stream, cancellationToken: cancellationToken))
         {
             yield return element;
+        }
+    }
+
+    private static RawRow SafeToRow(int row, JsonElement element)
+    {
+        try
+        {
+            return ToRow(row, element);
+        }
+        catch (InvalidOperationException)
+        {
+            // A property name that is not valid UTF-8 fails when it is transcoded.
+            return new RawRow(row, 0, new string?[IngestColumns.Count], [RowError.For(row, null, null, "the object contains text that is not valid UTF-8")]);
         }
     }
 
@@ -80,9 +93,11 @@ public static class JsonRowSource
             var value = property.Value;
             switch (value.ValueKind)
             {
-                case JsonValueKind.String:
-                    var text = value.GetString()!.Trim();
+                case JsonValueKind.String when TryGetString(value) is { } text:
                     cells[(int)column] = text.Length == 0 ? null : text;
+                    break;
+                case JsonValueKind.String:
+                    (problems ??= []).Add(RowError.For(row, property.Name, null, "the text is not valid UTF-8"));
                     break;
                 case JsonValueKind.Number:
                     cells[(int)column] = value.GetRawText();
@@ -105,5 +120,18 @@ public static class JsonRowSource
         }
 
         return new RawRow(row, 0, cells, problems);
+    }
+
+    // The reader checks UTF-8 of string values only when they are transcoded.
+    private static string? TryGetString(JsonElement value)
+    {
+        try
+        {
+            return value.GetString()!.Trim();
+        }
+        catch (InvalidOperationException)
+        {
+            return null;
+        }
     }
 }

@@ -1,0 +1,266 @@
+using System.Diagnostics;
+using System.Globalization;
+using System.Net.Http.Json;
+using System.Text;
+using FinWatch.Data;
+using FinWatch.SeedDemo;
+using Microsoft.Data.Sqlite;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Benchmarks;
+
+/// <summary>
+/// End-to-end ingest of N site rows through POST /api/measurements/csv on a real server process, against a bare
+/// baseline in the same run: the same rows inserted with Microsoft.Data.Sqlite, one prepared statement, one
+/// transaction, into the same schema (same table and indexes, created by the same migrations).
+/// </summary>
+public static class IngestBenchmark
+{
+    public static async Task<int> RunAsync(int rows)
+    {
+        var work = Directory.CreateTempSubdirectory("finwatch-bench-").FullName;
+        try
+        {
+            Console.WriteLine($"Generating {rows:N0} invented demo rows…");
+            var csvPath = Path.Combine(work, "rows.csv");
+            var data = WriteCsv(csvPath, rows);
+            Console.WriteLine($"CSV: {new FileInfo(csvPath).Length / 1e6:0.0} MB");
+
+            var baseline = Baseline(Path.Combine(work, "baseline.db"), data);
+            Console.WriteLine($"Baseline (Microsoft.Data.Sqlite, one prepared statement, one transaction): {baseline:N0} rows/s");
+            data.Clear();
+            data.TrimExcess();
+            GC.Collect();
+
+            var (rate, peakMb) = await FinWatchAsync(work, csvPath, rows);
+            Console.WriteLine($"FinWatch (HTTP CSV upload, validate, derive, store): {rate:N0} rows/s, server peak RSS {peakMb:0} MB");
+            Console.WriteLine($"Ratio FinWatch / baseline: {rate / baseline:P0} (target ≥ 30 %); peak memory target < 400 MB");
+            return 0;
+        }
+        finally
+        {
+            Directory.Delete(work, recursive: true);
+        }
+    }
+
+    // The 90-day demo fab yields about 650,000 rows at 24 lots a day; 38 lots a day give a million. The CSV is the demo
+    // writer's own output cut after N data lines, and the baseline gets the same first N rows as objects.
+    private static List<DemoSiteRow> WriteCsv(string path, int rows)
+    {
+        var scale = new DemoScale(LotsPerDay: 38);
+        var list = DemoFab.GenerateRows(DemoFab.DefaultSeed, scale).Take(rows).ToList();
+        if (list.Count < rows)
+        {
+            throw new InvalidOperationException($"the generator gave only {list.Count} rows");
+        }
+
+        using var file = new StreamWriter(path, false, new UTF8Encoding(false), 1 << 16);
+        using var limited = new LineLimitWriter(file, rows + 1);
+        DemoFab.WriteMeasurementsCsv(limited, DemoFab.DefaultSeed, scale);
+        return list;
+    }
+
+    private static double Baseline(string dbPath, List<DemoSiteRow> data)
+    {
+        CreateSchema(dbPath);
+        using var connection = new SqliteConnection($"Data Source={dbPath}");
+        connection.Open();
+        using (var pragma = connection.CreateCommand())
+        {
+            pragma.CommandText = "PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; " +
+                "INSERT INTO ingest_batches (source, received_at_ms, completed_at_ms, row_count, inserted, already_present) VALUES ('bench', 0, 0, 0, 0, 0);";
+            pragma.ExecuteNonQuery();
+        }
+
+        var products = new Dictionary<string, long>();
+        using (var cmd = connection.CreateCommand())
+        {
+            cmd.CommandText = "SELECT code, id FROM products";
+            using var r = cmd.ExecuteReader();
+            while (r.Read())
+            {
+                products[r.GetString(0)] = r.GetInt64(1);
+            }
+        }
+
+        var sw = Stopwatch.StartNew();
+        using var tx = connection.BeginTransaction();
+        using var insert = connection.CreateCommand();
+        insert.Transaction = tx;
+        insert.CommandText = """
+            INSERT INTO measurements (batch_id, lot_id, wafer_slot, site_id, site_x_mm, site_y_mm, product_id, step,
+                etch_tool, etch_chamber, liner_tool, liner_chamber, metrology_tool, operator, measured_at_ms,
+                top_width_nm, bottom_width_nm, fin_height_nm, corner_radius_nm, liner_thickness_nm, flags)
+            VALUES (1, $lot, $slot, $site, $x, $y, $product, $step, $etool, $echamber, $ltool, $lchamber, $mtool, $op, $at,
+                $wt, $wb, $h, $r, $liner, 0)
+            """;
+        var names = new[] { "$lot", "$slot", "$site", "$x", "$y", "$product", "$step", "$etool", "$echamber", "$ltool", "$lchamber", "$mtool", "$op", "$at", "$wt", "$wb", "$h", "$r", "$liner" };
+        var p = names.Select(n => insert.Parameters.Add(n, SqliteType.Text)).ToArray();
+        insert.Prepare();
+        foreach (var row in data)
+        {
+            p[0].Value = row.LotId;
+            p[1].Value = row.WaferSlot;
+            p[2].Value = row.SiteId;
+            p[3].Value = row.SiteXMm;
+            p[4].Value = row.SiteYMm;
+            p[5].Value = products[row.Product];
+            p[6].Value = row.Step;
+            p[7].Value = (object?)row.EtchTool ?? DBNull.Value;
+            p[8].Value = (object?)row.EtchChamber ?? DBNull.Value;
+            p[9].Value = (object?)row.LinerTool ?? DBNull.Value;
+            p[10].Value = (object?)row.LinerChamber ?? DBNull.Value;
+            p[11].Value = (object?)row.MetrologyTool ?? DBNull.Value;
+            p[12].Value = (object?)row.Operator ?? DBNull.Value;
+            p[13].Value = new DateTimeOffset(row.MeasuredAtUtc, TimeSpan.Zero).ToUnixTimeMilliseconds();
+            p[14].Value = (object?)row.TopWidthNm ?? DBNull.Value;
+            p[15].Value = (object?)row.BottomWidthNm ?? DBNull.Value;
+            p[16].Value = (object?)row.FinHeightNm ?? DBNull.Value;
+            p[17].Value = (object?)row.CornerRadiusNm ?? DBNull.Value;
+            p[18].Value = (object?)row.LinerThicknessNm ?? DBNull.Value;
+            insert.ExecuteNonQuery();
+        }
+
+        tx.Commit();
+        return data.Count / sw.Elapsed.TotalSeconds;
+    }
+
+    private static void CreateSchema(string dbPath)
+    {
+        var options = new DbContextOptionsBuilder<SqliteFinWatchDbContext>().UseSqlite($"Data Source={dbPath}").Options;
+        using var db = new SqliteFinWatchDbContext(options);
+        db.Database.Migrate();
+        var now = 0L;
+        foreach (var p in DemoFab.Products)
+        {
+            db.Products.Add(new FinWatch.Data.Entities.Product { Code = p.Code, Name = p.Name, CreatedAtMs = now, UpdatedAtMs = now });
+        }
+
+        db.SaveChanges();
+    }
+
+    private static async Task<(double Rate, double PeakMb)> FinWatchAsync(string work, string csvPath, int rows)
+    {
+        var serverDll = Path.Combine(AppContext.BaseDirectory, "FinWatch.Server.dll");
+        var port = 5600 + Random.Shared.Next(300);
+        var start = new ProcessStartInfo("dotnet")
+        {
+            ArgumentList =
+            {
+                serverDll, "--urls", $"http://127.0.0.1:{port}",
+                "--FinWatch:Database:SqlitePath", Path.Combine(work, "finwatch.db"),
+                "--FinWatch:Ingest:InboxEnabled", "false",
+                "--Logging:LogLevel:Default", "Warning",
+            },
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            WorkingDirectory = work,
+        };
+        start.Environment["ASPNETCORE_ENVIRONMENT"] = "Production";
+        using var server = Process.Start(start)!;
+        server.OutputDataReceived += (_, _) => { };
+        server.ErrorDataReceived += (_, e) => { if (e.Data is not null) { Console.Error.WriteLine("server: " + e.Data); } };
+        server.BeginOutputReadLine();
+        server.BeginErrorReadLine();
+        try
+        {
+            using var http = new HttpClient { BaseAddress = new Uri($"http://127.0.0.1:{port}"), Timeout = TimeSpan.FromMinutes(30) };
+            await WaitUntilUpAsync(http);
+            foreach (var p in DemoFab.Products)
+            {
+                var response = await http.PostAsJsonAsync("/api/products", new
+                {
+                    code = p.Code,
+                    name = p.Name,
+                    description = p.Description,
+                    gate_faces = p.GatedFaces,
+                    nominal = new
+                    {
+                        top_width_nm = p.Nominal.TopWidthNm,
+                        bottom_width_nm = p.Nominal.BottomWidthNm,
+                        fin_height_nm = p.Nominal.FinHeightNm,
+                        corner_radius_nm = p.Nominal.CornerRadiusNm,
+                        liner_thickness_nm = p.Nominal.LinerThicknessNm,
+                    },
+                });
+                response.EnsureSuccessStatusCode();
+            }
+
+            var peak = 0L;
+            using var sampling = new CancellationTokenSource();
+            var sampler = Task.Run(async () =>
+            {
+                while (!sampling.IsCancellationRequested)
+                {
+                    peak = Math.Max(peak, RssBytes(server.Id));
+                    await Task.Delay(50);
+                }
+            });
+            var sw = Stopwatch.StartNew();
+            await using (var file = File.OpenRead(csvPath))
+            {
+                using var content = new StreamContent(file, 1 << 16);
+                content.Headers.ContentType = new("text/csv");
+                using var response = await http.PostAsync("/api/measurements/csv", content);
+                var body = await response.Content.ReadAsStringAsync();
+                if (!response.IsSuccessStatusCode)
+                {
+                    throw new InvalidOperationException($"ingest failed: {(int)response.StatusCode} {body[..Math.Min(body.Length, 2000)]}");
+                }
+
+                Console.WriteLine("server answered: " + body[..Math.Min(body.Length, 300)]);
+            }
+
+            var seconds = sw.Elapsed.TotalSeconds;
+            await sampling.CancelAsync();
+            await sampler;
+            return (rows / seconds, peak / 1048576.0);
+        }
+        finally
+        {
+            server.Kill(entireProcessTree: true);
+            await server.WaitForExitAsync();
+        }
+    }
+
+    private static async Task WaitUntilUpAsync(HttpClient http)
+    {
+        for (var i = 0; i < 300; i++)
+        {
+            try
+            {
+                if ((await http.GetAsync("/alive")).IsSuccessStatusCode)
+                {
+                    return;
+                }
+            }
+            catch (HttpRequestException)
+            {
+            }
+
+            await Task.Delay(100);
+        }
+
+        throw new TimeoutException("the server did not start");
+    }
+
+    // Resident set size from /proc (Linux): the memory the server really holds, managed and native.
+    private static long RssBytes(int pid)
+    {
+        try
+        {
+            foreach (var line in File.ReadLines($"/proc/{pid}/status"))
+            {
+                if (line.StartsWith("VmRSS:", StringComparison.Ordinal))
+                {
+                    return long.Parse(line.Split(' ', StringSplitOptions.RemoveEmptyEntries)[1], CultureInfo.InvariantCulture) * 1024;
+                }
+            }
+        }
+        catch (IOException)
+        {
+        }
+
+        return 0;
+    }
+}

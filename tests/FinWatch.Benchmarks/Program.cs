@@ -1,0 +1,15 @@
+using FinWatch.Benchmarks;
+
+// Benchmarks are not part of the test run. Usage (README, Performance):
+//   dotnet run -c Release --project tests/FinWatch.Benchmarks -- ingest [rows]
+return args.FirstOrDefault() switch
+{
+    "ingest" => await IngestBenchmark.RunAsync(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 1_000_000),
+    _ => Usage(),
+};
+
+static int Usage()
+{
+    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows]");
+    return 2;
+}

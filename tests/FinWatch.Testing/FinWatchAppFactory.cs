@@ -1,0 +1,90 @@
+using FinWatch.Data;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
+using Microsoft.Extensions.Time.Testing;
+
+namespace FinWatch.Testing;
+
+/// <summary>
+/// Boots the real server on its own SQLite file (WAL mode, migrations, the production ingest path) with a fake clock.
+/// A temporary file rather than an in-memory database: the ingest holds a long write transaction while readers
+/// continue, which is what WAL gives in production and shared-cache in-memory databases do not.
+/// </summary>
+public class FinWatchAppFactory : WebApplicationFactory<Program>
+{
+    /// <summary>The fake clock starts here: after the invented demo fab's last measurement (2026-11-30).</summary>
+    public static readonly DateTimeOffset Now = new(2026, 12, 1, 8, 0, 0, TimeSpan.Zero);
+
+    private readonly Dictionary<string, string?> settings = new(StringComparer.Ordinal);
+
+    public FinWatchAppFactory()
+    {
+        Folder = Directory.CreateTempSubdirectory("finwatch-test-").FullName;
+        DatabasePath = Path.Combine(Folder, "finwatch.db");
+        InboxPath = Path.Combine(Folder, "inbox");
+        settings["FinWatch:Database:SqlitePath"] = DatabasePath;
+        settings["FinWatch:Ingest:InboxPath"] = InboxPath;
+        settings["FinWatch:Ingest:InboxEnabled"] = "false";
+        settings["FinWatch:Ingest:InboxPollSeconds"] = "1";
+    }
+
+    public string Folder { get; }
+    public string DatabasePath { get; }
+    public string InboxPath { get; }
+    public FakeTimeProvider Clock { get; } = new(Now);
+
+    /// <summary>Sets a configuration value before the host starts (for example to enable the inbox or the demo).</summary>
+    public FinWatchAppFactory With(string key, string? value)
+    {
+        settings[key] = value;
+        return this;
+    }
+
+    protected override void ConfigureWebHost(IWebHostBuilder builder)
+    {
+        builder.UseEnvironment("Testing");
+        foreach (var (key, value) in settings)
+        {
+            builder.UseSetting(key, value);
+        }
+
+        builder.ConfigureServices(services =>
+        {
+            services.RemoveAll<TimeProvider>();
+            services.AddSingleton<TimeProvider>(Clock);
+        });
+    }
+
+    /// <summary>Runs a query against the app's database in a fresh scope.</summary>
+    public async Task<T> QueryAsync<T>(Func<FinWatchDbContext, Task<T>> query)
+    {
+        await using var scope = Services.CreateAsyncScope();
+        var db = scope.ServiceProvider.GetRequiredService<FinWatchDbContext>();
+        return await query(db);
+    }
+
+    /// <summary>Row counts of the tables an ingest writes: a rejected batch must leave all of them unchanged.</summary>
+    public Task<(int Measurements, int Batches, int LotSteps, int LotChambers)> CountsAsync() =>
+        QueryAsync(async db => (await db.Measurements.CountAsync(), await db.IngestBatches.CountAsync(),
+            await db.LotSteps.CountAsync(), await db.LotChambers.CountAsync()));
+
+    protected override void Dispose(bool disposing)
+    {
+        base.Dispose(disposing);
+        if (disposing)
+        {
+            Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+            try
+            {
+                Directory.Delete(Folder, recursive: true);
+            }
+            catch (IOException)
+            {
+                // A file still open by a finishing background service; the temp folder is cleaned by the OS later.
+            }
+        }
+    }
+}
