@@ -91,7 +91,12 @@ internal sealed class CsvLineWriter(TextWriter writer)
     /// </summary>
     private void Fixed(double value, int decimals)
     {
-        long scale = decimals == 1 ? 10 : 1000;
+        (long scale, string fraction) = decimals switch
+        {
+            1 => (10L, "0"),
+            3 => (1000L, "000"),
+            _ => throw new ArgumentOutOfRangeException(nameof(decimals), decimals, "Only 1 or 3 decimals are written."),
+        };
         long scaled = (long)Math.Round(value * scale);
         if (scaled < 0)
         {
@@ -101,7 +106,7 @@ internal sealed class CsvLineWriter(TextWriter writer)
 
         Number(scaled / scale, default);
         _buffer[_length++] = '.';
-        Number(scaled % scale, decimals == 1 ? "0" : "000");
+        Number(scaled % scale, fraction);
     }
 
     private void Number<T>(T value, ReadOnlySpan<char> format)

@@ -30,7 +30,7 @@ public sealed class PlantedBehaviourTests
     }
 
     [Fact]
-    public void TaperCreep_TwoResetsInsideTheNinetyDays()
+    public void TaperCreep_NinetyDayWindow_HasTwoResets()
     {
         Assert.Equal(2, TaperResetsInWindow().Count);
     }

@@ -49,14 +49,16 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         var ingest = scope.ServiceProvider.GetRequiredService<IngestMeasurements>();
         var pipe = new Pipe();
         var seed = options.Value.Seed;
+        var scale = new DemoScale(options.Value.Days, options.Value.LotsPerDay);
         var writer = Task.Run(async () =>
         {
             await using var stream = pipe.Writer.AsStream();
             await using var text = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
-            DemoFab.WriteMeasurementsCsv(text, seed);
+            DemoFab.WriteMeasurementsCsv(text, seed, scale);
         }, stoppingToken);
         await using var reader = pipe.Reader.AsStream();
         var outcome = await ingest.RunAsync(CsvRowSource.ReadAsync(reader, stoppingToken), "demo", $"invented demo fab, seed {seed}", stoppingToken);
+        await pipe.Reader.CompleteAsync();
         await writer;
         if (outcome.Accepted is { } a)
         {

@@ -10,4 +10,10 @@ public sealed class DemoOptions
 
     /// <summary>Seed of the deterministic generator.</summary>
     public int Seed { get; set; } = SeedDemo.DemoFab.DefaultSeed;
+
+    /// <summary>Days of history to generate (1 to 90, the planted events lie in the full 90); tests load fewer.</summary>
+    public int Days { get; set; } = 90;
+
+    /// <summary>Lots started per day.</summary>
+    public double LotsPerDay { get; set; } = 24;
 }

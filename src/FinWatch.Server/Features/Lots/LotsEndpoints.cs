@@ -75,7 +75,7 @@ public static class LotsEndpoints
         return TypedResults.Ok(new LotPageResponse(p, size, total, items));
     }
 
-    private static async Task<Results<Ok<LotResponse>, NotFound<ProblemDetails>>> GetAsync(
+    private static async Task<Results<Ok<LotResponse>, ProblemHttpResult>> GetAsync(
         string lot, FinWatchDbContext db, CancellationToken cancellationToken)
     {
         var rows = await db.Measurements.AsNoTracking().Where(m => m.LotId == lot)
@@ -83,7 +83,7 @@ public static class LotsEndpoints
             .ToListAsync(cancellationToken);
         if (rows.Count == 0)
         {
-            return TypedResults.NotFound(new ProblemDetails
+            return TypedResults.Problem(new ProblemDetails
             {
                 Type = "/problems/not-found",
                 Title = "No such lot.",

@@ -3,6 +3,7 @@ using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Mvc;
 using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Products;
@@ -25,14 +26,14 @@ public static class ProductsEndpoints
         return TypedResults.Ok(products.Select(ToResponse).ToList());
     }
 
-    private static async Task<Results<Ok<ProductResponse>, NotFound<Microsoft.AspNetCore.Mvc.ProblemDetails>>> GetAsync(
+    private static async Task<Results<Ok<ProductResponse>, ProblemHttpResult>> GetAsync(
         string code, FinWatchDbContext db, CancellationToken cancellationToken)
     {
         var product = await db.Products.AsNoTracking().Include(p => p.Specs).SingleOrDefaultAsync(p => p.Code == code, cancellationToken);
         return product is null ? NotFound(code) : TypedResults.Ok(ToResponse(product));
     }
 
-    private static async Task<Results<Created<ProductResponse>, ValidationProblem, Conflict<Microsoft.AspNetCore.Mvc.ProblemDetails>>> CreateAsync(
+    private static async Task<Results<Created<ProductResponse>, ValidationProblem, ProblemHttpResult>> CreateAsync(
         ProductRequest request, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
     {
         if (ProductRules.Check(request) is { Count: > 0 } errors)
@@ -42,7 +43,7 @@ public static class ProductsEndpoints
 
         if (await db.Products.AnyAsync(p => p.Code == request.Code, cancellationToken))
         {
-            return TypedResults.Conflict(new Microsoft.AspNetCore.Mvc.ProblemDetails
+            return TypedResults.Problem(new ProblemDetails
             {
                 Type = "/problems/product-exists",
                 Title = "A product with this code exists already.",
@@ -59,7 +60,7 @@ public static class ProductsEndpoints
         return TypedResults.Created($"/api/products/{product.Code}", ToResponse(product));
     }
 
-    private static async Task<Results<Ok<ProductResponse>, ValidationProblem, NotFound<Microsoft.AspNetCore.Mvc.ProblemDetails>>> UpdateAsync(
+    private static async Task<Results<Ok<ProductResponse>, ValidationProblem, ProblemHttpResult>> UpdateAsync(
         string code, ProductRequest request, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
     {
         if (ProductRules.Check(request) is { Count: > 0 } errors)
@@ -86,7 +87,7 @@ public static class ProductsEndpoints
         return TypedResults.Ok(ToResponse(product));
     }
 
-    private static NotFound<Microsoft.AspNetCore.Mvc.ProblemDetails> NotFound(string code) => TypedResults.NotFound(new Microsoft.AspNetCore.Mvc.ProblemDetails
+    private static ProblemHttpResult NotFound(string code) => TypedResults.Problem(new ProblemDetails
     {
         Type = "/problems/not-found",
         Title = "No such product.",

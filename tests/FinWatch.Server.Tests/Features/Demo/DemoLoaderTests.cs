@@ -1,0 +1,84 @@
+using System.Net;
+using FinWatch.Server.Features.Demo;
+using FinWatch.Testing;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace FinWatch.Server.Tests.Features.Demo;
+
+public class DemoLoaderTests
+{
+    private static FinWatchAppFactory DemoFactory(string? databasePath = null)
+    {
+        var factory = new FinWatchAppFactory()
+            .With("FinWatch:Demo:Enabled", "true")
+            .With("FinWatch:Demo:Days", "4")
+            .With("FinWatch:Demo:LotsPerDay", "3");
+        return databasePath is null ? factory : factory.With("FinWatch:Database:SqlitePath", databasePath);
+    }
+
+    private static async Task<string> WaitForDemoAsync(FinWatchAppFactory factory)
+    {
+        var loader = factory.Services.GetRequiredService<DemoLoader>();
+        for (var i = 0; i < 300 && loader.State is "idle" or "loading"; i++)
+        {
+            await Task.Delay(100);
+        }
+
+        return loader.State;
+    }
+
+    [Fact]
+    public async Task Demo_EmptyDatabase_LoadsProductsAndLotsThroughTheIngest()
+    {
+        using var factory = DemoFactory();
+        using var client = factory.CreateClient();
+        Assert.Equal("loaded", await WaitForDemoAsync(factory));
+
+        var products = await factory.QueryAsync(db => db.Products.Include(p => p.Specs).ToListAsync());
+        Assert.Equal(2, products.Count);
+        Assert.All(products, p => Assert.NotEmpty(p.Specs));
+        var batch = await factory.QueryAsync(db => db.IngestBatches.SingleAsync());
+        Assert.Equal("demo", batch.Source);
+        Assert.True(batch.Inserted > 1000);
+        Assert.Equal(batch.Inserted, (await factory.CountsAsync()).Measurements);
+        // Every profile row got its taper derived on the way in.
+        var missing = await factory.QueryAsync(db => db.Measurements.CountAsync(m => m.Step == "FIN-PROFILE" && m.TaperDeg == null));
+        Assert.Equal(0, missing);
+
+        var response = await client.GetAsync($"/api/series?product={products[0].Code}&step=FIN-PROFILE&parameter=taper_deg&level=wafer");
+        Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+    }
+
+    [Fact]
+    public async Task Demo_DatabaseWithProducts_IsNotLoadedAgain()
+    {
+        string path;
+        int first;
+        using (var factory = DemoFactory())
+        {
+            using var client = factory.CreateClient();
+            Assert.Equal("loaded", await WaitForDemoAsync(factory));
+            first = (await factory.CountsAsync()).Measurements;
+            path = Path.Combine(Path.GetTempPath(), $"finwatch-demo-{Guid.NewGuid():N}.db");
+            File.Copy(factory.DatabasePath, path);
+            File.Copy(factory.DatabasePath + "-wal", path + "-wal");
+        }
+
+        try
+        {
+            using var again = DemoFactory(path);
+            using var client = again.CreateClient();
+            Assert.Equal("skipped", await WaitForDemoAsync(again));
+            Assert.Equal(first, (await again.CountsAsync()).Measurements);
+        }
+        finally
+        {
+            Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+            foreach (var f in new[] { path, path + "-wal", path + "-shm" })
+            {
+                File.Delete(f);
+            }
+        }
+    }
+}
