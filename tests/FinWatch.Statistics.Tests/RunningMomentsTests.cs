@@ -1,5 +1,3 @@
-using FinWatch.Statistics;
-
 namespace FinWatch.Statistics.Tests;
 
 public class RunningMomentsTests

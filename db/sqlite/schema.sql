@@ -1,0 +1,114 @@
+﻿CREATE TABLE IF NOT EXISTS "__EFMigrationsHistory" (
+    "MigrationId" TEXT NOT NULL CONSTRAINT "PK___EFMigrationsHistory" PRIMARY KEY,
+    "ProductVersion" TEXT NOT NULL
+);
+
+BEGIN TRANSACTION;
+CREATE TABLE "ingest_batches" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_ingest_batches" PRIMARY KEY AUTOINCREMENT,
+    "source" TEXT NOT NULL,
+    "label" TEXT NULL,
+    "received_at_ms" INTEGER NOT NULL,
+    "completed_at_ms" INTEGER NOT NULL,
+    "row_count" INTEGER NOT NULL,
+    "inserted" INTEGER NOT NULL,
+    "already_present" INTEGER NOT NULL
+);
+
+CREATE TABLE "lot_chambers" (
+    "lot_id" TEXT NOT NULL,
+    "step" TEXT NOT NULL,
+    "chamber" TEXT NOT NULL,
+    CONSTRAINT "PK_lot_chambers" PRIMARY KEY ("lot_id", "step", "chamber")
+);
+
+CREATE TABLE "products" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_products" PRIMARY KEY AUTOINCREMENT,
+    "code" TEXT NOT NULL,
+    "name" TEXT NOT NULL,
+    "description" TEXT NOT NULL,
+    "gate_faces" TEXT NOT NULL,
+    "nominal_top_width_nm" REAL NOT NULL,
+    "nominal_bottom_width_nm" REAL NOT NULL,
+    "nominal_fin_height_nm" REAL NOT NULL,
+    "nominal_corner_radius_nm" REAL NOT NULL,
+    "nominal_liner_thickness_nm" REAL NOT NULL,
+    "created_at_ms" INTEGER NOT NULL,
+    "updated_at_ms" INTEGER NOT NULL
+);
+
+CREATE TABLE "lot_steps" (
+    "lot_id" TEXT NOT NULL,
+    "step" TEXT NOT NULL,
+    "product_id" INTEGER NOT NULL,
+    "first_measured_at_ms" INTEGER NOT NULL,
+    "last_measured_at_ms" INTEGER NOT NULL,
+    "wafer_count" INTEGER NOT NULL,
+    "site_count" INTEGER NOT NULL,
+    CONSTRAINT "PK_lot_steps" PRIMARY KEY ("lot_id", "step"),
+    CONSTRAINT "FK_lot_steps_products_product_id" FOREIGN KEY ("product_id") REFERENCES "products" ("id") ON DELETE RESTRICT
+);
+
+CREATE TABLE "measurements" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_measurements" PRIMARY KEY AUTOINCREMENT,
+    "batch_id" INTEGER NOT NULL,
+    "lot_id" TEXT NOT NULL,
+    "wafer_slot" INTEGER NOT NULL,
+    "site_id" TEXT NOT NULL,
+    "site_x_mm" REAL NOT NULL,
+    "site_y_mm" REAL NOT NULL,
+    "product_id" INTEGER NOT NULL,
+    "step" TEXT NOT NULL,
+    "etch_tool" TEXT NULL,
+    "etch_chamber" TEXT NULL,
+    "liner_tool" TEXT NULL,
+    "liner_chamber" TEXT NULL,
+    "metrology_tool" TEXT NULL,
+    "operator" TEXT NULL,
+    "measured_at_ms" INTEGER NOT NULL,
+    "top_width_nm" REAL NULL,
+    "bottom_width_nm" REAL NULL,
+    "fin_height_nm" REAL NULL,
+    "corner_radius_nm" REAL NULL,
+    "liner_thickness_nm" REAL NULL,
+    "taper_deg" REAL NULL,
+    "mid_width_nm" REAL NULL,
+    "area_nm2" REAL NULL,
+    "gated_perimeter_nm" REAL NULL,
+    "max_corner_radius_nm" REAL NULL,
+    "flags" INTEGER NOT NULL,
+    CONSTRAINT "FK_measurements_ingest_batches_batch_id" FOREIGN KEY ("batch_id") REFERENCES "ingest_batches" ("id") ON DELETE RESTRICT,
+    CONSTRAINT "FK_measurements_products_product_id" FOREIGN KEY ("product_id") REFERENCES "products" ("id") ON DELETE RESTRICT
+);
+
+CREATE TABLE "spec_limits" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_spec_limits" PRIMARY KEY AUTOINCREMENT,
+    "product_id" INTEGER NOT NULL,
+    "parameter" TEXT NOT NULL,
+    "lower" REAL NULL,
+    "target" REAL NULL,
+    "upper" REAL NULL,
+    CONSTRAINT "FK_spec_limits_products_product_id" FOREIGN KEY ("product_id") REFERENCES "products" ("id") ON DELETE CASCADE
+);
+
+CREATE INDEX "IX_lot_chambers_chamber" ON "lot_chambers" ("chamber");
+
+CREATE INDEX "IX_lot_steps_last_measured_at_ms" ON "lot_steps" ("last_measured_at_ms");
+
+CREATE INDEX "IX_lot_steps_product_id" ON "lot_steps" ("product_id");
+
+CREATE INDEX "IX_measurements_batch_id" ON "measurements" ("batch_id");
+
+CREATE UNIQUE INDEX "IX_measurements_lot_id_wafer_slot_site_id_step_measured_at_ms" ON "measurements" ("lot_id", "wafer_slot", "site_id", "step", "measured_at_ms");
+
+CREATE INDEX "IX_measurements_product_id_step_measured_at_ms" ON "measurements" ("product_id", "step", "measured_at_ms");
+
+CREATE UNIQUE INDEX "IX_products_code" ON "products" ("code");
+
+CREATE UNIQUE INDEX "IX_spec_limits_product_id_parameter" ON "spec_limits" ("product_id", "parameter");
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202033223_Initial', '10.0.15');
+
+COMMIT;
+

@@ -1,0 +1,41 @@
+using FinWatch.Testing;
+using System.Net;
+using System.Text;
+using System.Text.RegularExpressions;
+
+namespace FinWatch.Server.Tests;
+
+/// <summary>The examples in README.md work as printed: the product is created, the CSV and the JSON are accepted.</summary>
+public partial class ReadmeExamplesTests : IntegrationTest
+{
+    protected override bool CreateProducts => false;
+
+    [GeneratedRegex("```(?<lang>csv|json)\\n(?<body>.*?)```", RegexOptions.Singleline)]
+    private static partial Regex CodeBlock();
+
+    private static List<(string Lang, string Body)> Blocks()
+    {
+        var readme = File.ReadAllText(Path.Combine(TestPaths.RepositoryRoot(), "README.md"));
+        return CodeBlock().Matches(readme).Select(m => (m.Groups["lang"].Value, m.Groups["body"].Value)).ToList();
+    }
+
+    [Fact]
+    public async Task ReadmeExamples_ProductCsvAndJson_AreAccepted()
+    {
+        var blocks = Blocks();
+        var product = blocks.Single(b => b.Lang == "json" && b.Body.Contains("\"gate_faces\"", StringComparison.Ordinal)).Body;
+        var created = await Client.PostAsync("/api/products", new StringContent(product, Encoding.UTF8, "application/json"));
+        Assert.Equal(HttpStatusCode.Created, created.StatusCode);
+
+        var csv = blocks.Single(b => b.Lang == "csv").Body;
+        var csvResponse = await PostCsvAsync(csv);
+        var csvBody = await ReadJsonAsync(csvResponse);
+        Assert.Equal(HttpStatusCode.OK, csvResponse.StatusCode);
+        Assert.Equal(3, csvBody.GetProperty("inserted").GetInt32());
+
+        // The JSON example is the CSV's first row again, so it is reported as already present.
+        var json = blocks.Single(b => b.Lang == "json" && b.Body.TrimStart().StartsWith('[')).Body;
+        var jsonBody = await ReadJsonAsync(await PostJsonAsync(json));
+        Assert.Equal(1, jsonBody.GetProperty("already_present").GetInt32());
+    }
+}
