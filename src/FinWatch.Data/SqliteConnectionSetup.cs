@@ -5,11 +5,12 @@ namespace FinWatch.Data;
 
 /// <summary>
 /// Per-connection SQLite settings (shared/RECIPES.md): wait for a busy writer instead of failing at once,
-/// enforce foreign keys, and use synchronous=NORMAL, which is durable in WAL mode across process crashes.
+/// enforce foreign keys, use synchronous=NORMAL (durable in WAL mode across process crashes), and cut the write-ahead
+/// log back to 64 MB after a large batch has been checkpointed.
 /// </summary>
 public sealed class SqliteConnectionSetup : DbConnectionInterceptor
 {
-    public const string Pragmas = "PRAGMA busy_timeout=10000; PRAGMA foreign_keys=ON; PRAGMA synchronous=NORMAL;";
+    public const string Pragmas = "PRAGMA busy_timeout=10000; PRAGMA foreign_keys=ON; PRAGMA synchronous=NORMAL; PRAGMA journal_size_limit=67108864;";
 
     public override void ConnectionOpened(DbConnection connection, ConnectionEndEventData eventData) => Apply(connection);
 

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using Microsoft.AspNetCore.Diagnostics;
 using Microsoft.AspNetCore.Diagnostics.HealthChecks;
 using Microsoft.Extensions.DependencyInjection.Extensions;
 
@@ -17,7 +18,18 @@ public static class ApiDefaultsExtensions
             o.SerializerOptions.DefaultIgnoreCondition = JsonIgnoreCondition.Never;
             o.SerializerOptions.NumberHandling = JsonNumberHandling.Strict;
         });
-        builder.Services.AddProblemDetails();
+        // A request that cannot be bound (malformed JSON, a wrong type, text where a number belongs) becomes a 400 problem
+        // that says what could not be read and where, instead of a bare "Bad Request".
+        builder.Services.Configure<RouteHandlerOptions>(o => o.ThrowOnBadRequest = true);
+        builder.Services.AddProblemDetails(o => o.CustomizeProblemDetails = ctx =>
+        {
+            if (ctx.HttpContext.Features.Get<IExceptionHandlerFeature>()?.Error is BadHttpRequestException bad)
+            {
+                ctx.ProblemDetails.Status = bad.StatusCode;
+                ctx.ProblemDetails.Title = "The request could not be read.";
+                ctx.ProblemDetails.Detail = bad.InnerException is JsonException json ? $"{bad.Message} {json.Message}" : bad.Message;
+            }
+        });
         builder.Services.AddValidation();
         builder.Services.AddOpenApi();
         builder.Services.TryAddSingleton(TimeProvider.System);
@@ -26,7 +38,12 @@ public static class ApiDefaultsExtensions
 
     public static WebApplication UseFinWatchApiDefaults(this WebApplication app)
     {
-        app.UseExceptionHandler();
+        app.UseExceptionHandler(new ExceptionHandlerOptions
+        {
+            StatusCodeSelector = e => e is BadHttpRequestException bad ? bad.StatusCode : StatusCodes.Status500InternalServerError,
+            // A client's malformed request is not a server fault: it is answered, not logged as an error.
+            SuppressDiagnosticsCallback = c => c.Exception is BadHttpRequestException,
+        });
         app.UseStatusCodePages();
         app.MapOpenApi();
         app.MapHealthChecks("/health");

@@ -45,6 +45,28 @@ public class HostTests : IntegrationTest
         Assert.Equal("application/problem+json", response.Content.Headers.ContentType?.MediaType);
     }
 
+    [Theory]
+    [InlineData("/api/lots?page=abc", "page")]
+    [InlineData("/api/series?product=P&step=S&parameter=taper_deg&from=yesterday", "from")]
+    public async Task UnreadableQuery_Returns400ProblemNamingTheParameter(string path, string parameter)
+    {
+        var response = await Client.GetAsync(path);
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        Assert.Equal("application/problem+json", response.Content.Headers.ContentType?.MediaType);
+        var detail = (await ReadJsonAsync(response)).GetProperty("detail").GetString();
+        Assert.Contains(parameter, detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task MalformedJsonBody_Returns400ProblemWithThePosition()
+    {
+        using var content = new StringContent("{\"code\": 5}", System.Text.Encoding.UTF8, "application/json");
+        var response = await Client.PostAsync("/api/products", content);
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        var detail = (await ReadJsonAsync(response)).GetProperty("detail").GetString();
+        Assert.Contains("$.code", detail, StringComparison.Ordinal);
+    }
+
     [Fact]
     public async Task Database_IsInWalMode()
     {

@@ -49,11 +49,18 @@ public class BadFileCorpusTests : IntegrationTest
 
     [Theory]
     [MemberData(nameof(Corpus))]
-    public async Task PostCsv_BadFile_Returns400WithRowAndColumnAndStoresNothing(string name, string csv, int row, string? column)
+    public async Task PostCsv_BadFile_Returns400WithRowAndColumnAndLeavesTheDatabaseUnchanged(string name, string csv, int row, string? column)
     {
+        // A lot stored before: the rejected file must change nothing, not even the summaries of lots it shares.
+        var earlier = SiteRow.Csv(SiteRow.Wafers("T0001", 1, 3, new DateTimeOffset(2026, 11, 19, 0, 0, 0, TimeSpan.Zero)));
+        (await PostCsvAsync(earlier)).EnsureSuccessStatusCode();
+        var before = await Factory.CountsAsync();
+        var lotBefore = await Client.GetStringAsync("/api/lots/T0001");
+
         var errors = await AssertRejectedAsync(await PostCsvAsync(csv));
         Assert.True(HasError(errors, row, column), $"{name}: expected an error at row {row}, column {column ?? "(row)"}; got\n{Describe(errors)}");
-        await AssertNothingStoredAsync();
+        Assert.Equal(before, await Factory.CountsAsync());
+        Assert.Equal(lotBefore, await Client.GetStringAsync("/api/lots/T0001"));
     }
 
     [Fact]
