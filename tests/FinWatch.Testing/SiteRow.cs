@@ -4,7 +4,10 @@ using System.Text.Json.Nodes;
 
 namespace FinWatch.Testing;
 
-/// <summary>Builder of valid ingest rows with invented values; tests change only the fields they are about.</summary>
+/// <summary>
+/// Builder of valid ingest rows with invented values; tests change only the fields they are about. The column list is
+/// written out here rather than taken from the server, so that a change of the published format fails the tests.
+/// </summary>
 public sealed record SiteRow
 {
     public static readonly string[] Columns =
