@@ -5,6 +5,7 @@ using FinWatch.Server.Features.Measurements;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Features.Products;
 using FinWatch.Server.Features.Series;
+using FinWatch.Server.Features.Spc;
 using FinWatch.Server.Infrastructure;
 
 var builder = WebApplication.CreateBuilder(args);
@@ -22,6 +23,8 @@ app.MapProducts();
 app.MapMeasurements();
 app.MapLots();
 app.MapSeries();
+app.MapStoredSeriesAnalysis();
+app.MapSpc();
 await app.RunAsync();
 
 /// <summary>Entry point; public so the integration tests' WebApplicationFactory can boot the real app.</summary>

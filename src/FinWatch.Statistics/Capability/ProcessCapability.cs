@@ -80,11 +80,12 @@ public static class ProcessCapability
             reasons["SigmaOverall"] = n == 0 ? "no values" : "the overall standard deviation needs at least 2 values";
         }
 
-        var within = Indices(mean, sigmaW, "within sigma", spec, "C", reasons);
-        var overall = Indices(mean, sigmaOverall, "overall sigma", spec, "P", reasons);
+        var overallMissing = "the overall standard deviation needs at least 2 values";
+        var within = Indices(mean, sigmaW, "within sigma", "within sigma not available (NaN was given)", spec, "C", reasons);
+        var overall = Indices(mean, sigmaOverall, "overall sigma", overallMissing, spec, "P", reasons);
         var (cpm, cpmTarget) = Cpm(mean, sigmaOverall, spec, reasons);
-        var ppmWithin = Ppm(mean, sigmaW, "within sigma", spec, "PpmWithin", reasons);
-        var ppmOverall = Ppm(mean, sigmaOverall, "overall sigma", spec, "PpmOverall", reasons);
+        var ppmWithin = Ppm(mean, sigmaW, "within sigma", "within sigma not available (NaN was given)", spec, "PpmWithin", reasons);
+        var ppmOverall = Ppm(mean, sigmaOverall, "overall sigma", overallMissing, spec, "PpmOverall", reasons);
 
         AddIntervals(CapabilityIndexNames.Cp, within.Potential, isCp: true, n, confidence, intervals, lowerBounds, reasons);
         AddIntervals(CapabilityIndexNames.Cpk, within.K, isCp: false, n, confidence, intervals, lowerBounds, reasons);
@@ -117,12 +118,12 @@ public static class ProcessCapability
 
     private readonly record struct IndexSet(double? Potential, double? Upper, double? Lower, double? K);
 
-    private static IndexSet Indices(double? mean, double? sigma, string sigmaName, SpecLimits spec, string letter, Dictionary<string, string> reasons)
+    private static IndexSet Indices(double? mean, double? sigma, string sigmaName, string sigmaMissing, SpecLimits spec, string letter, Dictionary<string, string> reasons)
     {
         var names = (Potential: letter + "p", Upper: letter + "pu", Lower: letter + "pl", K: letter + "pk");
         string? common = mean is null ? "no values"
             : spec.IsEmpty ? "no specification limit given"
-            : sigma is null ? $"{sigmaName} not available"
+            : sigma is null ? sigmaMissing
             : sigma.Value == 0 ? $"{sigmaName} is zero (constant data): the index would be infinite"
             : null;
         if (common is not null)
@@ -152,6 +153,14 @@ public static class ProcessCapability
         }
 
         double? k = upper is { } u && lower is { } l ? Math.Min(u, l) : upper ?? lower;
+        if (!IsFiniteOrNull(potential) || !IsFiniteOrNull(upper) || !IsFiniteOrNull(lower))
+        {
+            // Only for a sigma so small (subnormal) that the quotient overflows.
+            reasons[names.Potential] = reasons[names.Upper] = reasons[names.Lower] = reasons[names.K] =
+                $"{sigmaName} is too small for the index to be represented";
+            return default;
+        }
+
         return new IndexSet(potential, upper, lower, k);
     }
 
@@ -179,11 +188,11 @@ public static class ProcessCapability
         return (null, target);
     }
 
-    private static OutsideSpecPpm? Ppm(double? mean, double? sigma, string sigmaName, SpecLimits spec, string key, Dictionary<string, string> reasons)
+    private static OutsideSpecPpm? Ppm(double? mean, double? sigma, string sigmaName, string sigmaMissing, SpecLimits spec, string key, Dictionary<string, string> reasons)
     {
         string? reason = mean is null ? "no values"
             : spec.IsEmpty ? "no specification limit given"
-            : sigma is null ? $"{sigmaName} not available"
+            : sigma is null ? sigmaMissing
             : sigma.Value == 0 ? $"{sigmaName} is zero: the normal model is degenerate"
             : null;
         if (reason is not null)
@@ -222,15 +231,17 @@ public static class ProcessCapability
             return;
         }
 
-        if (isCp)
+        var interval = isCp ? CapabilityConfidence.CpInterval(value, n, confidence) : CapabilityConfidence.CpkInterval(value, n, confidence);
+        var bound = isCp ? CapabilityConfidence.CpLowerBound(value, n, confidence) : CapabilityConfidence.CpkLowerBound(value, n, confidence);
+        if (!double.IsFinite(interval.Low) || !double.IsFinite(interval.High) || !double.IsFinite(bound))
         {
-            intervals[name] = CapabilityConfidence.CpInterval(value, n, confidence);
-            lowerBounds[name] = CapabilityConfidence.CpLowerBound(value, n, confidence);
+            reasons[key] = $"{name} is too large for its confidence limits to be represented";
+            return;
         }
-        else
-        {
-            intervals[name] = CapabilityConfidence.CpkInterval(value, n, confidence);
-            lowerBounds[name] = CapabilityConfidence.CpkLowerBound(value, n, confidence);
-        }
+
+        intervals[name] = interval;
+        lowerBounds[name] = bound;
     }
+
+    private static bool IsFiniteOrNull(double? x) => x is not { } v || double.IsFinite(v);
 }

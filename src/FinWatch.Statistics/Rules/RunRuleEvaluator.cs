@@ -21,6 +21,7 @@ namespace FinWatch.Statistics.Rules;
 /// (every rule but N3 and N4) skip the point as if it were missing — it neither enters a 3- or 5-point window nor
 /// extends or ends a run. N3 and N4 still use its value. <see cref="ZoneCount"/> counts the points with a non-NaN z;
 /// while it is 0 the zone rules have not been evaluable at all (the batch API reports their flags as null).</para>
+/// <para>Not thread-safe: one evaluator per chart, appended to by one writer at a time.</para>
 /// </remarks>
 public sealed class RunRuleEvaluator
 {

@@ -11,8 +11,8 @@ namespace FinWatch.Statistics.RunLength;
 /// </summary>
 internal static class CusumRunLength
 {
-    /// <summary>Gauss–Legendre order per panel; panels are at most one sigma wide (the kernel's width).</summary>
-    internal const int DefaultOrder = 16;
+    /// <summary>Gauss–Legendre order per panel; panels are at most one sigma wide (the kernel's standard deviation).</summary>
+    internal const int DefaultOrder = 12;
 
     public static double UpperOneSided(double k, double h, double shift, double headStart) =>
         UpperOneSided(k, h, shift, headStart, PanelsFor(h), DefaultOrder);

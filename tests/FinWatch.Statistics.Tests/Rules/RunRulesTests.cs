@@ -24,7 +24,7 @@ public class RunRulesTests
 
     [Theory]
     [MemberData(nameof(Ids))]
-    public void Id_EveryRule_RoundTripsThroughTryParse(string expectedId, RunRule rule) =>
+    public void Id_EveryRule_ReturnsItsIdentifier(string expectedId, RunRule rule) =>
         Assert.Equal(expectedId, RunRules.Id(rule));
 
     [Fact]

@@ -16,7 +16,7 @@ public sealed record AnalysisResponse(
     [property: JsonPropertyName("percentileCapability")] PercentileCapabilityResponse? PercentileCapability);
 
 /// <summary>A limit or centre line is a number when constant, or an array with one entry per point when it varies.</summary>
-public sealed record SeriesResponse(
+public sealed record ChartLineResponse(
     [property: JsonPropertyName("values")] double?[] Values,
     [property: JsonPropertyName("center")] object? Center,
     [property: JsonPropertyName("ucl")] object? Ucl,
@@ -28,8 +28,8 @@ public sealed record ChartResponse(
     [property: JsonPropertyName("constants")] string Constants,
     [property: JsonPropertyName("center")] double? Center,
     [property: JsonPropertyName("sigma")] double? Sigma,
-    [property: JsonPropertyName("primary")] SeriesResponse Primary,
-    [property: JsonPropertyName("secondary")] SeriesResponse? Secondary,
+    [property: JsonPropertyName("primary")] ChartLineResponse Primary,
+    [property: JsonPropertyName("secondary")] ChartLineResponse? Secondary,
     [property: JsonPropertyName("beyondLimitsPrimary")] int[] BeyondLimitsPrimary,
     [property: JsonPropertyName("beyondLimitsSecondary")] int[] BeyondLimitsSecondary,
     [property: JsonPropertyName("excluded")] IReadOnlyList<ExclusionRequest> Excluded,

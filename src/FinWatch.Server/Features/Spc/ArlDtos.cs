@@ -41,24 +41,11 @@ public sealed record ArlResponse(
     [property: JsonPropertyName("shewhartWithRules")] ArlSeries? ShewhartWithRules,
     [property: JsonPropertyName("unit")] string Unit);
 
-/// <summary>One row of the control chart constants table.</summary>
-public sealed record ConstantsRow(
-    [property: JsonPropertyName("n")] int N,
-    [property: JsonPropertyName("d2")] double D2Small,
-    [property: JsonPropertyName("d3")] double D3Small,
-    [property: JsonPropertyName("c4")] double C4,
-    [property: JsonPropertyName("A2")] double A2,
-    [property: JsonPropertyName("A3")] double A3,
-    [property: JsonPropertyName("B3")] double B3,
-    [property: JsonPropertyName("B4")] double B4,
-    [property: JsonPropertyName("B5")] double B5,
-    [property: JsonPropertyName("B6")] double B6,
-    [property: JsonPropertyName("D1")] double D1,
-    [property: JsonPropertyName("D2")] double D2,
-    [property: JsonPropertyName("D3")] double D3,
-    [property: JsonPropertyName("D4")] double D4);
-
+/// <summary>
+/// The constants table. Each row is a map, since the conventional symbols d2 and D2 (d3 and D3) differ only in case and the
+/// API's JSON reading is case-insensitive.
+/// </summary>
 public sealed record ConstantsResponse(
-    [property: JsonPropertyName("exact")] IReadOnlyList<ConstantsRow> Exact,
-    [property: JsonPropertyName("table")] IReadOnlyList<ConstantsRow> Table,
+    [property: JsonPropertyName("exact")] IReadOnlyList<IReadOnlyDictionary<string, double>> Exact,
+    [property: JsonPropertyName("table")] IReadOnlyList<IReadOnlyDictionary<string, double>> Table,
     [property: JsonPropertyName("source")] string Source);
