@@ -24,6 +24,7 @@ app.MapMeasurements();
 app.MapLots();
 app.MapSeries();
 app.MapStoredSeriesAnalysis();
+app.MapForecast();
 app.MapSpc();
 await app.RunAsync();
 

@@ -2,6 +2,7 @@ using FinWatch.Benchmarks;
 
 // Benchmarks are not part of the test run. Usage (README, Performance):
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- ingest [rows]
+//   dotnet run -c Release --project tests/FinWatch.Benchmarks -- rules
 return args.FirstOrDefault() switch
 {
     "ingest" => await IngestBenchmark.RunAsync(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 1_000_000),
@@ -11,6 +12,6 @@ return args.FirstOrDefault() switch
 
 static int Usage()
 {
-    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows]");
+    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | rules");
     return 2;
 }

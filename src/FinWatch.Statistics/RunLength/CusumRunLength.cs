@@ -41,7 +41,7 @@ internal static class CusumRunLength
         var arl = matrix.Solve(Vector<double>.Build.Dense(n + 1, 1.0));
         if (headStart == 0)
         {
-            return arl[0];
+            return RunLengthGuard.Checked(arl[0]);
         }
 
         // Nyström interpolation: the integral equation itself evaluated at u = headStart.
@@ -51,6 +51,6 @@ internal static class CusumRunLength
             result += weights[c - 1] * Normal.PDF(0, 1, nodes[c - 1] - headStart + k - shift) * arl[c];
         }
 
-        return result;
+        return RunLengthGuard.Checked(result);
     }
 }

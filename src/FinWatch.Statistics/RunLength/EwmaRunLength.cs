@@ -13,8 +13,8 @@ internal static class EwmaRunLength
     /// <summary>Gauss–Legendre order per panel; panels are at most 2λ wide (the kernel's standard deviation is λ).</summary>
     internal const int DefaultOrder = 10;
 
-    /// <summary>Cap on the panels (400 nodes) so that one call stays within a few tens of milliseconds.</summary>
-    internal const int MaxPanels = 40;
+    /// <summary>Cap on the panels (300 nodes) so that one call stays within about 10 ms.</summary>
+    internal const int MaxPanels = 30;
 
     public static double FromTarget(double lambda, double l, double shift)
     {
@@ -50,6 +50,6 @@ internal static class EwmaRunLength
             result += weights[c] / lambda * Normal.PDF(0, 1, (nodes[c] / lambda) - shift) * arl[c];
         }
 
-        return result;
+        return RunLengthGuard.Checked(result);
     }
 }

@@ -1,0 +1,100 @@
+using System.Text.Json.Serialization;
+using FinWatch.Data;
+using FinWatch.Server.Features.Series;
+using FinWatch.Statistics.Forecast;
+using FinWatch.Statistics.Shewhart;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Server.Features.Spc;
+
+public sealed record ForecastResponse(
+    [property: JsonPropertyName("status")] string Status,
+    [property: JsonPropertyName("message")] string Message,
+    [property: JsonPropertyName("n")] int N,
+    [property: JsonPropertyName("slope")] double? Slope,
+    [property: JsonPropertyName("pValue")] double? PValue,
+    [property: JsonPropertyName("limit")] string? Limit,
+    [property: JsonPropertyName("limitValue")] double? LimitValue,
+    [property: JsonPropertyName("estimate")] double? Estimate,
+    [property: JsonPropertyName("low")] double? Low,
+    [property: JsonPropertyName("high")] double? High,
+    [property: JsonPropertyName("notes")] IReadOnlyList<string> Notes);
+
+/// <summary>The drift forecast of a stored series in lots and in hours, from the lot means of the last <c>window</c> lots.</summary>
+public sealed record DriftResponse(
+    [property: JsonPropertyName("context")] StoredContext Context,
+    [property: JsonPropertyName("window")] int Window,
+    [property: JsonPropertyName("lots")] int Lots,
+    [property: JsonPropertyName("lcl")] double? Lcl,
+    [property: JsonPropertyName("ucl")] double? Ucl,
+    [property: JsonPropertyName("lsl")] double? Lsl,
+    [property: JsonPropertyName("usl")] double? Usl,
+    [property: JsonPropertyName("inLots")] ForecastResponse InLots,
+    [property: JsonPropertyName("inHours")] ForecastResponse InHours);
+
+public static class ForecastEndpoints
+{
+    public const int MaxWindow = 500;
+
+    public static IEndpointRouteBuilder MapForecast(this IEndpointRouteBuilder app)
+    {
+        app.MapGet("/api/series/forecast", ForecastAsync).WithTags("Series")
+            .WithSummary("Trend of the recent lot means and when it would cross a control or specification limit");
+        return app;
+    }
+
+    private static async Task<Results<Ok<DriftResponse>, ValidationProblem>> ForecastAsync(
+        FinWatchDbContext db, string? product, string? step, string? parameter, string? chamber, DateTimeOffset? from, DateTimeOffset? to,
+        int? window, CancellationToken cancellationToken)
+    {
+        var (query, errors) = await SeriesQuery.ResolveAsync(db, product, step, parameter, chamber, from, to, cancellationToken);
+        var w = window ?? 30;
+        if (w is < 6 or > MaxWindow)
+        {
+            errors["window"] = [$"window is 6 to {MaxWindow} lots"];
+        }
+
+        if (query is null || errors.Count > 0)
+        {
+            return TypedResults.ValidationProblem(errors);
+        }
+
+        // Lot means in the order the lots were measured; control limits from the I-MR chart of all lot means in range.
+        var lots = new List<(long At, double Sum, int N)>();
+        var index = new Dictionary<string, int>(StringComparer.Ordinal);
+        await foreach (var r in query.Rows(db).WithCancellation(cancellationToken))
+        {
+            if (!index.TryGetValue(r.Lot, out var i))
+            {
+                i = lots.Count;
+                index[r.Lot] = i;
+                lots.Add((r.At, 0, 0));
+            }
+
+            lots[i] = (lots[i].At, lots[i].Sum + r.Value, lots[i].N + 1);
+        }
+
+        var means = lots.Select(l => l.Sum / l.N).ToArray();
+        var chart = ShewhartCharts.Individuals(means, LimitRequest.FromData);
+        var spec = await db.SpecLimits.AsNoTracking()
+            .SingleOrDefaultAsync(s => s.ProductId == query.ProductId && s.Parameter == query.Parameter.Name, cancellationToken);
+        double? ucl = means.Length > 0 ? RunAnalysis.Nullable(chart.Primary.Upper[0]) : null;
+        double? lcl = means.Length > 0 ? RunAnalysis.Nullable(chart.Primary.Lower[0]) : null;
+        var limits = new DriftLimits(lcl, ucl, spec?.Lower, spec?.Upper);
+
+        var start = Math.Max(0, means.Length - w);
+        var recent = means[start..];
+        var lotPositions = Enumerable.Range(start, recent.Length).Select(i => (double)i).ToArray();
+        var t0 = lots.Count > 0 ? lots[0].At : 0;
+        var hours = lots.Skip(start).Select(l => (l.At - t0) / 3_600_000.0).ToArray();
+        var inLots = DriftForecast.Estimate(lotPositions, recent, limits, PositionUnit.LotIndex);
+        var inHours = DriftForecast.Estimate(hours, recent, limits, PositionUnit.Hours);
+        var context = new StoredContext(query.Product, query.Step, query.Parameter.Name, query.Parameter.Unit, chamber, "lot", false);
+        return TypedResults.Ok(new DriftResponse(context, w, means.Length, lcl, ucl, spec?.Lower, spec?.Upper, Map(inLots), Map(inHours)));
+    }
+
+    private static ForecastResponse Map(DriftForecastResult r) => new(
+        r.Status.ToString(), r.Message, r.N, r.Slope, r.PValue, r.Limit?.ToString(), r.LimitValue,
+        r.DistanceEstimate, r.DistanceLow, r.DistanceHigh, r.Notes);
+}
