@@ -25,6 +25,7 @@ app.MapLots();
 app.MapSeries();
 app.MapStoredSeriesAnalysis();
 app.MapForecast();
+app.MapThreeWay();
 app.MapSpc();
 await app.RunAsync();
 

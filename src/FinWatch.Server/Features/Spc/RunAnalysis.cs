@@ -55,7 +55,7 @@ public static class RunAnalysis
         };
     }
 
-    private static ChartResponse ToChart(ShewhartChart c, string name, ConstantsMode mode, IReadOnlyList<ExclusionRequest> excluded, List<string> warnings) =>
+    internal static ChartResponse ToChart(ShewhartChart c, string name, ConstantsMode mode, IReadOnlyList<ExclusionRequest> excluded, List<string> warnings) =>
         new(name,
             c.Source.ToString().ToLowerInvariant(),
             mode == ConstantsMode.Table ? "table" : "exact",
@@ -144,7 +144,7 @@ public static class RunAnalysis
         return new CusumResponse(Nulls(c.CPlus), Nulls(c.CMinus), c.SignalsUpper, c.SignalsLower, d.Target, d.Sigma);
     }
 
-    private static ChartLineResponse ToSeries(ChartSeries s) => new(Nulls(s.Values), Line(s.Center), Line(s.Upper), Line(s.Lower));
+    internal static ChartLineResponse ToSeries(ChartSeries s) => new(Nulls(s.Values), Line(s.Center), Line(s.Upper), Line(s.Lower));
 
     /// <summary>A constant line as one number, a varying one as an array (null where a point has no limit).</summary>
     private static object? Line(double[] line)

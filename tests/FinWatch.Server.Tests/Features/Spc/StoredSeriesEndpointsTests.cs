@@ -55,4 +55,18 @@ public class StoredSeriesEndpointsTests : IntegrationTest
         var response = await Client.GetAsync("/api/series/chart?product=TP-TRI&step=FIN-PROFILE&parameter=colour");
         Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
     }
+
+    [Fact]
+    public async Task ThreeWay_GivesOnePointPerLotAndPerWafer()
+    {
+        await SeedAsync();
+        var response = await Client.GetAsync("/api/series/three-way?product=TP-TRI&step=FIN-PROFILE&parameter=top_width_nm");
+        var r = await ReadJsonAsync(response);
+        Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+        Assert.Equal(12, r.GetProperty("lots").GetArrayLength());
+        Assert.Equal(12, r.GetProperty("betweenLots").GetProperty("primary").GetProperty("values").GetArrayLength());
+        Assert.Equal(24, r.GetProperty("withinWafer").GetProperty("values").GetArrayLength());
+        // Every wafer has the same sites, so the wafer means within a lot do not differ: range 0.
+        Assert.Equal(0, r.GetProperty("withinLot").GetProperty("values")[0].GetDouble(), 12);
+    }
 }
