@@ -38,4 +38,15 @@ public partial class ReadmeExamplesTests : IntegrationTest
         var jsonBody = await ReadJsonAsync(await PostJsonAsync(json));
         Assert.Equal(1, jsonBody.GetProperty("already_present").GetInt32());
     }
+
+    [Fact]
+    public async Task ReadmeExample_AnalysisRequest_IsAccepted()
+    {
+        var analysis = Blocks().Single(b => b.Lang == "json" && b.Body.Contains("\"sigmaMultiplier\"", StringComparison.Ordinal)).Body;
+        var response = await Client.PostAsync("/api/spc/analyses", new StringContent(analysis, Encoding.UTF8, "application/json"));
+        var body = await ReadJsonAsync(response);
+        Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+        Assert.Equal("baseline", body.GetProperty("chart").GetProperty("limitsSource").GetString());
+        Assert.Equal(10, body.GetProperty("ewma").GetProperty("z").GetArrayLength());
+    }
 }
