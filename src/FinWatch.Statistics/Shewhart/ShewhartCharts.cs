@@ -62,19 +62,7 @@ public static class ShewhartCharts
         }
 
         var warnings = new List<string>();
-        double center;
-        double? sigma;
-        if (limits.Source == LimitSource.Known)
-        {
-            center = limits.KnownMean!.Value;
-            sigma = limits.KnownSigma!.Value;
-        }
-        else
-        {
-            center = moments.Count > 0 ? moments.Mean : double.NaN;
-            sigma = mrMoments.Count > 0 ? mrMoments.Mean / c2.RangeMean : null;
-            Describe(warnings, moments.Count, "points", 20);
-        }
+        var (center, sigma) = CenterAndSigma(limits, moments, mrMoments.Count > 0 ? mrMoments.Mean / c2.RangeMean : null, moments.Count, "points", warnings);
 
         var s = sigma ?? double.NaN;
         var half = multiplier * s;
@@ -168,19 +156,7 @@ public static class ShewhartCharts
         }
 
         var warnings = new List<string>();
-        double center;
-        double? sigma;
-        if (limits.Source == LimitSource.Known)
-        {
-            center = limits.KnownMean!.Value;
-            sigma = limits.KnownSigma!.Value;
-        }
-        else
-        {
-            center = all.Count > 0 ? all.Mean : double.NaN;
-            sigma = sigmaTerms.Count > 0 ? sigmaTerms.Mean : null;
-            Describe(warnings, sigmaTerms.Count, "subgroups", 20);
-        }
+        var (center, sigma) = CenterAndSigma(limits, all, sigmaTerms.Count > 0 ? sigmaTerms.Mean : null, sigmaTerms.Count, "subgroups", warnings);
 
         if (sizes.Where(k => k > 0).Distinct().Skip(1).Any())
         {
@@ -291,6 +267,19 @@ public static class ShewhartCharts
         }
 
         return new ShewhartChart(type, limits.Source, center, sigma, primary, secondary, z, sizes, warnings);
+    }
+
+    /// <summary>The given mean and sigma for known limits; otherwise the estimates, with a warning on a small baseline.</summary>
+    private static (double Center, double? Sigma) CenterAndSigma(LimitRequest limits, RunningMoments values, double? estimatedSigma,
+        long estimateCount, string what, List<string> warnings)
+    {
+        if (limits.Source == LimitSource.Known)
+        {
+            return (limits.KnownMean!.Value, limits.KnownSigma!.Value);
+        }
+
+        Describe(warnings, estimateCount, what, 20);
+        return (values.Count > 0 ? values.Mean : double.NaN, estimatedSigma);
     }
 
     private static void Describe(List<string> warnings, long count, string what, int recommended)
