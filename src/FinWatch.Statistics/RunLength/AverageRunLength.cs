@@ -6,7 +6,8 @@ namespace FinWatch.Statistics.RunLength;
 /// Average run lengths (expected number of points to the first signal, counting the signalling point) of Shewhart,
 /// EWMA and tabular CUSUM charts for normally distributed, independent points with known in-control mean and σ
 /// (spc.md §4.3). Shifts δ are in sigma units of the plotted statistic (σ/√n for subgroup means); δ = 0 gives the
-/// in-control ARL. All functions are deterministic and take well under a millisecond to a few milliseconds.
+/// in-control ARL. All functions are deterministic; each call takes from microseconds (Shewhart) to about 10 ms
+/// (EWMA with a small λ, the largest linear system).
 /// </summary>
 public static class AverageRunLength
 {
@@ -15,7 +16,8 @@ public static class AverageRunLength
     /// </summary>
     /// <param name="L">Limit width in sigma units, L &gt; 0 (3 for the usual chart: 370.4 in control).</param>
     /// <param name="shift">Mean shift δ in sigma units; any finite value.</param>
-    /// <returns>The ARL, ≥ 1; exact to double precision (MathNet's normal CDF).</returns>
+    /// <returns>The ARL, ≥ 1, exact to double precision (MathNet's normal CDF); +∞ when the signal probability
+    /// underflows (L above about 37).</returns>
     /// <exception cref="ArgumentOutOfRangeException">L is not positive and finite, or δ is not finite.</exception>
     public static double Shewhart(double L, double shift)
     {
@@ -30,15 +32,16 @@ public static class AverageRunLength
     /// </summary>
     /// <remarks>
     /// Method: Nyström solution of Crowder's (1987) integral equation with composite Gauss–Legendre quadrature (panels
-    /// at most λ/4 wide, 10 nodes each, at most 600 nodes), solved by LU. Accuracy: relative error below 1e-8 for
-    /// λ ≥ 0.05 and L ≤ 3.5 (checked against a finer rule and a Lucas–Saccucci Markov chain in the tests); for
-    /// λ below about 0.01 the node cap is reached and the accuracy falls (still about 1e-4 at λ = 0.01).
+    /// at most 2λ wide, 10 nodes each, at most 300 nodes), solved by LU, then Nyström interpolation at the target.
+    /// Accuracy: relative error below 1e-10 for λ ≥ 0.005 and L ≤ 4 (measured against finer rules; the tests also
+    /// cross-check a Lucas–Saccucci Markov chain and the printed tables); below λ = 0.005 the node cap is reached and the error grows (about 1e-6 at
+    /// λ = 0.001, L = 3.5). ARLs above 1e12, beyond what double precision resolves, are returned as +∞.
     /// λ = 1 reproduces <see cref="Shewhart"/>.
     /// </remarks>
     /// <param name="lambda">Smoothing weight λ, 0 &lt; λ ≤ 1.</param>
     /// <param name="L">Limit width L &gt; 0 in sigma units of the EWMA's asymptotic standard deviation.</param>
     /// <param name="shift">Mean shift δ in sigma units of the data; any finite value.</param>
-    /// <returns>The ARL, ≥ 1.</returns>
+    /// <returns>The ARL, ≥ 1, or +∞ (see remarks).</returns>
     /// <exception cref="ArgumentOutOfRangeException">A parameter is outside its valid range.</exception>
     public static double Ewma(double lambda, double L, double shift)
     {
@@ -58,15 +61,18 @@ public static class AverageRunLength
     /// <see cref="CusumOneSided"/>(k, h, δ) and ARL⁻ = <see cref="CusumOneSided"/>(k, h, −δ) by symmetry.
     /// </summary>
     /// <remarks>
-    /// The combination is the one the published tables use (Montgomery Table 9.3, NIST §6.3.2.3); it is exact when the
-    /// two sums cannot be positive at once, which holds for the zero start; with a head start it is Lucas &amp;
-    /// Crosier's approximation. Accuracy of each one-sided ARL: see <see cref="CusumOneSided"/>.
+    /// The combination is the one the published tables use (Montgomery Table 9.3, NIST §6.3.2.3). With the zero start
+    /// it agrees with direct simulation of the two-sided scheme (at h = 5: 465.44 against 465.2 ± 1.0 from 200 000
+    /// seeded runs). With a head start it is an approximation: accurate out of control, but it overstates the in-control
+    /// ARL by several per cent because both sums start positive (h = 5, head start 2.5: 447.9 against about 429
+    /// simulated; h = 4, head start 2: 158.2 against about 148). Accuracy of each one-sided ARL: see
+    /// <see cref="CusumOneSided"/>.
     /// </remarks>
     /// <param name="k">Reference value k ≥ 0, sigma units.</param>
-    /// <param name="h">Decision interval h &gt; 0, sigma units.</param>
+    /// <param name="h">Decision interval h, 0 &lt; h ≤ 20, sigma units.</param>
     /// <param name="shift">Mean shift δ in sigma units; any finite value.</param>
     /// <param name="headStart">Fast-initial-response head start for both sums, 0 ≤ headStart ≤ h, sigma units.</param>
-    /// <returns>The two-sided ARL, ≥ 1.</returns>
+    /// <returns>The two-sided ARL, ≥ 1, or +∞ when both one-sided ARLs are.</returns>
     /// <exception cref="ArgumentOutOfRangeException">A parameter is outside its valid range.</exception>
     public static double Cusum(double k, double h, double shift, double headStart = 0)
     {
@@ -82,15 +88,16 @@ public static class AverageRunLength
     /// <remarks>
     /// Method: Nyström solution of Page's (1954) integral equation, the atom at 0 (the probability of S falling back to 0)
     /// carried as its own unknown, with composite Gauss–Legendre quadrature on [0, h] (panels at most one sigma wide,
-    /// 16 nodes each), solved by LU; a non-zero head start is evaluated by Nyström interpolation. Accuracy: relative error
-    /// below 1e-8 for h ≤ 20 (checked against a finer rule and a Brook &amp; Evans Markov chain in the tests). Very large
-    /// ARLs (a large h with a negative δ) are returned as computed and may lose relative accuracy beyond about 1e12.
+    /// 12 nodes each), solved by LU; a non-zero head start is evaluated by Nyström interpolation. Accuracy: relative error
+    /// below 1e-10 for ARLs up to 1e6 and below 1e-8 up to 1e9 (measured against finer rules; the tests also
+    /// cross-check a Brook &amp; Evans Markov chain and the printed tables); the linear system's condition number grows with the ARL, so ARLs above 1e12 (a large
+    /// h with δ well below k) are returned as +∞.
     /// </remarks>
     /// <param name="k">Reference value k ≥ 0, sigma units.</param>
-    /// <param name="h">Decision interval h &gt; 0, sigma units (up to about 50).</param>
+    /// <param name="h">Decision interval h, 0 &lt; h ≤ 20, sigma units.</param>
     /// <param name="shift">Mean shift δ in sigma units; any finite value.</param>
     /// <param name="headStart">Head start S_0, 0 ≤ headStart ≤ h, sigma units.</param>
-    /// <returns>The one-sided ARL, ≥ 1.</returns>
+    /// <returns>The one-sided ARL, ≥ 1, or +∞ (see remarks).</returns>
     /// <exception cref="ArgumentOutOfRangeException">A parameter is outside its valid range.</exception>
     public static double CusumOneSided(double k, double h, double shift, double headStart = 0)
     {
@@ -99,9 +106,9 @@ public static class AverageRunLength
             throw new ArgumentOutOfRangeException(nameof(k), k, "k must be non-negative and finite.");
         }
 
-        if (!(h > 0 && h <= 50))
+        if (!(h > 0 && h <= 20))
         {
-            throw new ArgumentOutOfRangeException(nameof(h), h, "h must satisfy 0 < h ≤ 50.");
+            throw new ArgumentOutOfRangeException(nameof(h), h, "h must satisfy 0 < h ≤ 20 (sigma units).");
         }
 
         RequireFinite(shift, nameof(shift));

@@ -4,6 +4,7 @@ namespace FinWatch.Server.Features.Spc;
 public static class AnalysisRules
 {
     public const int MaxPoints = 1_000_000;
+    public const double MaxMagnitude = 1e100;
 
     public static Dictionary<string, string[]> Check(AnalysisRequest r)
     {
@@ -26,6 +27,18 @@ public static class AnalysisRules
         if (count > MaxPoints)
         {
             Add(hasValues ? "values" : "subgroups", $"at most {MaxPoints} points per analysis");
+        }
+
+        // Squares of larger magnitudes overflow double precision; no measured quantity comes near this.
+        var tooLarge = (r.Values ?? []).Select((v, i) => (v, i)).FirstOrDefault(p => p.v is { } x && Math.Abs(x) > MaxMagnitude);
+        if (tooLarge.v is not null)
+        {
+            Add("values", $"values[{tooLarge.i}] = {tooLarge.v} is beyond ±{MaxMagnitude:0e0}");
+        }
+
+        if ((r.Subgroups ?? []).Any(g => g is not null && g.Any(v => v is { } x && Math.Abs(x) > MaxMagnitude)))
+        {
+            Add("subgroups", $"a value is beyond ±{MaxMagnitude:0e0}");
         }
 
         var chart = r.Chart ?? (hasSubgroups ? "Xbar-R" : "I-MR");

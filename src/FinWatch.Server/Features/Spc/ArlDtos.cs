@@ -31,7 +31,7 @@ public sealed record EwmaDesign
 
 public sealed record ArlSeries(
     [property: JsonPropertyName("design")] IReadOnlyDictionary<string, object> Design,
-    [property: JsonPropertyName("arl")] double[] Arl);
+    [property: JsonPropertyName("arl")] double?[] Arl);
 
 public sealed record ArlResponse(
     [property: JsonPropertyName("shifts")] double[] Shifts,

@@ -36,7 +36,8 @@ public static class SpcEndpoints
         }
 
         var shifts = request.Shifts!;
-        double[] Each(Func<double, double> arl) => shifts.Select(arl).ToArray();
+        // A run length beyond 1e12 points cannot be resolved in double precision; it is reported as null, not infinity.
+        double?[] Each(Func<double, double> arl) => shifts.Select(d => RunAnalysis.Nullable(arl(d))).ToArray();
         var shewhart = (request.Shewhart ?? []).Select(l => new ArlSeries(
             new Dictionary<string, object> { ["L"] = l }, Each(d => AverageRunLength.Shewhart(l, d)))).ToList();
         var cusum = (request.Cusum ?? []).Select(c => new ArlSeries(

@@ -123,6 +123,7 @@ public class SpcEndpointsTests : IntegrationTest
 
     [Theory]
     [InlineData("{\"values\":[1,2],\"chart\":\"P-chart\"}", "chart")]
+    [InlineData("{\"values\":[1,1e300,2],\"ewma\":{\"lambda\":0.2,\"L\":3}}", "values")]
     [InlineData("{\"values\":[1,2],\"subgroups\":[[1,2]]}", "values")]
     [InlineData("{\"values\":[1,2,3],\"limits\":{\"source\":\"baseline\",\"count\":9}}", "limits.count")]
     [InlineData("{\"values\":[1,2,3],\"rules\":[\"WE9\"]}", "rules")]
@@ -136,6 +137,17 @@ public class SpcEndpointsTests : IntegrationTest
         Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
         var problem = await ReadJsonAsync(response);
         Assert.True(problem.GetProperty("errors").TryGetProperty(field, out _), problem.ToString());
+    }
+
+    [Fact]
+    public async Task Analyses_HugeMagnitudes_AreAnalysedWithoutOverflow()
+    {
+        // Edge case of issue 4: values around 1e9 with a spread of 1 give the same sigma as values around 0.
+        var shifted = FlowRate.Select(v => v + 1e9).ToArray();
+        var a = await AnalyseAsync(new { values = FlowRate, capability = new { lsl = 44.0, usl = 58.0 } });
+        var b = await AnalyseAsync(new { values = shifted, capability = new { lsl = 44.0 + 1e9, usl = 58.0 + 1e9 } });
+        Assert.Equal(a.GetProperty("chart").GetProperty("sigma").GetDouble(), b.GetProperty("chart").GetProperty("sigma").GetDouble(), 5);
+        Assert.Equal(a.GetProperty("capability").GetProperty("Cpk").GetDouble(), b.GetProperty("capability").GetProperty("Cpk").GetDouble(), 5);
     }
 
     [Fact]
@@ -169,6 +181,17 @@ public class SpcEndpointsTests : IntegrationTest
         Assert.Equal(500, ewma[0].GetDouble(), 1.0);
         Assert.Equal(10.3, ewma[1].GetDouble(), 0.05);
         Assert.Equal(91.75, r.GetProperty("shewhartWithRules").GetProperty("arl")[0].GetDouble(), 0.1);
+    }
+
+    [Fact]
+    public async Task Arl_RunLengthTooLongToResolve_IsNullNotInfinity()
+    {
+        // A CUSUM with k 3, h 20 in control runs far beyond 1e12 points; the answer must stay valid JSON.
+        var response = await Client.PostAsJsonAsync("/api/spc/arl", new { shifts = new[] { 0.0, 3.0 }, cusum = new[] { new { k = 3.0, h = 20.0 } } });
+        Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+        var arl = (await ReadJsonAsync(response)).GetProperty("cusum")[0].GetProperty("arl");
+        Assert.Equal(JsonValueKind.Null, arl[0].ValueKind);
+        Assert.True(arl[1].GetDouble() > 1);
     }
 
     [Fact]
