@@ -78,7 +78,7 @@ public static class SliceModel
 
     /// <summary>
     /// Constant-current effective threshold (E.2): the V solving Σ_k g_k·exp((V − V_T,k)/(n_k v_t)) = 1 with weights g_k
-    /// summing to 1, by Brent on ln of the left side over [min V_T,k, max V_T,k], in V.
+    /// summing to 1, by Brent on ln of the left side over [min V_T,k − 1 nV, max V_T,k + 1 nV], in V.
     /// </summary>
     /// <param name="thresholdsV">V_T,k in V; finite.</param>
     /// <param name="idealities">n_k (&gt; 0), same length.</param>
@@ -95,14 +95,16 @@ public static class SliceModel
             hi = Math.Max(hi, v);
         }
 
-        if (hi - lo < 1e-15)
+        if (hi == lo)
         {
             return lo;
         }
 
+        // The bracket is widened by 1 nV so that rounding in the log-sum cannot hide the sign change when the
+        // thresholds are nearly equal (uniform fins).
         double[] vt = thresholdsV.ToArray(), n = idealities.ToArray(), g = weights.ToArray();
         double F(double v) => LogCurrentSum(vt, n, g, v);
-        if (!BrentRootFinder.TrySolve(F, lo, hi, 1e-12, out double root))
+        if (!BrentRootFinder.TrySolve(F, lo - 1e-9, hi + 1e-9, 1e-12, out double root))
         {
             throw new InvalidOperationException("Effective threshold not bracketed.");
         }

@@ -80,7 +80,17 @@ public sealed class ThresholdModel
         }
 
         warnings |= RangeWarnings(fin);
-        SliceModelResult r = SliceModel.Evaluate(Parameters.ToSliceInput(fin));
+        SliceModelResult r;
+        try
+        {
+            r = SliceModel.Evaluate(Parameters.ToSliceInput(fin));
+        }
+        catch (ArgumentOutOfRangeException)
+        {
+            // Finite but non-physical input the model cannot take (for example an overflowing size): flagged, not thrown.
+            return Result(double.NaN, double.NaN, double.NaN, double.NaN, default, default, double.NaN, warnings | ModelWarnings.InvalidInput);
+        }
+
         if (r.MinLengthRatio < 3)
         {
             warnings |= ModelWarnings.LengthToScaleBelowThree;

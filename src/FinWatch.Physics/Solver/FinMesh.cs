@@ -33,7 +33,7 @@ internal sealed class FinMesh
     private readonly double _yMin;
     private readonly double _yMax;
 
-    public FinMesh(FinSolverRequest request, double boxThicknessNm)
+    public FinMesh(FinSolverRequest request, double boxThicknessNm, CancellationToken cancellationToken)
     {
         _profile = request.Profile;
         _hardMask = request.Faces == GatedFaces.DoubleGate;
@@ -85,7 +85,7 @@ internal sealed class FinMesh
         Mass = new double[n];
         EdgeRight = new double[n];
         EdgeUp = new double[n];
-        Build(h);
+        Build(h, cancellationToken);
     }
 
     public SolverGrid Grid { get; }
@@ -190,12 +190,13 @@ internal sealed class FinMesh
 
     private bool InDomainY(double y) => y >= _yMin && y <= _yMax;
 
-    private void Build(double h)
+    private void Build(double h, CancellationToken cancellationToken)
     {
         int nx = Grid.NodesX;
         int ny = Grid.NodesY;
         for (int j = 0; j < ny; j++)
         {
+            cancellationToken.ThrowIfCancellationRequested();
             double y = Grid.YNm(j);
             for (int i = 0; i < nx; i++)
             {

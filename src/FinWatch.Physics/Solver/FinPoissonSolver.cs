@@ -18,8 +18,8 @@ namespace FinWatch.Physics.Solver;
 /// the half-bandwidth is the grid row length NodesX (x is the short dimension).
 /// </para>
 /// <para>
-/// Every method checks its <see cref="CancellationToken"/> in each Newton / inverse-iteration step and every 512
-/// rows of each factorisation, and throws <see cref="OperationCanceledException"/> when it is cancelled.
+/// Every method checks its <see cref="CancellationToken"/> for every grid row while meshing, in each Newton /
+/// inverse-iteration step and every 512 rows of each factorisation, and throws <see cref="OperationCanceledException"/> when it is cancelled.
 /// Methods are thread-safe (no shared state); one call uses one core.
 /// </para>
 /// <para>Limitations: see <see cref="SolverLimitations"/> (F.10).</para>
@@ -82,7 +82,7 @@ public static class FinPoissonSolver
         ArgumentNullException.ThrowIfNull(request);
         request.Validate();
         progress?.Report(new SolverProgress(SolverStage.Meshing, -1, 0, request.GateStartV, 0, 0));
-        var mesh = new FinMesh(request, request.BoxThicknessNm);
+        var mesh = new FinMesh(request, request.BoxThicknessNm, cancellationToken);
         cancellationToken.ThrowIfCancellationRequested();
         var newton = new PoissonNewton(mesh, request.AcceptorDensityCm3, request.WorkFunctionOffsetV);
 
@@ -194,7 +194,7 @@ public static class FinPoissonSolver
             }
         }
 
-        var mesh = new FinMesh(request, request.BoxThicknessNm);
+        var mesh = new FinMesh(request, request.BoxThicknessNm, cancellationToken);
         var newton = new PoissonNewton(mesh, request.AcceptorDensityCm3, request.WorkFunctionOffsetV);
         var psi = new double[mesh.Grid.NodeCount];
         Array.Fill(psi, gateVoltagesV[0] - request.WorkFunctionOffsetV);
@@ -246,7 +246,7 @@ public static class FinPoissonSolver
     {
         ArgumentNullException.ThrowIfNull(request);
         request.Validate();
-        var mesh = new FinMesh(request, boxThicknessNm: 0);
+        var mesh = new FinMesh(request, boxThicknessNm: 0, cancellationToken);
         cancellationToken.ThrowIfCancellationRequested();
         BandedCholesky a = PoissonNewton.AssembleLaplacian(mesh);
         a.Factorize(cancellationToken);

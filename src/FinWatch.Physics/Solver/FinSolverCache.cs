@@ -6,7 +6,10 @@ namespace FinWatch.Physics.Solver;
 /// In-memory cache of 2-D solver results keyed by <see cref="FinSolverRequest.ShapeKey"/>: concurrent callers with
 /// the same shape share one computation. A failed or cancelled computation is removed so that it can be retried.
 /// </summary>
-/// <remarks>Unbounded; intended for one process. Thread-safe.</remarks>
+/// <remarks>
+/// Unbounded; intended for one process. Thread-safe. The computation runs with the token of the caller that started
+/// it; if that caller cancels, every caller waiting on the same key sees the cancellation and the entry is removed.
+/// </remarks>
 public sealed class FinSolverCache
 {
     private readonly ConcurrentDictionary<string, Lazy<Task<FinSolverResult>>> _entries = new(StringComparer.Ordinal);

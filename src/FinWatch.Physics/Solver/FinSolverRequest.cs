@@ -127,7 +127,8 @@ public sealed record FinSolverRequest
     /// <summary>
     /// Checks every input; throws <see cref="ArgumentOutOfRangeException"/> (or <see cref="ArgumentException"/> for an
     /// empty stack) on a caller mistake: invalid profile, non-finite or non-positive thickness/permittivity/spacing,
-    /// negative doping, an empty or reversed sweep, or a grid of more than 4 million nodes.
+    /// negative doping, an empty or reversed sweep, a gate step above 0.1 V, or a grid of more than 4 million nodes
+    /// or more than 1e8 stored band entries.
     /// </summary>
     /// <exception cref="ArgumentOutOfRangeException">An input is out of range.</exception>
     /// <exception cref="ArgumentException">The dielectric stack is empty.</exception>
@@ -162,8 +163,12 @@ public sealed record FinSolverRequest
         double halfWidth = (0.5 * Math.Max(Profile.TopWidthNm, Profile.BottomWidthNm)) + PhysicalDielectricThicknessNm + 1;
         double height = BoxThicknessNm + Profile.HeightNm + PhysicalDielectricThicknessNm + 1
             + (Faces == GatedFaces.DoubleGate ? HardMaskThicknessNm : 0);
-        double nodes = ((2 * Math.Ceiling(halfWidth / GridSpacingNm)) + 1) * (Math.Ceiling(height / GridSpacingNm) + 1);
+        double nodesX = (2 * Math.Ceiling(halfWidth / GridSpacingNm)) + 1;
+        double nodes = nodesX * (Math.Ceiling(height / GridSpacingNm) + 1);
         ArgumentOutOfRangeException.ThrowIfGreaterThan(nodes, 4.0e6, nameof(GridSpacingNm));
+
+        // Band storage is nodes·(NodesX + 1) doubles per matrix; 1e8 (800 MB) is the cap.
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(nodes * (nodesX + 1), 1.0e8, nameof(GridSpacingNm));
     }
 
     private static void Append(StringBuilder sb, double value, string format)

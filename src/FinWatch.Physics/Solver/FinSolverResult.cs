@@ -7,9 +7,9 @@ namespace FinWatch.Physics.Solver;
 /// <remarks>
 /// Data conditions are reported as NaN, never as an exception: <see cref="ThresholdVoltageV"/> is NaN when the sweep
 /// does not cross N′ = n_s,crit·P_ref from below (it starts above it or never reaches it); then
-/// <see cref="AtThreshold"/> is <see langword="null"/> and the corner quantities are empty/NaN. The swing is NaN
-/// when the sweep does not bracket N_crit/1000 and N_crit/100; the second-derivative threshold is NaN when the peak
-/// lies at an end of the sweep.
+/// <see cref="AtThreshold"/> is <see langword="null"/> and the corner quantities are empty/NaN. A swing is NaN
+/// when the sweep does not bracket both of its levels (N_crit/1000 and N_crit/100, or N_crit/10 and N_crit);
+/// the second-derivative threshold is NaN when the peak lies at an end of the sweep.
 /// </remarks>
 public sealed class FinSolverResult
 {

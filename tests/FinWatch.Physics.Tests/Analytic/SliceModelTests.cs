@@ -48,6 +48,16 @@ public sealed class SliceModelTests
         Assert.Equal(1.1 * Vt * Math.Log(10), SliceModel.EffectiveSwingVPerDecade(vt, n, g, v), 1e-14);
     }
 
+    [Fact]
+    public void EffectiveThreshold_NearlyEqualThresholds_ReturnsCommonValue()
+    {
+        // E.2: equal slices ⇒ V_T,eff = V_T; rounding-level differences must not break the bracket.
+        double[] vt = [0.3, 0.3 + 1e-14, 0.3 - 1e-14];
+        double[] n = [1.2, 1.2, 1.2];
+        double[] g = [0.25, 0.5, 0.25];
+        Assert.Equal(0.3, SliceModel.EffectiveThresholdV(vt, n, g), 1e-11);
+    }
+
     [Theory]
     [InlineData(7, 9)]
     [InlineData(5, 10)]

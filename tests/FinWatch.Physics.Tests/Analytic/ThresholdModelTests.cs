@@ -91,6 +91,7 @@ public sealed class ThresholdModelTests
         Assert.True(Model.Predict(Fin(9, 9, r: 4.5)).Warnings.HasFlag(ModelWarnings.RadiusOutOfRange));
         Assert.True(Model.Predict(Fin(6, 10, r: 3.5)).Warnings.HasFlag(ModelWarnings.RadiusExceedsMax));
         Assert.True(Model.Predict(Fin(6, 10, eot: 1.3)).Warnings.HasFlag(ModelWarnings.EotOutOfRange));
+        Assert.True(Model.Predict(Fin(6, 10) with { PhysicalThicknessNm = 0.5 }).Warnings.HasFlag(ModelWarnings.DielectricInconsistent));
     }
 
     [Fact]
@@ -101,6 +102,16 @@ public sealed class ThresholdModelTests
         Assert.True(p.Warnings.HasFlag(ModelWarnings.InvalidInput));
         Assert.True(double.IsNaN(p.DeltaThresholdLinMv));
         Assert.True(Model.Predict(Fin(6, 10, eot: double.NaN)).Warnings.HasFlag(ModelWarnings.InvalidInput));
+    }
+
+    [Fact]
+    public void Predict_VeryWideRecord_FlagsPunchThroughWithNaN()
+    {
+        // B.5 / H.4.7: a 300 nm wide "fin" has L/λ ≪ 3 and no barrier at V_DS,sat: warnings, NaN, no exception.
+        ThresholdPrediction p = Model.Predict(Fin(300, 300, r: 0));
+        Assert.True(p.Warnings.HasFlag(ModelWarnings.LengthToScaleBelowThree));
+        Assert.True(p.Warnings.HasFlag(ModelWarnings.PunchThrough));
+        Assert.True(double.IsNaN(p.DeltaThresholdSatMv));
     }
 
     [Fact]

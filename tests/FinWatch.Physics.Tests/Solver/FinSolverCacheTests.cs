@@ -18,6 +18,7 @@ public sealed class FinSolverCacheTests
     [Fact]
     public async Task GetOrSolveAsync_SameShapeTwice_SolvesOnceAndReturnsSameResult()
     {
+        // Source: task brief — results cached by shape hash; failures must not be cached.
         int calls = 0;
         var cache = new FinSolverCache((request, ct) =>
         {
@@ -37,6 +38,7 @@ public sealed class FinSolverCacheTests
     [Fact]
     public async Task GetOrSolveAsync_FailedComputation_IsNotCached()
     {
+        // Source: task brief — results cached by shape hash; failures must not be cached.
         int calls = 0;
         var cache = new FinSolverCache((_, _) =>
         {

@@ -15,6 +15,7 @@ public sealed class FinSolverRequestTests
     [Fact]
     public void ShapeKey_EqualInputsInSeparateInstances_AreEqual()
     {
+        // Source: task brief — deterministic shape key of rounded inputs; STYLE 3.3.3 — caller mistakes throw.
         Assert.Equal(Nominal().ShapeKey, Nominal().ShapeKey);
         Assert.Equal(64, Nominal().ShapeKey.Length);
     }
@@ -22,6 +23,7 @@ public sealed class FinSolverRequestTests
     [Fact]
     public void ShapeKey_DifferenceBelowRounding_IsIgnored()
     {
+        // Source: task brief — deterministic shape key of rounded inputs; STYLE 3.3.3 — caller mistakes throw.
         FinSolverRequest a = Nominal();
         FinSolverRequest b = a with { Profile = a.Profile with { TopWidthNm = 8 + 1e-7 } };
         Assert.Equal(a.ShapeKey, b.ShapeKey);
@@ -35,6 +37,7 @@ public sealed class FinSolverRequestTests
     [InlineData("grid")]
     public void ShapeKey_RelevantChange_ChangesKey(string what)
     {
+        // Source: task brief — deterministic shape key of rounded inputs; STYLE 3.3.3 — caller mistakes throw.
         FinSolverRequest a = Nominal();
         FinSolverRequest b = what switch
         {
@@ -50,6 +53,7 @@ public sealed class FinSolverRequestTests
     [Fact]
     public void Validate_EmptyStack_Throws()
     {
+        // Source: task brief — deterministic shape key of rounded inputs; STYLE 3.3.3 — caller mistakes throw.
         Assert.Throws<ArgumentException>(() => (Nominal() with { DielectricLayers = [] }).Validate());
     }
 
@@ -60,6 +64,7 @@ public sealed class FinSolverRequestTests
     [InlineData(0.001, 1e18, -0.2, 1.5)]
     public void Validate_OutOfRangeInput_Throws(double h, double doping, double start, double stop)
     {
+        // Source: task brief — deterministic shape key of rounded inputs; STYLE 3.3.3 — caller mistakes throw.
         FinSolverRequest r = Nominal() with { GridSpacingNm = h, AcceptorDensityCm3 = doping, GateStartV = start, GateStopV = stop };
         Assert.Throws<ArgumentOutOfRangeException>(r.Validate);
     }
