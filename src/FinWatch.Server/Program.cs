@@ -2,6 +2,7 @@ using FinWatch.Server.Features.About;
 using FinWatch.Server.Features.Demo;
 using FinWatch.Server.Features.Lots;
 using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Features.Model;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Features.Products;
 using FinWatch.Server.Features.Series;
@@ -13,6 +14,7 @@ builder.AddFinWatchApiDefaults();
 builder.AddFinWatchData();
 builder.AddDemo(args);
 builder.Services.AddMeasurements();
+builder.Services.AddModel();
 
 var app = builder.Build();
 await app.MigrateFinWatchDatabaseAsync();
@@ -27,6 +29,7 @@ app.MapStoredSeriesAnalysis();
 app.MapForecast();
 app.MapThreeWay();
 app.MapSpc();
+app.MapModel();
 await app.RunAsync();
 
 /// <summary>Entry point; public so the integration tests' WebApplicationFactory can boot the real app.</summary>
