@@ -165,7 +165,11 @@ public static class SliceModel
     /// <param name="input">The fin and calibration inputs.</param>
     /// <returns>Absolute thresholds, swings and DIBL; flagged with NaN values when the barrier is gone.</returns>
     /// <exception cref="ArgumentOutOfRangeException">An input is out of its stated range.</exception>
-    public static SliceModelResult Evaluate(SliceModelInput input)
+    public static SliceModelResult Evaluate(SliceModelInput input) => Evaluate(input, null);
+
+    /// <summary>As <see cref="Evaluate(SliceModelInput)"/>, and fills <paramref name="details"/> with every slice's width,
+    /// threshold and current share in the linear regime (and the corner device last), when it is given.</summary>
+    public static SliceModelResult Evaluate(SliceModelInput input, ICollection<SliceDetail>? details)
     {
         ArgumentNullException.ThrowIfNull(input);
         ValidateInput(input);
@@ -234,6 +238,19 @@ public static class SliceModel
 
         double vEffLo = EffectiveThresholdV(vtLo, nLo, g);
         double vEffHi = EffectiveThresholdV(vtHi, nHi, g);
+        if (details is not null)
+        {
+            // E.2: slice i carries g_i·exp((V_T,eff − V_T,i)/(n_i v_t)) of the current; these shares sum to 1.
+            for (int i = 0; i < count; i++)
+            {
+                bool corner = i == ns;
+                double z = corner ? p.HeightNm : (i + 0.5) * dz;
+                double w = corner ? 0 : FinCrossSection.LocalWidthNm(p, z);
+                double share = g[i] * Math.Exp((vEffLo - vtLo[i]) / (nLo[i] * PhysicalConstants.ThermalVoltageV));
+                details.Add(new SliceDetail(z, w, vtLo[i], share, corner));
+            }
+        }
+
         double sLo = EffectiveSwingVPerDecade(vtLo, nLo, g, vEffLo);
         double sHi = EffectiveSwingVPerDecade(vtHi, nHi, g, vEffHi);
         double dibl = -(vEffHi - vEffLo) / (input.DrainVoltageHighV - input.DrainVoltageLowV);

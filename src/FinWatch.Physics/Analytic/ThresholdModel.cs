@@ -127,7 +127,8 @@ public sealed class ThresholdModel
         return gap > NonlinearAbsoluteMv || gap > NonlinearRelative * Math.Abs(fullMv);
     }
 
-    private static ModelWarnings RangeWarnings(in FinMeasurement fin)
+    /// <summary>The H.1 range and A.4/A.6 consistency warnings of one fin, without evaluating the model.</summary>
+    public static ModelWarnings RangeWarnings(in FinMeasurement fin)
     {
         ModelWarnings w = ModelWarnings.None;
         FinGeometry g = FinCrossSection.Derive(fin.Profile, fin.Faces);

@@ -10,12 +10,19 @@ public static class ModelEndpoints
     public static IEndpointRouteBuilder MapModel(this IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/model").WithTags("Model");
+        group.MapPost("/evaluate", Evaluate)
+            .WithSummary("The analytic model's whole working for one device (fin-model.md A–E): scale length, confinement, roll-off, slices");
         group.MapPost("/cross-section", Start)
             .WithSummary("Start a 2-D Poisson–Boltzmann solve of a fin cross-section; returns a job to poll");
         group.MapGet("/cross-section/{id}", Get).WithSummary("Progress and, when done, the result of a cross-section solve");
         group.MapDelete("/cross-section/{id}", Cancel).WithSummary("Cancel a cross-section solve");
         return app;
     }
+
+    private static Results<Ok<EvaluateResponse>, ValidationProblem> Evaluate(EvaluateRequest request) =>
+        EvaluateModel.Check(request) is { Count: > 0 } errors
+            ? TypedResults.ValidationProblem(errors)
+            : TypedResults.Ok(EvaluateModel.Run(request));
 
     private static Results<Accepted<CrossSectionJobResponse>, ValidationProblem> Start(CrossSectionRequest request, CrossSectionJobs jobs)
     {

@@ -1,0 +1,146 @@
+using FinWatch.Physics;
+using FinWatch.Physics.Analytic;
+
+namespace FinWatch.Server.Features.Model;
+
+/// <summary>
+/// The evaluate use case: the analytic model's working for one device, each value as fin-model.md sections A to E define
+/// it, with the note's physics defaults for what the request does not give (G.3; calibration comes later).
+/// </summary>
+public static class EvaluateModel
+{
+    public const string Caution =
+        "Engineering estimate from the analytic model of fin-model.md (mid-gap gate, uncalibrated physics defaults); compare shifts against the nominal fin, not absolute values, and do not use it in place of electrical test or the fab's own procedures.";
+
+    public static Dictionary<string, string[]> Check(EvaluateRequest r)
+    {
+        var e = new Dictionary<string, string[]>();
+        void Range(string name, double? v, double low, double high, bool required = true)
+        {
+            if (v is null ? required : !(v > low && v <= high))
+            {
+                e[name] = [$"{name} is {(required ? "required, " : "")}{low} < value ≤ {high}"];
+            }
+        }
+
+        Range("topWidthNm", r.TopWidthNm, 0, 100);
+        Range("bottomWidthNm", r.BottomWidthNm, 0, 100);
+        Range("heightNm", r.HeightNm, 0, 300);
+        if (r.CornerRadiusNm is { } radius && !(radius >= 0 && radius <= 50))
+        {
+            e["cornerRadiusNm"] = ["cornerRadiusNm is 0 to 50 nm"];
+        }
+
+        Range("eotNm", r.EotNm, 0, 10);
+        Range("gateLengthNm", r.GateLengthNm, 0, 1000);
+        if (r.DopingCm3 is { } n && !(n >= 0 && n <= 1e20))
+        {
+            e["dopingCm3"] = ["dopingCm3 is 0 to 1e20 cm⁻³"];
+        }
+
+        if (r.Gates is not (null or "tri" or "double"))
+        {
+            e["gates"] = ["gates is 'tri' or 'double'"];
+        }
+
+        if (r.Orientation is not (null or "110" or "100"))
+        {
+            e["orientation"] = ["orientation is '110' or '100' (the sidewall surface)"];
+        }
+
+        Range("vdsLinV", r.VdsLinV, 0, 5, required: false);
+        Range("vdsSatV", r.VdsSatV, 0, 5, required: false);
+        if ((r.VdsLinV ?? 0.05) >= (r.VdsSatV ?? 0.75))
+        {
+            e["vdsSatV"] = ["vdsSatV must be above vdsLinV"];
+        }
+
+        return e;
+    }
+
+    public static EvaluateResponse Run(EvaluateRequest r)
+    {
+        var faces = r.Gates == "double" ? GatedFaces.DoubleGate : GatedFaces.TriGate;
+        var profile = new FinProfile(r.TopWidthNm!.Value, r.BottomWidthNm!.Value, r.HeightNm!.Value, r.CornerRadiusNm ?? 0);
+        var eot = r.EotNm!.Value;
+        var fin = new FinMeasurement(profile, eot, eot, faces);
+        var parameters = new CalibrationParameters
+        {
+            Name = "physics defaults (fin-model.md G.3)",
+            Version = "uncalibrated",
+            Nominal = fin,
+            GateLengthNm = r.GateLengthNm!.Value,
+            DopingPerCm3 = r.DopingCm3 ?? 0,
+            DrainVoltageLinV = r.VdsLinV ?? 0.05,
+            DrainVoltageSatV = r.VdsSatV ?? 0.75,
+            Surface = r.Orientation == "100" ? ConfinementSurface.Si100 : ConfinementSurface.Si110,
+        };
+
+        var g = FinCrossSection.Derive(profile, faces);
+        var lambda = ScaleLength.RectangularFinNm(g.MidWidthNm, profile.HeightNm, eot, faces);
+        var ratio = parameters.GateLengthNm / lambda;
+        var barrier = parameters.BarrierHeightV;
+        var lin = ShortChannel.Threshold(barrier, parameters.DrainVoltageLinV, ratio);
+        var sat = ShortChannel.Threshold(barrier, parameters.DrainVoltageSatV, ratio);
+        var details = new List<SliceDetail>();
+        var result = SliceModel.Evaluate(parameters.ToSliceInput(fin), details);
+
+        var warnings = Describe(ThresholdModel.RangeWarnings(fin)).ToList();
+        if (ratio < 3 || result.MinLengthRatio < 3)
+        {
+            warnings.Add("L/λ is below 3 somewhere in the fin: the first-mode short-channel model is not meaningful (fin-model.md B.5).");
+        }
+
+        if (result.PunchThrough)
+        {
+            warnings.Add("The source barrier is gone (punch-through): no threshold can be given.");
+        }
+
+        double? Mv(double v, bool valid) => valid && double.IsFinite(v) ? v * 1000 : null;
+        double? V(double v) => double.IsFinite(v) ? v : null;
+        return new EvaluateResponse(
+            new GeometryResponse(g.TaperDeg, g.MidWidthNm, g.AreaNm2, g.GatedPerimeterNm, g.MaxCornerRadiusNm),
+            lambda,
+            QuantumConfinement.DensityOfStatesShiftV(g.MidWidthNm, parameters.Surface, parameters.QcMultiplier) * 1000,
+            Mv(lin.ShiftV, !lin.PunchThrough),
+            Mv(sat.ShiftV, !sat.PunchThrough),
+            V(result.ThresholdLowV),
+            V(result.ThresholdHighV),
+            Mv(result.SwingLowVPerDecade, true),
+            Mv(result.DiblVPerV, true),
+            details.Select(d => new SliceResponse(d.HeightNm, d.IsCorner ? null : d.WidthNm, d.ThresholdLinV, d.CurrentShareLin, d.IsCorner)).ToList(),
+            new Dictionary<string, double>
+            {
+                ["gateLengthNm"] = parameters.GateLengthNm,
+                ["dopingCm3"] = parameters.DopingPerCm3,
+                ["vdsLinV"] = parameters.DrainVoltageLinV,
+                ["vdsSatV"] = parameters.DrainVoltageSatV,
+                ["barrierHeightV"] = barrier,
+                ["criticalSheetDensityCm2"] = parameters.CriticalSheetDensityPerCm2,
+                ["slices"] = parameters.SliceCount,
+            },
+            warnings,
+            Caution);
+    }
+
+    private static IEnumerable<string> Describe(ModelWarnings w)
+    {
+        foreach (var flag in Enum.GetValues<ModelWarnings>())
+        {
+            if (flag != ModelWarnings.None && (w & flag) != 0)
+            {
+                yield return flag switch
+                {
+                    ModelWarnings.WidthOutOfRange => "The mid-height width is outside 5–10 nm, the range the model is meant for (fin-model.md H.1).",
+                    ModelWarnings.HeightOutOfRange => "The fin height is outside 30–55 nm (H.1).",
+                    ModelWarnings.TaperOutOfRange => "The taper is outside 0–6° (H.1); a re-entrant fin counts here.",
+                    ModelWarnings.RadiusOutOfRange => "The corner radius is outside 0–4 nm (H.1).",
+                    ModelWarnings.RadiusExceedsMax => "The corner radius is larger than the top allows; the largest possible radius was used (A.4).",
+                    ModelWarnings.EotOutOfRange => "The EOT is outside 0.8–1.2 nm (H.1).",
+                    ModelWarnings.DielectricInconsistent => "The physical dielectric thickness is below the EOT (A.6).",
+                    _ => flag.ToString(),
+                };
+            }
+        }
+    }
+}
