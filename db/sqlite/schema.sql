@@ -112,3 +112,17 @@ VALUES ('20261202033223_Initial', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+ALTER TABLE "products" ADD "model_channel_doping_cm3" REAL NOT NULL DEFAULT 1E+17;
+
+ALTER TABLE "products" ADD "model_eot_nm" REAL NOT NULL DEFAULT 0.90000000000000002;
+
+ALTER TABLE "products" ADD "model_gate_length_nm" REAL NOT NULL DEFAULT 20.0;
+
+ALTER TABLE "products" ADD "model_sidewall_orientation" TEXT NOT NULL DEFAULT '110';
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202051633_ProductModelInputs', '10.0.15');
+
+COMMIT;
+

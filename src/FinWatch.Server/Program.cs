@@ -30,6 +30,7 @@ app.MapForecast();
 app.MapThreeWay();
 app.MapSpc();
 app.MapModel();
+app.MapPredict();
 await app.RunAsync();
 
 /// <summary>Entry point; public so the integration tests' WebApplicationFactory can boot the real app.</summary>

@@ -14,6 +14,11 @@ internal sealed class ProductConfiguration : IEntityTypeConfiguration<Product>
         builder.Property(p => p.Name).HasMaxLength(200);
         builder.Property(p => p.Description).HasMaxLength(2000);
         builder.Property(p => p.GateFaces).HasConversion<string>().HasMaxLength(16);
+        builder.Property(p => p.ModelSidewallOrientation).HasMaxLength(8);
+        builder.Property(p => p.ModelEotNm).HasDefaultValue(0.9);
+        builder.Property(p => p.ModelGateLengthNm).HasDefaultValue(20.0);
+        builder.Property(p => p.ModelChannelDopingCm3).HasDefaultValue(1e17);
+        builder.Property(p => p.ModelSidewallOrientation).HasDefaultValue("110");
         builder.HasMany(p => p.Specs).WithOne().HasForeignKey(s => s.ProductId).OnDelete(DeleteBehavior.Cascade);
     }
 }

@@ -21,6 +21,16 @@ public sealed class Product
     public double NominalCornerRadiusNm { get; set; }
     public double NominalLinerThicknessNm { get; set; }
 
+    /// <summary>Electrical-model inputs the profile does not measure (fin-model.md G.3 defaults until calibrated).</summary>
+    public double ModelEotNm { get; set; } = 0.9;
+
+    public double ModelGateLengthNm { get; set; } = 20;
+
+    public double ModelChannelDopingCm3 { get; set; } = 1e17;
+
+    /// <summary>Sidewall surface: "110" (a ⟨110⟩ fin on a (100) wafer) or "100".</summary>
+    public string ModelSidewallOrientation { get; set; } = "110";
+
     public long CreatedAtMs { get; set; }
     public long UpdatedAtMs { get; set; }
 

@@ -288,6 +288,32 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("TEXT")
                         .HasColumnName("gate_faces");
 
+                    b.Property<double>("ModelChannelDopingCm3")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("REAL")
+                        .HasDefaultValue(1E+17)
+                        .HasColumnName("model_channel_doping_cm3");
+
+                    b.Property<double>("ModelEotNm")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("REAL")
+                        .HasDefaultValue(0.90000000000000002)
+                        .HasColumnName("model_eot_nm");
+
+                    b.Property<double>("ModelGateLengthNm")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("REAL")
+                        .HasDefaultValue(20.0)
+                        .HasColumnName("model_gate_length_nm");
+
+                    b.Property<string>("ModelSidewallOrientation")
+                        .IsRequired()
+                        .ValueGeneratedOnAdd()
+                        .HasMaxLength(8)
+                        .HasColumnType("TEXT")
+                        .HasDefaultValue("110")
+                        .HasColumnName("model_sidewall_orientation");
+
                     b.Property<string>("Name")
                         .IsRequired()
                         .HasMaxLength(200)

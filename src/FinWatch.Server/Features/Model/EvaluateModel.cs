@@ -123,7 +123,8 @@ public static class EvaluateModel
             Caution);
     }
 
-    private static IEnumerable<string> Describe(ModelWarnings w)
+    /// <summary>Each warning flag as a sentence an engineer can act on.</summary>
+    internal static IEnumerable<string> Describe(ModelWarnings w)
     {
         foreach (var flag in Enum.GetValues<ModelWarnings>())
         {
@@ -138,6 +139,12 @@ public static class EvaluateModel
                     ModelWarnings.RadiusExceedsMax => "The corner radius is larger than the top allows; the largest possible radius was used (A.4).",
                     ModelWarnings.EotOutOfRange => "The EOT is outside 0.8–1.2 nm (H.1).",
                     ModelWarnings.DielectricInconsistent => "The physical dielectric thickness is below the EOT (A.6).",
+                    ModelWarnings.GateLengthOutOfRange => "The gate length is outside 14–26 nm (H.1).",
+                    ModelWarnings.DopingOutOfRange => "The channel doping is above 1e18 cm⁻³ (H.1).",
+                    ModelWarnings.LengthToScaleBelowThree => "L/λ is below 3 somewhere in the fin: the short-channel model is not meaningful there (B.5).",
+                    ModelWarnings.PunchThrough => "The source barrier is gone (punch-through): no shift can be given.",
+                    ModelWarnings.Nonlinear => "The full model and the linear estimate differ by more than 20 % or 5 mV (G.2 step 7): read the contributions with care.",
+                    ModelWarnings.InvalidInput => "The profile is not a valid fin; no shift can be given.",
                     _ => flag.ToString(),
                 };
             }

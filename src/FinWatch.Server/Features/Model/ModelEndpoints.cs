@@ -5,7 +5,8 @@ namespace FinWatch.Server.Features.Model;
 
 public static class ModelEndpoints
 {
-    public static IServiceCollection AddModel(this IServiceCollection services) => services.AddSingleton<CrossSectionJobs>();
+    public static IServiceCollection AddModel(this IServiceCollection services) =>
+        services.AddSingleton<CrossSectionJobs>().AddSingleton<ProductModels>();
 
     public static IEndpointRouteBuilder MapModel(this IEndpointRouteBuilder app)
     {

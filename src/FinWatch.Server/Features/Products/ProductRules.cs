@@ -36,6 +36,11 @@ public static class ProductRules
             }
         }
 
+        if (request.Model is { SidewallOrientation: not ("110" or "100") } m)
+        {
+            errors["model.sidewall_orientation"] = [$"'{m.SidewallOrientation}' is not '110' or '100'"];
+        }
+
         var seen = new HashSet<string>(StringComparer.Ordinal);
         var specs = request.Specs ?? [];
         for (var i = 0; i < specs.Count; i++)

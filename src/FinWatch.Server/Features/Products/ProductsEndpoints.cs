@@ -105,6 +105,11 @@ public static class ProductsEndpoints
         product.NominalFinHeightNm = request.Nominal.FinHeightNm;
         product.NominalCornerRadiusNm = request.Nominal.CornerRadiusNm;
         product.NominalLinerThicknessNm = request.Nominal.LinerThicknessNm;
+        var model = request.Model ?? new ModelInputs();
+        product.ModelEotNm = model.EotNm;
+        product.ModelGateLengthNm = model.GateLengthNm;
+        product.ModelChannelDopingCm3 = model.ChannelDopingCm3;
+        product.ModelSidewallOrientation = model.SidewallOrientation;
         product.UpdatedAtMs = nowMs;
         product.Specs.Clear();
         foreach (var s in request.Specs ?? [])
@@ -118,5 +123,6 @@ public static class ProductsEndpoints
         new NominalProfile(p.NominalTopWidthNm, p.NominalBottomWidthNm, p.NominalFinHeightNm, p.NominalCornerRadiusNm, p.NominalLinerThicknessNm),
         p.Specs.OrderBy(s => FinParameters.All.ToList().FindIndex(f => f.Name == s.Parameter))
             .Select(s => new SpecLimitDto(s.Parameter, s.Lower, s.Target, s.Upper)).ToList(),
+        new ModelInputs(p.ModelEotNm, p.ModelGateLengthNm, p.ModelChannelDopingCm3, p.ModelSidewallOrientation),
         Time.FromMs(p.CreatedAtMs), Time.FromMs(p.UpdatedAtMs));
 }

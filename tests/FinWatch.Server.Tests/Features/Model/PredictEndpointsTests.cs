@@ -1,0 +1,78 @@
+using System.Net;
+using System.Net.Http.Json;
+using FinWatch.Testing;
+
+namespace FinWatch.Server.Tests.Features.Model;
+
+/// <summary>
+/// The test product's nominal (6/10/42 nm, r 2 nm) with the default model inputs (EOT 0.9 nm, L 20 nm, N_A 1e17 cm⁻³) is
+/// exactly the nominal of the design note's sensitivity example (fin-model.md G.4), so the note's table applies.
+/// </summary>
+public class PredictEndpointsTests : IntegrationTest
+{
+    [Fact]
+    public async Task Predict_NominalProfile_ShiftsByExactlyZero()
+    {
+        // G.2 step 6: shifts are differences from the nominal computed with the same code, so the nominal gives 0.
+        var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
+            new { product = TestProducts.TriGate, topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, cornerRadiusNm = 2.0 }));
+        Assert.Equal(0, r.GetProperty("deltaVtLinMv").GetDouble());
+        Assert.Equal(0, r.GetProperty("deltaVtSatMv").GetDouble());
+        Assert.Equal(0, r.GetProperty("contributionsSatMv").GetProperty("linearTotal").GetDouble());
+        Assert.Contains("electrical test", r.GetProperty("note").GetString(), StringComparison.Ordinal);
+        Assert.StartsWith("FinWatch.Physics.Analytic/", r.GetProperty("codeVersion").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Predict_NarrowerFin_RaisesTheThresholdAsTheSensitivitySays()
+    {
+        // 0.2 nm narrower at both top and bottom (mid width −0.2 nm, same taper): G.4 gives dVT,lin/dw_mid ≈ −14.8 mV/nm and
+        // dVT,sat/dw_mid ≈ −26.5 mV/nm ([D] prototype values of the note), so about +3.0 and +5.3 mV.
+        var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
+            new { product = TestProducts.TriGate, topWidthNm = 5.8, bottomWidthNm = 9.8, heightNm = 42.0, cornerRadiusNm = 2.0 }));
+        Assert.Equal(2.96, r.GetProperty("deltaVtLinMv").GetDouble(), 0.3);
+        Assert.Equal(5.3, r.GetProperty("deltaVtSatMv").GetDouble(), 0.5);
+        var c = r.GetProperty("contributionsLinMv");
+        Assert.True(c.GetProperty("midWidth").GetDouble() > 2);
+        Assert.Equal(c.GetProperty("linearTotal").GetDouble(), c.GetProperty("midWidth").GetDouble() + c.GetProperty("taper").GetDouble()
+            + c.GetProperty("height").GetDouble() + c.GetProperty("cornerRadius").GetDouble() + c.GetProperty("dielectric").GetDouble(), 9);
+    }
+
+    [Fact]
+    public async Task Predict_RadiusLargerThanTheTopAllows_Warns()
+    {
+        var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
+            new { product = TestProducts.TriGate, topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, cornerRadiusNm = 4.5 }));
+        Assert.Contains(r.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("larger than the top allows", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public async Task Predict_UnknownProduct_Returns400()
+    {
+        var response = await Client.PostAsJsonAsync("/api/model/predict", new { product = "NOPE", topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0 });
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+    }
+
+    [Fact]
+    public async Task Sensitivities_NoteNominal_ReproduceTheG4Table()
+    {
+        // fin-model.md G.4 example table ([D] this model's prototype, uncalibrated): w_mid −14.8 / −26.5 mV per nm,
+        // EOT −37 / −93 mV per nm, L_eff +5.7 / +14.0 mV per nm.
+        var r = await ReadJsonAsync(await Client.GetAsync($"/api/model/sensitivities?product={TestProducts.TriGate}"));
+        var rows = r.GetProperty("rows").EnumerateArray().ToDictionary(x => x.GetProperty("input").GetString()!);
+        Assert.Equal(-14.8, rows["mid_width"].GetProperty("dVtLinMv").GetDouble(), 0.1);
+        Assert.Equal(-26.5, rows["mid_width"].GetProperty("dVtSatMv").GetDouble(), 0.1);
+        Assert.Equal(-37, rows["eot"].GetProperty("dVtLinMv").GetDouble(), 1.0);
+        Assert.Equal(5.7, rows["gate_length"].GetProperty("dVtLinMv").GetDouble(), 0.1);
+    }
+
+    [Fact]
+    public async Task Product_ModelInputs_RoundTrip()
+    {
+        var p = await ReadJsonAsync(await Client.GetAsync($"/api/products/{TestProducts.TriGate}"));
+        var model = p.GetProperty("model");
+        Assert.Equal(0.9, model.GetProperty("eot_nm").GetDouble());
+        Assert.Equal(20, model.GetProperty("gate_length_nm").GetDouble());
+        Assert.Equal("110", model.GetProperty("sidewall_orientation").GetString());
+    }
+}
