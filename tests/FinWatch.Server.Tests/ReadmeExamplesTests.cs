@@ -49,4 +49,17 @@ public partial class ReadmeExamplesTests : IntegrationTest
         Assert.Equal("baseline", body.GetProperty("chart").GetProperty("limitsSource").GetString());
         Assert.Equal(10, body.GetProperty("ewma").GetProperty("z").GetArrayLength());
     }
+
+    [Fact]
+    public async Task ReadmeExample_Prediction_IsAccepted()
+    {
+        var product = Blocks().Single(b => b.Lang == "json" && b.Body.Contains("\"gate_faces\"", StringComparison.Ordinal)).Body;
+        (await Client.PostAsync("/api/products", new StringContent(product, Encoding.UTF8, "application/json"))).EnsureSuccessStatusCode();
+        var predict = Blocks().Single(b => b.Lang == "json" && b.Body.Contains("\"topWidthNm\"", StringComparison.Ordinal)).Body;
+        var response = await Client.PostAsync("/api/model/predict", new StringContent(predict, Encoding.UTF8, "application/json"));
+        var body = await ReadJsonAsync(response);
+        Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+        // Mid width 7.8 nm against 8.0 nm nominal: a narrower fin raises the threshold (G.4: dVT,sat/dw_mid < 0).
+        Assert.True(body.GetProperty("deltaVtSatMv").GetDouble() > 0);
+    }
 }
