@@ -7,6 +7,7 @@ return args.FirstOrDefault() switch
 {
     "ingest" => await IngestBenchmark.RunAsync(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 1_000_000),
     "rules" => RulesBenchmark.Run(),
+    "model" => ModelBenchmark.Run(),
     _ => Usage(),
 };
 

@@ -20,7 +20,7 @@ public static class QuantumConfinement
         / (2 * PhysicalConstants.ElectronMassKg) / PhysicalConstants.ElementaryChargeC * 1e18;
 
     // N_c per m³: 2(2π m kT/h²)^{3/2} = 2(m kT/(2πħ²))^{3/2}.
-    private static readonly double BulkEffectiveDensityPerM3 = 2 * Math.Pow(
+    internal static readonly double BulkEffectiveDensityPerM3 = 2 * Math.Pow(
         Math.Pow(6, 2.0 / 3.0) * Math.Cbrt(Ml * Mt * Mt) * PhysicalConstants.ElectronMassKg * PhysicalConstants.BoltzmannJPerK * PhysicalConstants.TemperatureK
         / (2 * Math.PI * PhysicalConstants.ReducedPlanckJs * PhysicalConstants.ReducedPlanckJs), 1.5);
 

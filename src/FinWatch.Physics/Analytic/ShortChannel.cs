@@ -124,6 +124,52 @@ public static class ShortChannel
     }
 
     /// <summary>
+    /// The same root as <see cref="Threshold"/> (B.5) in closed form: squaring ψ_min(ψ_L*) = φ_th gives a quadratic in
+    /// δ = ψ_L* − φ_th whose barrier-carrying root is δ* = −[2d + V_DS + 2 cosh(ℓ/2)·√(d(d + V_DS))]/(2 sinh²(ℓ/2)),
+    /// d = V_bi − φ_th; the slope is ∂ψ_min/∂ψ_L = 1 − (A + B)(cosh ℓ − 1)/(sinh²ℓ·(−δ*)). Falls back to the Brent
+    /// solution of <see cref="Threshold"/> whenever the closed form is not the unique root in [φ_th − 5 V, φ_th]
+    /// (second admissible root, long channel, root outside the bracket), so it always returns what Threshold returns.
+    /// </summary>
+    /// <param name="barrierHeightV">V_bi − φ_th in V; finite and &gt; 0.</param>
+    /// <param name="drainVoltageV">V_DS in V; finite and ≥ 0.</param>
+    /// <param name="lengthRatio">ℓ = L/λ; finite and &gt; 0.</param>
+    /// <param name="longChannelIdeality">n_long; finite and ≥ 1.</param>
+    /// <returns>The shift, slope and swing, as <see cref="Threshold"/>.</returns>
+    /// <exception cref="ArgumentOutOfRangeException">An argument is out of its stated range.</exception>
+    public static ShortChannelThreshold ThresholdClosedForm(double barrierHeightV, double drainVoltageV, double lengthRatio, double longChannelIdeality = 1.0)
+    {
+        bool usable = double.IsFinite(lengthRatio) && lengthRatio > 0.05 && lengthRatio <= MaxLengthRatio;
+        return ThresholdClosedForm(
+            barrierHeightV, drainVoltageV, lengthRatio, longChannelIdeality,
+            usable ? Math.Sinh(0.5 * lengthRatio) : double.NaN, usable ? Math.Cosh(0.5 * lengthRatio) : double.NaN);
+    }
+
+    /// <summary><see cref="ThresholdClosedForm(double, double, double, double)"/> with sinh(ℓ/2) and cosh(ℓ/2) given (NaN: use Brent).</summary>
+    internal static ShortChannelThreshold ThresholdClosedForm(
+        double barrierHeightV, double drainVoltageV, double lengthRatio, double longChannelIdeality, double sh2, double ch2)
+    {
+        double d = barrierHeightV, v = drainVoltageV, ell = lengthRatio;
+        if (double.IsFinite(d) && d > 0 && double.IsFinite(v) && v >= 0 && double.IsFinite(ell) && ell > 0.05
+            && ell <= MaxLengthRatio && double.IsFinite(longChannelIdeality) && longChannelIdeality >= 1 && double.IsFinite(sh2))
+        {
+            double m = 2 * sh2 * sh2, root = 2 * ch2 * Math.Sqrt(d * (d + v));
+            double deltaStar = -((2 * d) + v + root) / m;
+
+            // The other root of the quadratic, −(2d + V_DS − 2 cosh(ℓ/2)√(d(d + V_DS)))/m, is admissible only when ≤ 0.
+            bool unique = (2 * d) + v < root;
+            if (unique && deltaStar > -BracketWidthV && deltaStar < 0)
+            {
+                double a = d - deltaStar, b = a + v, sinh = 2 * sh2 * ch2;
+                double slope = 1 - ((a + b) * m / (sinh * sinh * -deltaStar));
+                double sLong = longChannelIdeality * PhysicalConstants.ThermalVoltageV * Math.Log(10);
+                return new ShortChannelThreshold(longChannelIdeality * deltaStar, deltaStar, slope, sLong / slope, false);
+            }
+        }
+
+        return Threshold(barrierHeightV, drainVoltageV, lengthRatio, longChannelIdeality);
+    }
+
+    /// <summary>
     /// DIBL = −[ΔV_T,SCE(V_DS,hi) − ΔV_T,SCE(V_DS,lo)]/(V_DS,hi − V_DS,lo) (B.5), in V/V; NaN when either point punches through.
     /// </summary>
     /// <param name="barrierHeightV">V_bi − φ_th in V; finite and &gt; 0.</param>

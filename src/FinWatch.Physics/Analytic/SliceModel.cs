@@ -355,7 +355,7 @@ public static class SliceModel
         return max;
     }
 
-    private static double DepletionTermV(double widthNm, double eotNm, double dopingPerCm3)
+    internal static double DepletionTermV(double widthNm, double eotNm, double dopingPerCm3)
     {
         double cox = PhysicalConstants.OxidePermittivityFPerCm / (eotNm * PhysicalConstants.CmPerNm);
         return PhysicalConstants.ElementaryChargeC * dopingPerCm3 * widthNm * PhysicalConstants.CmPerNm / (2 * cox);
@@ -406,7 +406,7 @@ public static class SliceModel
         }
     }
 
-    private static void ValidateInput(SliceModelInput input)
+    internal static void ValidateInput(SliceModelInput input)
     {
         RequirePositive(input.EotNm);
         RequirePositive(input.GateLengthNm);
