@@ -126,3 +126,30 @@ VALUES ('20261202051633_ProductModelInputs', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+ALTER TABLE "measurements" ADD "delta_dibl_mv_per_v" REAL NULL;
+
+ALTER TABLE "measurements" ADD "delta_swing_lin_mv_per_dec" REAL NULL;
+
+ALTER TABLE "measurements" ADD "delta_vt_lin_mv" REAL NULL;
+
+ALTER TABLE "measurements" ADD "delta_vt_sat_mv" REAL NULL;
+
+ALTER TABLE "measurements" ADD "model_stamp_id" INTEGER NULL;
+
+CREATE TABLE "model_stamps" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_model_stamps" PRIMARY KEY AUTOINCREMENT,
+    "product_id" INTEGER NOT NULL,
+    "parameter_set" TEXT NOT NULL,
+    "parameter_set_version" TEXT NOT NULL,
+    "code_version" TEXT NOT NULL,
+    CONSTRAINT "FK_model_stamps_products_product_id" FOREIGN KEY ("product_id") REFERENCES "products" ("id") ON DELETE RESTRICT
+);
+
+CREATE UNIQUE INDEX "IX_model_stamps_product_id_parameter_set_parameter_set_version_code_version" ON "model_stamps" ("product_id", "parameter_set", "parameter_set_version", "code_version");
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202053214_PredictedShifts', '10.0.15');
+
+COMMIT;
+

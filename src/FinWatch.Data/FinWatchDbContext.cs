@@ -16,6 +16,7 @@ public abstract class FinWatchDbContext(DbContextOptions options) : DbContext(op
     public DbSet<IngestBatch> IngestBatches => Set<IngestBatch>();
     public DbSet<LotStep> LotSteps => Set<LotStep>();
     public DbSet<LotChamber> LotChambers => Set<LotChamber>();
+    public DbSet<ModelStamp> ModelStamps => Set<ModelStamp>();
 
     protected override void OnModelCreating(ModelBuilder modelBuilder)
     {

@@ -36,6 +36,16 @@ public sealed class Measurement
     public double? GatedPerimeterNm { get; set; }
     public double? MaxCornerRadiusNm { get; set; }
 
+    /// <summary>Predicted shifts against the product's nominal fin (engineering estimate, fin-model.md G.2), in mV, mV/dec
+    /// and mV/V; null when the profile lacks an input the model needs.</summary>
+    public double? DeltaVtLinMv { get; set; }
+    public double? DeltaVtSatMv { get; set; }
+    public double? DeltaSwingLinMvPerDec { get; set; }
+    public double? DeltaDiblMvPerV { get; set; }
+
+    /// <summary>The parameter set and code version that made the prediction (<see cref="ModelStamp"/>).</summary>
+    public int? ModelStampId { get; set; }
+
     /// <summary>Consistency flags (bit 1: re-entrant profile, bit 2: radius larger than the top allows).</summary>
     public int Flags { get; set; }
 }

@@ -147,6 +147,22 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("REAL")
                         .HasColumnName("corner_radius_nm");
 
+                    b.Property<double?>("DeltaDiblMvPerV")
+                        .HasColumnType("REAL")
+                        .HasColumnName("delta_dibl_mv_per_v");
+
+                    b.Property<double?>("DeltaSwingLinMvPerDec")
+                        .HasColumnType("REAL")
+                        .HasColumnName("delta_swing_lin_mv_per_dec");
+
+                    b.Property<double?>("DeltaVtLinMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("delta_vt_lin_mv");
+
+                    b.Property<double?>("DeltaVtSatMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("delta_vt_sat_mv");
+
                     b.Property<string>("EtchChamber")
                         .HasMaxLength(64)
                         .HasColumnType("TEXT")
@@ -206,6 +222,10 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("REAL")
                         .HasColumnName("mid_width_nm");
 
+                    b.Property<int?>("ModelStampId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("model_stamp_id");
+
                     b.Property<string>("Operator")
                         .HasMaxLength(64)
                         .HasColumnType("TEXT")
@@ -257,6 +277,43 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .IsUnique();
 
                     b.ToTable("measurements", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.ModelStamp", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<string>("CodeVersion")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("code_version");
+
+                    b.Property<string>("ParameterSet")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("parameter_set");
+
+                    b.Property<string>("ParameterSetVersion")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("parameter_set_version");
+
+                    b.Property<int>("ProductId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("product_id");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ProductId", "ParameterSet", "ParameterSetVersion", "CodeVersion")
+                        .IsUnique();
+
+                    b.ToTable("model_stamps", (string)null);
                 });
 
             modelBuilder.Entity("FinWatch.Data.Entities.Product", b =>
@@ -406,6 +463,15 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
 
+                    b.HasOne("FinWatch.Data.Entities.Product", null)
+                        .WithMany()
+                        .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.ModelStamp", b =>
+                {
                     b.HasOne("FinWatch.Data.Entities.Product", null)
                         .WithMany()
                         .HasForeignKey("ProductId")

@@ -2,6 +2,7 @@ using System.Diagnostics;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Physics;
+using FinWatch.Server.Features.Model;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
 
@@ -12,7 +13,7 @@ namespace FinWatch.Server.Features.Measurements;
 /// Every source (JSON, CSV, the inbox, the demo loader) comes through here, so they share one set of rules.
 /// </summary>
 public sealed class IngestMeasurements(
-    FinWatchDbContext db, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ILogger<IngestMeasurements> logger)
+    FinWatchDbContext db, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ProductModels models, ILogger<IngestMeasurements> logger)
 {
     /// <summary>Ingests the rows as one batch. Nothing is stored unless every row is valid.</summary>
     public async Task<IngestOutcome> RunAsync(IAsyncEnumerable<RawRow> rows, string source, string? label, CancellationToken cancellationToken)
@@ -152,12 +153,10 @@ public sealed class IngestMeasurements(
 
     private async Task<IReadOnlyDictionary<string, ProductRef>> LoadProductsAsync(CancellationToken cancellationToken)
     {
-        var list = await db.Products.AsNoTracking()
-            .Select(p => new { p.Id, p.Code, p.GateFaces })
-            .ToListAsync(cancellationToken);
+        var list = await db.Products.AsNoTracking().ToListAsync(cancellationToken);
         return list.ToDictionary(
             p => p.Code,
-            p => new ProductRef(p.Id, p.Code, p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate),
+            p => new ProductRef(p.Id, p.Code, p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate, models.TryFor(p)),
             StringComparer.Ordinal);
     }
 }

@@ -1,10 +1,12 @@
 using System.Globalization;
 using FinWatch.Physics;
+using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Server.Features.Measurements;
 
-/// <summary>The product facts that validation needs, looked up by the code used in files.</summary>
-public sealed record ProductRef(int Id, string Code, GatedFaces Faces);
+/// <summary>The product facts that validation and derivation need, looked up by the code used in files.</summary>
+/// <param name="Model">The product's analytic threshold model (fin-model.md G.2), used for the predicted shifts.</param>
+public sealed record ProductRef(int Id, string Code, GatedFaces Faces, ThresholdModel? Model = null);
 
 /// <summary>
 /// Turns a <see cref="RawRow"/> into a <see cref="SiteRecord"/>, or reports every problem in it with its column and value.
@@ -93,10 +95,24 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
             CornerRadiusNm = r,
             LinerThicknessNm = liner,
             Derived = DerivedFin.From(wt, wb, h, r, product.Faces),
+            Predicted = Predict(product, wt, wb, h, r),
         };
     }
 
     private static string? Cell(string?[] cells, IngestColumn column) => cells[(int)column];
+
+    // The shifts need the whole profile; the gate dielectric is the product's (the liner is outside the gate, A.6).
+    private static PredictedShifts? Predict(ProductRef product, double? wt, double? wb, double? h, double? r)
+    {
+        if (product.Model is not { } model || wt is not { } top || wb is not { } bottom || h is not { } height || r is not { } radius)
+        {
+            return null;
+        }
+
+        var nominal = model.Parameters.Nominal;
+        var p = model.Predict(nominal with { Profile = new FinProfile(top, bottom, height, radius) });
+        return PredictedShifts.From(p);
+    }
 
     private static string? Text(int row, string?[] cells, IngestColumn column, bool required, List<RowError> errors)
     {

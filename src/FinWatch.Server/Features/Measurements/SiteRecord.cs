@@ -24,4 +24,5 @@ public sealed class SiteRecord
     public double? CornerRadiusNm { get; init; }
     public double? LinerThicknessNm { get; init; }
     public DerivedFin Derived { get; init; }
+    public PredictedShifts? Predicted { get; init; }
 }

@@ -15,9 +15,10 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
         INSERT INTO measurements (batch_id, lot_id, wafer_slot, site_id, site_x_mm, site_y_mm, product_id, step,
             etch_tool, etch_chamber, liner_tool, liner_chamber, metrology_tool, operator, measured_at_ms,
             top_width_nm, bottom_width_nm, fin_height_nm, corner_radius_nm, liner_thickness_nm,
-            taper_deg, mid_width_nm, area_nm2, gated_perimeter_nm, max_corner_radius_nm, flags)
+            taper_deg, mid_width_nm, area_nm2, gated_perimeter_nm, max_corner_radius_nm, flags,
+            delta_vt_lin_mv, delta_vt_sat_mv, delta_swing_lin_mv_per_dec, delta_dibl_mv_per_v, model_stamp_id)
         VALUES ($batch, $lot, $slot, $site, $x, $y, $product, $step, $etool, $echamber, $ltool, $lchamber, $mtool, $op, $at,
-            $wt, $wb, $h, $r, $liner, $taper, $mid, $area, $perim, $rmax, $flags)
+            $wt, $wb, $h, $r, $liner, $taper, $mid, $area, $perim, $rmax, $flags, $dlin, $dsat, $dswing, $ddibl, $stamp)
         ON CONFLICT (lot_id, wafer_slot, site_id, step, measured_at_ms) DO NOTHING
         """;
 
@@ -32,6 +33,7 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
     private readonly SqliteParameter[] p;
     private readonly FinWatchDbContext? closeOnDispose;
     private SqliteCommand? existing;
+    private readonly Dictionary<int, long> stamps = [];
     private bool completed;
 
     private SqliteSiteWriter(SqliteConnection connection, SqliteTransaction transaction, FinWatchDbContext? closeOnDispose, long batchId)
@@ -42,14 +44,15 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
         BatchId = batchId;
         insert = Command(InsertSql);
         string[] names = ["$batch", "$lot", "$slot", "$site", "$x", "$y", "$product", "$step", "$etool", "$echamber", "$ltool",
-            "$lchamber", "$mtool", "$op", "$at", "$wt", "$wb", "$h", "$r", "$liner", "$taper", "$mid", "$area", "$perim", "$rmax", "$flags"];
+            "$lchamber", "$mtool", "$op", "$at", "$wt", "$wb", "$h", "$r", "$liner", "$taper", "$mid", "$area", "$perim", "$rmax", "$flags",
+            "$dlin", "$dsat", "$dswing", "$ddibl", "$stamp"];
         p = names.Select(n => insert.Parameters.Add(n, SqliteType.Text)).ToArray();
-        foreach (var i in new[] { 0, 2, 6, 14, 25 })
+        foreach (var i in new[] { 0, 2, 6, 14, 25, 30 })
         {
             p[i].SqliteType = SqliteType.Integer;
         }
 
-        foreach (var i in new[] { 4, 5, 15, 16, 17, 18, 19, 20, 21, 22, 23, 24 })
+        foreach (var i in new[] { 4, 5, 15, 16, 17, 18, 19, 20, 21, 22, 23, 24, 26, 27, 28, 29 })
         {
             p[i].SqliteType = SqliteType.Real;
         }
@@ -113,6 +116,12 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
         p[23].Value = Db(d.GatedPerimeterNm);
         p[24].Value = Db(d.MaxCornerRadiusNm);
         p[25].Value = (int)d.Flags;
+        var m = s.Predicted;
+        p[26].Value = Db(m?.VtLinMv);
+        p[27].Value = Db(m?.VtSatMv);
+        p[28].Value = Db(m?.SwingLinMvPerDec);
+        p[29].Value = Db(m?.DiblMvPerV);
+        p[30].Value = m is null ? DBNull.Value : StampId(s.ProductId, m);
         if (insert.ExecuteNonQuery() == 1)
         {
             return InsertResult.Inserted;
@@ -188,6 +197,28 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
 
         await transaction.CommitAsync(cancellationToken);
         completed = true;
+    }
+
+    // One stamp row per product and model version, written inside the batch so a rejected batch leaves none behind.
+    private long StampId(int productId, PredictedShifts m)
+    {
+        if (stamps.TryGetValue(productId, out var id))
+        {
+            return id;
+        }
+
+        using var cmd = Command("""
+            INSERT INTO model_stamps (product_id, parameter_set, parameter_set_version, code_version) VALUES ($p, $s, $v, $c)
+            ON CONFLICT DO NOTHING;
+            SELECT id FROM model_stamps WHERE product_id = $p AND parameter_set = $s AND parameter_set_version = $v AND code_version = $c;
+            """);
+        cmd.Parameters.AddWithValue("$p", productId);
+        cmd.Parameters.AddWithValue("$s", m.ParameterSet);
+        cmd.Parameters.AddWithValue("$v", m.ParameterSetVersion);
+        cmd.Parameters.AddWithValue("$c", m.CodeVersion);
+        id = (long)cmd.ExecuteScalar()!;
+        stamps[productId] = id;
+        return id;
     }
 
     private SqliteCommand Existing()

@@ -30,4 +30,17 @@ public sealed class ProductModels
     }
 
     public ThresholdModel For(Product product) => cache.GetOrCreate(ParametersOf(product));
+
+    /// <summary>The product's model, or null when its nominal cannot be modelled (the shifts are then left empty).</summary>
+    public ThresholdModel? TryFor(Product product)
+    {
+        try
+        {
+            return For(product);
+        }
+        catch (ArgumentException)
+        {
+            return null;
+        }
+    }
 }

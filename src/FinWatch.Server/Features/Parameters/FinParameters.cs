@@ -17,7 +17,13 @@ public static class FinParameters
         new("area_nm2", "nm²", "derived", "Cross-section area", "Area of the rounded trapezoid (A.4)", nameof(Measurement.AreaNm2)),
         new("gated_perimeter_nm", "nm", "derived", "Gated perimeter", "Length of the gated faces: top and sidewalls for tri-gate, sidewalls only under a hard mask (A.4, A.7)", nameof(Measurement.GatedPerimeterNm)),
         new("max_corner_radius_nm", "nm", "derived", "Largest corner radius", "The largest radius the top width allows, (Wt/2)·tan(45° + θ/2) (A.4)", nameof(Measurement.MaxCornerRadiusNm)),
+        new("delta_vt_lin_mv", "mV", "predicted", "Predicted ΔVT (linear)", Estimate + "threshold shift at low drain voltage against the product's nominal fin", nameof(Measurement.DeltaVtLinMv)),
+        new("delta_vt_sat_mv", "mV", "predicted", "Predicted ΔVT (saturation)", Estimate + "threshold shift at high drain voltage against the product's nominal fin", nameof(Measurement.DeltaVtSatMv)),
+        new("delta_swing_lin_mv_per_dec", "mV/dec", "predicted", "Predicted Δ subthreshold swing", Estimate + "change of the linear-regime swing against the nominal", nameof(Measurement.DeltaSwingLinMvPerDec)),
+        new("delta_dibl_mv_per_v", "mV/V", "predicted", "Predicted ΔDIBL", Estimate + "change of drain-induced barrier lowering against the nominal", nameof(Measurement.DeltaDiblMvPerV)),
     ];
+
+    private const string Estimate = "Engineering estimate (fin-model.md G.2, not a substitute for electrical test): ";
 
     private static readonly Dictionary<string, FinParameter> ByName = All.ToDictionary(p => p.Name, StringComparer.Ordinal);
 

@@ -75,4 +75,26 @@ public class PredictEndpointsTests : IntegrationTest
         Assert.Equal(20, model.GetProperty("gate_length_nm").GetDouble());
         Assert.Equal("110", model.GetProperty("sidewall_orientation").GetString());
     }
+
+    [Fact]
+    public async Task Ingest_StoresThePredictedShiftsWithTheirStamp()
+    {
+        // Issue 5 wiring: every ingested site with a whole profile carries the shifts /api/model/predict gives for it.
+        var csv = SiteRow.Csv([new SiteRow { TopWidthNm = "5.8", BottomWidthNm = "9.8", CornerRadiusNm = "2" }, new SiteRow { SiteId = "S02", CornerRadiusNm = null }]);
+        (await PostCsvAsync(csv)).EnsureSuccessStatusCode();
+        var stored = await Factory.QueryAsync(db => Microsoft.EntityFrameworkCore.EntityFrameworkQueryableExtensions.ToListAsync(
+            db.Measurements.OrderBy(m => m.SiteId)));
+        var predicted = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
+            new { product = TestProducts.TriGate, topWidthNm = 5.8, bottomWidthNm = 9.8, heightNm = 42.0, cornerRadiusNm = 2.0 }));
+        Assert.Equal(predicted.GetProperty("deltaVtSatMv").GetDouble(), stored[0].DeltaVtSatMv!.Value, 9);
+        Assert.Equal(predicted.GetProperty("deltaVtLinMv").GetDouble(), stored[0].DeltaVtLinMv!.Value, 9);
+        Assert.NotNull(stored[0].ModelStampId);
+        Assert.Null(stored[1].DeltaVtSatMv); // no radius measured: no prediction
+        var stamp = await Factory.QueryAsync(db => Microsoft.EntityFrameworkCore.EntityFrameworkQueryableExtensions.SingleAsync(db.ModelStamps));
+        Assert.Equal(predicted.GetProperty("codeVersion").GetString(), stamp.CodeVersion);
+
+        var series = await ReadJsonAsync(await Client.GetAsync($"/api/series?product={TestProducts.TriGate}&step=FIN-PROFILE&parameter=delta_vt_sat_mv"));
+        Assert.Equal(1, series.GetProperty("count").GetInt32());
+        Assert.Equal("mV", series.GetProperty("unit").GetString());
+    }
 }
