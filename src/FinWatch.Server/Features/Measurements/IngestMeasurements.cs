@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using System.Threading.Channels;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Physics;
@@ -48,13 +49,19 @@ public sealed class IngestMeasurements(
             }
         }
 
+        // Reading, validating, deriving and predicting run on one core while the inserts run on the other; the bounded
+        // channel keeps the reader at most a few thousand rows ahead, so memory stays flat for any file size.
+        using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken);
+        var channel = Channel.CreateBounded<ValidatedRow>(new BoundedChannelOptions(4096) { SingleReader = true, SingleWriter = true });
+        var producer = Task.Run(() => ValidateAllAsync(rows, validator, channel.Writer, stop.Token), stop.Token);
         try
         {
-            await foreach (var raw in rows.WithCancellation(cancellationToken))
+            await foreach (var (raw, validated, problems) in channel.Reader.ReadAllAsync(cancellationToken))
             {
                 rowsRead++;
                 rowErrors.Clear();
-                var site = validator.Validate(raw, rowErrors);
+                rowErrors.AddRange(problems);
+                var site = validated;
                 if (site is not null && !LotProductMatches(site, writer, lotProducts, products, rowErrors))
                 {
                     site = null;
@@ -108,6 +115,11 @@ public sealed class IngestMeasurements(
                 Report(error);
             }
         }
+        finally
+        {
+            await stop.CancelAsync();
+            await producer.ContinueWith(_ => { }, CancellationToken.None, TaskContinuationOptions.ExecuteSynchronously, TaskScheduler.Default);
+        }
 
         if (errorCount > 0)
         {
@@ -120,6 +132,28 @@ public sealed class IngestMeasurements(
         logger.LogInformation("Accepted {Source} batch {BatchId} {Label}: {Inserted} stored, {Present} already present, {Ms:0} ms",
             source, writer.BatchId, label, inserted, present, ms);
         return new IngestOutcome(new IngestAccepted(writer.BatchId, rowsRead, inserted, present, presentRows, reEntrant, radiusTooLarge, Math.Round(ms, 1)), null);
+    }
+
+    private sealed record ValidatedRow(RawRow Raw, SiteRecord? Site, List<RowError> Problems);
+
+    private static async Task ValidateAllAsync(IAsyncEnumerable<RawRow> rows, RowValidator validator, ChannelWriter<ValidatedRow> output, CancellationToken cancellationToken)
+    {
+        try
+        {
+            await foreach (var raw in rows.WithCancellation(cancellationToken))
+            {
+                var problems = new List<RowError>(0);
+                var site = validator.Validate(raw, problems);
+                await output.WriteAsync(new ValidatedRow(raw, site, problems), cancellationToken);
+            }
+
+            output.Complete();
+        }
+        catch (Exception e)
+        {
+            // The reader's format errors (and cancellation) reach the consumer through the channel, where they are reported.
+            output.Complete(e);
+        }
     }
 
     private static void AddChamber(HashSet<(string, string, string)> chambers, SiteRecord site, string? chamber)
