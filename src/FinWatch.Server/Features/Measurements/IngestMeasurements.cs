@@ -21,7 +21,7 @@ public sealed class IngestMeasurements(
     {
         var o = options.Value;
         var started = Stopwatch.GetTimestamp();
-        var products = await LoadProductsAsync(cancellationToken);
+        var products = await LoadProductsAsync(o.PredictShifts, cancellationToken);
         var validator = new RowValidator(products, clock.GetUtcNow(), TimeSpan.FromMinutes(o.FutureToleranceMinutes));
 
         using var turn = await gate.EnterAsync(cancellationToken);
@@ -185,12 +185,12 @@ public sealed class IngestMeasurements(
         return false;
     }
 
-    private async Task<IReadOnlyDictionary<string, ProductRef>> LoadProductsAsync(CancellationToken cancellationToken)
+    private async Task<IReadOnlyDictionary<string, ProductRef>> LoadProductsAsync(bool predict, CancellationToken cancellationToken)
     {
         var list = await db.Products.AsNoTracking().ToListAsync(cancellationToken);
         return list.ToDictionary(
             p => p.Code,
-            p => new ProductRef(p.Id, p.Code, p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate, models.TryFor(p)),
+            p => new ProductRef(p.Id, p.Code, p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate, predict ? models.TryFor(p) : null),
             StringComparer.Ordinal);
     }
 }

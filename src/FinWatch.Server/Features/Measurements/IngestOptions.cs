@@ -25,6 +25,9 @@ public sealed class IngestOptions
     [Range(1024, long.MaxValue)]
     public long MaxBodyBytes { get; set; } = 2L * 1024 * 1024 * 1024;
 
+    /// <summary>Store the model's predicted electrical shifts with every site that has a whole profile (on by default).</summary>
+    public bool PredictShifts { get; set; } = true;
+
     /// <summary>How many row errors a rejection lists (the total is always counted).</summary>
     [Range(1, 10_000)]
     public int MaxReportedErrors { get; set; } = 100;

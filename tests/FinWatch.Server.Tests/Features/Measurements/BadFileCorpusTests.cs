@@ -39,6 +39,8 @@ public class BadFileCorpusTests : IntegrationTest
         { "far-future time", Csv(new SiteRow { MeasuredAt = "2027-06-01T00:00:00Z" }), 2, "measured_at" },
         { "time without zone", Csv(new SiteRow { MeasuredAt = "2026-11-20T10:00:00" }), 2, "measured_at" },
         { "not a time", Csv(new SiteRow { MeasuredAt = "yesterday" }), 2, "measured_at" },
+        { "impossible date", Csv(new SiteRow { MeasuredAt = "2026-02-30T10:00:00Z" }), 2, "measured_at" },
+        { "hour 24", Csv(new SiteRow { MeasuredAt = "2026-11-20T24:00:00Z" }), 2, "measured_at" },
         { "empty lot id", Csv(new SiteRow { LotId = "" }), 2, "lot_id" },
         { "no value at all", Csv(new SiteRow { TopWidthNm = null, BottomWidthNm = null, FinHeightNm = null, CornerRadiusNm = null, LinerThicknessNm = null }), 2, null },
         { "duplicate rows inside one file", Csv(new SiteRow(), new SiteRow { SiteId = "S02" }, new SiteRow()), 4, null },
