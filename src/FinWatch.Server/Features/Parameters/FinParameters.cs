@@ -27,6 +27,11 @@ public static class FinParameters
 
     private static readonly Dictionary<string, FinParameter> ByName = All.ToDictionary(p => p.Name, StringComparer.Ordinal);
 
+    private static readonly Dictionary<string, int> Positions = All.Select((p, i) => (p.Name, i)).ToDictionary(x => x.Name, x => x.i, StringComparer.Ordinal);
+
+    /// <summary>The parameter's place in the catalogue (for listing in a stable order); unknown names sort last.</summary>
+    public static int Position(string name) => Positions.TryGetValue(name, out var i) ? i : int.MaxValue;
+
     public static bool TryGet(string name, out FinParameter parameter) => ByName.TryGetValue(name, out parameter!);
 
     public static string NameList => string.Join(", ", All.Select(p => p.Name));

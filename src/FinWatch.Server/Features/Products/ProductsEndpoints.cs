@@ -121,7 +121,7 @@ public static class ProductsEndpoints
     internal static ProductResponse ToResponse(Product p) => new(
         p.Code, p.Name, p.Description, ProductRules.FacesName(p.GateFaces),
         new NominalProfile(p.NominalTopWidthNm, p.NominalBottomWidthNm, p.NominalFinHeightNm, p.NominalCornerRadiusNm, p.NominalLinerThicknessNm),
-        p.Specs.OrderBy(s => FinParameters.All.ToList().FindIndex(f => f.Name == s.Parameter))
+        p.Specs.OrderBy(s => FinParameters.Position(s.Parameter))
             .Select(s => new SpecLimitDto(s.Parameter, s.Lower, s.Target, s.Upper)).ToList(),
         new ModelInputs(p.ModelEotNm, p.ModelGateLengthNm, p.ModelChannelDopingCm3, p.ModelSidewallOrientation),
         Time.FromMs(p.CreatedAtMs), Time.FromMs(p.UpdatedAtMs));

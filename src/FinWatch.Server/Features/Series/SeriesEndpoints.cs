@@ -31,17 +31,7 @@ public static class SeriesEndpoints
         DateTimeOffset? from, DateTimeOffset? to, string? level, int? limit, CancellationToken cancellationToken)
     {
         var (query, errors) = await SeriesQuery.ResolveAsync(db, product, step, parameter, chamber, from, to, cancellationToken);
-        var lvl = level ?? "site";
-        if (lvl is not ("site" or "wafer"))
-        {
-            errors["level"] = ["level is 'site' or 'wafer'"];
-        }
-
-        var max = limit ?? DefaultLimit;
-        if (max is < 1 or > MaxLimit)
-        {
-            errors["limit"] = [$"limit is 1 to {MaxLimit}"];
-        }
+        var (lvl, max) = SeriesQuery.CheckLevelAndLimit(level, limit, DefaultLimit, MaxLimit, errors);
 
         if (query is null || errors.Count > 0)
         {

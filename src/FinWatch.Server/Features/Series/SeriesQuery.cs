@@ -51,6 +51,24 @@ public sealed record SeriesQuery(string Product, int ProductId, string Step, Fin
         return errors.Count > 0 ? (null, errors) : (new SeriesQuery(product!, productId!.Value, step!, p!, chamber, from, to), errors);
     }
 
+    /// <summary>Checks the level ("site" by default, or "wafer") and the point limit shared by the series endpoints.</summary>
+    public static (string Level, int Limit) CheckLevelAndLimit(string? level, int? limit, int defaultLimit, int maxLimit, Dictionary<string, string[]> errors)
+    {
+        var lvl = level ?? "site";
+        if (lvl is not ("site" or "wafer"))
+        {
+            errors["level"] = ["level is 'site' or 'wafer'"];
+        }
+
+        var max = limit ?? defaultLimit;
+        if (max < 1 || max > maxLimit)
+        {
+            errors["limit"] = [$"limit is 1 to {maxLimit}"];
+        }
+
+        return (lvl, max);
+    }
+
     /// <summary>The measured (or derived) values in time order, streamed from the database.</summary>
     public IAsyncEnumerable<SeriesRow> Rows(FinWatchDbContext db)
     {

@@ -153,7 +153,7 @@ public static class RunAnalysis
         return finite.Count switch
         {
             0 => null,
-            1 when line.All(v => double.IsNaN(v) || v == finite[0]) && !line.Any(double.IsNaN) => finite[0],
+            1 when !line.Any(double.IsNaN) => finite[0],
             _ => Nulls(line),
         };
     }

@@ -89,17 +89,7 @@ public static class StoredSeriesEndpoints
         string? level, AnalysisRequest request, int? limit, bool useSpecs, CancellationToken cancellationToken)
     {
         var (query, errors) = await SeriesQuery.ResolveAsync(db, product, step, parameter, chamber, from, to, cancellationToken);
-        var lvl = level ?? "site";
-        if (lvl is not ("site" or "wafer"))
-        {
-            errors["level"] = ["level is 'site' or 'wafer'"];
-        }
-
-        var max = limit ?? MaxPoints;
-        if (max is < 1 or > MaxPoints)
-        {
-            errors["limit"] = [$"limit is 1 to {MaxPoints}"];
-        }
+        var (lvl, max) = SeriesQuery.CheckLevelAndLimit(level, limit, MaxPoints, MaxPoints, errors);
 
         if (query is null || errors.Count > 0)
         {
