@@ -153,3 +153,60 @@ VALUES ('20261202053214_PredictedShifts', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+CREATE TABLE "model_parameter_sets" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_model_parameter_sets" PRIMARY KEY AUTOINCREMENT,
+    "product_id" INTEGER NOT NULL,
+    "version" INTEGER NOT NULL,
+    "gate_length_nm" REAL NOT NULL,
+    "gate_length_sd_nm" REAL NOT NULL,
+    "barrier_height_v" REAL NOT NULL,
+    "barrier_height_sd_v" REAL NOT NULL,
+    "threshold_offset_v" REAL NOT NULL,
+    "threshold_offset_sd_v" REAL NOT NULL,
+    "rms_residual_before_mv" REAL NOT NULL,
+    "rms_residual_after_mv" REAL NOT NULL,
+    "measurement_sd_mv" REAL NOT NULL,
+    "observations" INTEGER NOT NULL,
+    "iterations" INTEGER NOT NULL,
+    "code_version" TEXT NOT NULL,
+    "created_at_ms" INTEGER NOT NULL,
+    "created_by" TEXT NOT NULL,
+    "reason" TEXT NOT NULL,
+    "source_name" TEXT NULL,
+    CONSTRAINT "FK_model_parameter_sets_products_product_id" FOREIGN KEY ("product_id") REFERENCES "products" ("id") ON DELETE RESTRICT
+);
+
+CREATE TABLE "electrical_tests" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_electrical_tests" PRIMARY KEY AUTOINCREMENT,
+    "parameter_set_id" INTEGER NOT NULL,
+    "product_id" INTEGER NOT NULL,
+    "lot_id" TEXT NOT NULL,
+    "wafer_slot" INTEGER NOT NULL,
+    "vt_lin_v" REAL NOT NULL,
+    "vt_sat_v" REAL NOT NULL,
+    "tested_at_ms" INTEGER NOT NULL,
+    "mean_top_width_nm" REAL NOT NULL,
+    "mean_bottom_width_nm" REAL NOT NULL,
+    "mean_fin_height_nm" REAL NOT NULL,
+    "mean_corner_radius_nm" REAL NOT NULL,
+    "sites" INTEGER NOT NULL,
+    "residual_lin_mv" REAL NOT NULL,
+    "residual_sat_mv" REAL NOT NULL,
+    CONSTRAINT "FK_electrical_tests_model_parameter_sets_parameter_set_id" FOREIGN KEY ("parameter_set_id") REFERENCES "model_parameter_sets" ("id") ON DELETE RESTRICT,
+    CONSTRAINT "FK_electrical_tests_products_product_id" FOREIGN KEY ("product_id") REFERENCES "products" ("id") ON DELETE RESTRICT
+);
+
+CREATE INDEX "IX_electrical_tests_lot_id_wafer_slot" ON "electrical_tests" ("lot_id", "wafer_slot");
+
+CREATE INDEX "IX_electrical_tests_parameter_set_id" ON "electrical_tests" ("parameter_set_id");
+
+CREATE INDEX "IX_electrical_tests_product_id" ON "electrical_tests" ("product_id");
+
+CREATE UNIQUE INDEX "IX_model_parameter_sets_product_id_version" ON "model_parameter_sets" ("product_id", "version");
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202100505_Calibrations', '10.0.15');
+
+COMMIT;
+

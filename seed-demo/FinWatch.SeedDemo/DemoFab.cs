@@ -94,6 +94,39 @@ public static class DemoFab
         }
     }
 
+    /// <summary>The header of the electrical-test CSV that <c>POST /api/model/calibrations</c> reads.</summary>
+    public const string ElectricalTestCsvHeader = "lot_id,wafer_slot,product,vt_lin_v,vt_sat_v,tested_at";
+
+    /// <summary>The invented "true" electrical behaviour of each product that the electrical tests are made from.</summary>
+    public static IReadOnlyList<DemoElectricalTruth> ElectricalTruths => ElectricalTestPlan.Truths;
+
+    /// <summary>
+    /// The invented electrical-test results: four wafers of every lot whose test (18 days after its fin profile) falls
+    /// in the window, in lot order, made with the project's analytic model from each wafer's true fin under
+    /// <see cref="ElectricalTruths"/>, plus 4 mV of wafer noise. They are consistent with the measured fins.
+    /// </summary>
+    /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
+    public static IEnumerable<DemoElectricalTest> GenerateElectricalTests(int seed = DefaultSeed, DemoScale? scale = null) =>
+        ElectricalTestPlan.Generate(seed, Validate(scale));
+
+    /// <summary>Streams the electrical tests of <paramref name="product"/> (all products when null) as calibration CSV.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
+    public static void WriteElectricalTestsCsv(TextWriter writer, string? product = null, int seed = DefaultSeed, DemoScale? scale = null)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        IEnumerable<DemoElectricalTest> tests = GenerateElectricalTests(seed, scale);
+        writer.Write(ElectricalTestCsvHeader);
+        writer.Write('\n');
+        foreach (DemoElectricalTest t in tests)
+        {
+            if (product is null || t.Product == product)
+            {
+                writer.Write(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                    $"{t.LotId},{t.WaferSlot},{t.Product},{t.VtLinV:0.0000},{t.VtSatV:0.0000},{t.TestedAtUtc:yyyy-MM-ddTHH:mm:ss}Z\n"));
+            }
+        }
+    }
+
     private static DemoScale Validate(DemoScale? scale)
     {
         scale ??= new DemoScale();

@@ -17,6 +17,8 @@ public abstract class FinWatchDbContext(DbContextOptions options) : DbContext(op
     public DbSet<LotStep> LotSteps => Set<LotStep>();
     public DbSet<LotChamber> LotChambers => Set<LotChamber>();
     public DbSet<ModelStamp> ModelStamps => Set<ModelStamp>();
+    public DbSet<ModelParameterSet> ModelParameterSets => Set<ModelParameterSet>();
+    public DbSet<ElectricalTest> ElectricalTests => Set<ElectricalTest>();
 
     protected override void OnModelCreating(ModelBuilder modelBuilder)
     {

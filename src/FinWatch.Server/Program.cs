@@ -1,3 +1,4 @@
+using FinWatch.Server.Features.Model.Calibrations;
 using FinWatch.Server.Features.About;
 using FinWatch.Server.Features.Demo;
 using FinWatch.Server.Features.Lots;
@@ -15,6 +16,7 @@ builder.AddFinWatchData();
 builder.AddDemo(args);
 builder.Services.AddMeasurements();
 builder.Services.AddModel();
+builder.Services.AddCalibrations();
 
 var app = builder.Build();
 await app.MigrateFinWatchDatabaseAsync();
@@ -31,6 +33,7 @@ app.MapThreeWay();
 app.MapSpc();
 app.MapModel();
 app.MapPredict();
+app.MapCalibrations();
 await app.RunAsync();
 
 /// <summary>Entry point; public so the integration tests' WebApplicationFactory can boot the real app.</summary>

@@ -16,6 +16,82 @@ namespace FinWatch.Data.Migrations.Sqlite
 #pragma warning disable 612, 618
             modelBuilder.HasAnnotation("ProductVersion", "10.0.15");
 
+            modelBuilder.Entity("FinWatch.Data.Entities.ElectricalTest", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<string>("LotId")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("lot_id");
+
+                    b.Property<double>("MeanBottomWidthNm")
+                        .HasColumnType("REAL")
+                        .HasColumnName("mean_bottom_width_nm");
+
+                    b.Property<double>("MeanCornerRadiusNm")
+                        .HasColumnType("REAL")
+                        .HasColumnName("mean_corner_radius_nm");
+
+                    b.Property<double>("MeanFinHeightNm")
+                        .HasColumnType("REAL")
+                        .HasColumnName("mean_fin_height_nm");
+
+                    b.Property<double>("MeanTopWidthNm")
+                        .HasColumnType("REAL")
+                        .HasColumnName("mean_top_width_nm");
+
+                    b.Property<int>("ParameterSetId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("parameter_set_id");
+
+                    b.Property<int>("ProductId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("product_id");
+
+                    b.Property<double>("ResidualLinMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("residual_lin_mv");
+
+                    b.Property<double>("ResidualSatMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("residual_sat_mv");
+
+                    b.Property<int>("Sites")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("sites");
+
+                    b.Property<long>("TestedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("tested_at_ms");
+
+                    b.Property<double>("VtLinV")
+                        .HasColumnType("REAL")
+                        .HasColumnName("vt_lin_v");
+
+                    b.Property<double>("VtSatV")
+                        .HasColumnType("REAL")
+                        .HasColumnName("vt_sat_v");
+
+                    b.Property<int>("WaferSlot")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("wafer_slot");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ParameterSetId");
+
+                    b.HasIndex("ProductId");
+
+                    b.HasIndex("LotId", "WaferSlot");
+
+                    b.ToTable("electrical_tests", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.IngestBatch", b =>
                 {
                     b.Property<long>("Id")
@@ -279,6 +355,100 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.ToTable("measurements", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.ModelParameterSet", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<double>("BarrierHeightSdV")
+                        .HasColumnType("REAL")
+                        .HasColumnName("barrier_height_sd_v");
+
+                    b.Property<double>("BarrierHeightV")
+                        .HasColumnType("REAL")
+                        .HasColumnName("barrier_height_v");
+
+                    b.Property<string>("CodeVersion")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("code_version");
+
+                    b.Property<long>("CreatedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("created_at_ms");
+
+                    b.Property<string>("CreatedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("created_by");
+
+                    b.Property<double>("GateLengthNm")
+                        .HasColumnType("REAL")
+                        .HasColumnName("gate_length_nm");
+
+                    b.Property<double>("GateLengthSdNm")
+                        .HasColumnType("REAL")
+                        .HasColumnName("gate_length_sd_nm");
+
+                    b.Property<int>("Iterations")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("iterations");
+
+                    b.Property<double>("MeasurementSdMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("measurement_sd_mv");
+
+                    b.Property<int>("Observations")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("observations");
+
+                    b.Property<int>("ProductId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("product_id");
+
+                    b.Property<string>("Reason")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("reason");
+
+                    b.Property<double>("RmsResidualAfterMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("rms_residual_after_mv");
+
+                    b.Property<double>("RmsResidualBeforeMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("rms_residual_before_mv");
+
+                    b.Property<string>("SourceName")
+                        .HasMaxLength(260)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("source_name");
+
+                    b.Property<double>("ThresholdOffsetSdV")
+                        .HasColumnType("REAL")
+                        .HasColumnName("threshold_offset_sd_v");
+
+                    b.Property<double>("ThresholdOffsetV")
+                        .HasColumnType("REAL")
+                        .HasColumnName("threshold_offset_v");
+
+                    b.Property<int>("Version")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("version");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ProductId", "Version")
+                        .IsUnique();
+
+                    b.ToTable("model_parameter_sets", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.ModelStamp", b =>
                 {
                     b.Property<int>("Id")
@@ -446,6 +616,21 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.ToTable("spec_limits", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.ElectricalTest", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.ModelParameterSet", null)
+                        .WithMany()
+                        .HasForeignKey("ParameterSetId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+
+                    b.HasOne("FinWatch.Data.Entities.Product", null)
+                        .WithMany()
+                        .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.LotStep", b =>
                 {
                     b.HasOne("FinWatch.Data.Entities.Product", null)
@@ -463,6 +648,15 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
 
+                    b.HasOne("FinWatch.Data.Entities.Product", null)
+                        .WithMany()
+                        .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.ModelParameterSet", b =>
+                {
                     b.HasOne("FinWatch.Data.Entities.Product", null)
                         .WithMany()
                         .HasForeignKey("ProductId")

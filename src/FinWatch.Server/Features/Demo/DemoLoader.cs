@@ -4,6 +4,7 @@ using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.SeedDemo;
 using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Features.Model.Calibrations;
 using FinWatch.Server.Features.Products;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
@@ -62,13 +63,46 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         await writer;
         if (outcome.Accepted is { } a)
         {
-            State = "loaded";
             LogLoaded(a.Inserted, a.DurationMs / 1000);
+            await CalibrateAsync(scope.ServiceProvider.GetRequiredService<CalibrateModel>(), seed, scale, stoppingToken);
+            State = "loaded";
         }
         else
         {
             State = "failed";
             LogFailed(outcome.Rejected!.ErrorCount, string.Join("; ", outcome.Rejected.Errors.Take(3).Select(e => $"row {e.Row} {e.Column}: {e.Reason}")));
+        }
+    }
+
+    // The invented electrical tests go through the normal calibration, one product at a time, as an engineer's upload would.
+    private async Task CalibrateAsync(CalibrateModel calibrate, int seed, DemoScale scale, CancellationToken cancellationToken)
+    {
+        foreach (var p in DemoFab.Products)
+        {
+            if (!DemoFab.GenerateElectricalTests(seed, scale).Any(t => t.Product == p.Code))
+            {
+                LogNoElectricalTests(p.Code);
+                continue;
+            }
+
+            using var buffer = new MemoryStream();
+            await using (var text = new StreamWriter(buffer, new UTF8Encoding(false), 64 * 1024, leaveOpen: true))
+            {
+                DemoFab.WriteElectricalTestsCsv(text, p.Code, seed, scale);
+            }
+
+            buffer.Position = 0;
+            var outcome = await calibrate.RunAsync(buffer, new CalibrateModel.Request(
+                "demo: invented electrical tests of the invented demo fab", "demo loader", $"demo-electrical-{p.Code}.csv", false,
+                CalibrateModel.DefaultMeasurementSdMv), cancellationToken);
+            if (outcome.Result is { } r)
+            {
+                LogCalibrated(p.Code, r.Observations, r.RmsResidualBeforeMv, r.RmsResidualAfterMv);
+            }
+            else
+            {
+                LogCalibrationFailed(p.Code, string.Join("; ", outcome.Rejected!.Errors.Take(3).Select(e => $"row {e.Row} {e.Column}: {e.Reason}")));
+            }
         }
     }
 
@@ -96,6 +130,15 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Demo: loaded {Rows} site rows in {Seconds:0.0} s")]
     private partial void LogLoaded(int rows, double seconds);
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Demo: calibrated {Product} on {Wafers} invented electrical tests, rms residual {Before:0.0} → {After:0.0} mV")]
+    private partial void LogCalibrated(string product, int wafers, double before, double after);
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Demo: no lot of {Product} has reached electrical test in this window (18 days after its profile); it stays on the physics defaults")]
+    private partial void LogNoElectricalTests(string product);
+
+    [LoggerMessage(Level = LogLevel.Error, Message = "Demo: the invented electrical tests of {Product} were rejected: {First}")]
+    private partial void LogCalibrationFailed(string product, string first);
 
     [LoggerMessage(Level = LogLevel.Error, Message = "Demo: the generated data were rejected ({Errors} errors): {First}")]
     private partial void LogFailed(int errors, string first);

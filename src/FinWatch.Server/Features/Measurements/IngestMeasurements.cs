@@ -23,6 +23,7 @@ public sealed class IngestMeasurements(
         var started = Stopwatch.GetTimestamp();
         var products = await LoadProductsAsync(o.PredictShifts, cancellationToken);
         var validator = new RowValidator(products, clock.GetUtcNow(), TimeSpan.FromMinutes(o.FutureToleranceMinutes));
+        var productsById = products.Values.ToDictionary(p => p.Id);
 
         using var turn = await gate.EnterAsync(cancellationToken);
         await using var writer = await SqliteSiteWriter.BeginAsync(db, source, label, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
@@ -49,8 +50,9 @@ public sealed class IngestMeasurements(
             }
         }
 
-        // Reading, validating, deriving and predicting run on one core while the inserts run on the other; the bounded
-        // channel keeps the reader at most a few thousand rows ahead, so memory stays flat for any file size.
+        // Reading, validating and deriving run on one core while predicting and inserting run on the other (the reading
+        // stage is the slower one, so the prediction goes with the inserts); the bounded channel keeps the reader at most
+        // a few thousand rows ahead, so memory stays flat for any file size.
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken);
         var channel = Channel.CreateBounded<ValidatedRow>(new BoundedChannelOptions(4096) { SingleReader = true, SingleWriter = true });
         var producer = Task.Run(() => ValidateAllAsync(rows, validator, channel.Writer, stop.Token), stop.Token);
@@ -71,6 +73,11 @@ public sealed class IngestMeasurements(
                 if (site is null)
                 {
                     continue;
+                }
+
+                if (errorCount == 0)
+                {
+                    site.Predicted = RowValidator.Predict(productsById[site.ProductId], site);
                 }
 
                 switch (writer.Insert(site))
@@ -188,9 +195,11 @@ public sealed class IngestMeasurements(
     private async Task<IReadOnlyDictionary<string, ProductRef>> LoadProductsAsync(bool predict, CancellationToken cancellationToken)
     {
         var list = await db.Products.AsNoTracking().ToListAsync(cancellationToken);
+        var calibrations = predict ? await ProductModels.CurrentCalibrationsAsync(db, cancellationToken) : [];
         return list.ToDictionary(
             p => p.Code,
-            p => new ProductRef(p.Id, p.Code, p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate, predict ? models.TryFor(p) : null),
+            p => new ProductRef(p.Id, p.Code, p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate,
+                predict ? models.TryFor(p, calibrations.GetValueOrDefault(p.Id)) : null),
             StringComparer.Ordinal);
     }
 }

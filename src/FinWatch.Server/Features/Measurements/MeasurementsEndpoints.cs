@@ -35,7 +35,7 @@ public static class MeasurementsEndpoints
     private static async Task<Results<Ok<IngestAccepted>, ProblemHttpResult>> IngestJsonAsync(
         HttpContext http, IngestMeasurements ingest, IOptions<IngestOptions> options, CancellationToken cancellationToken)
     {
-        AllowLargeBody(http, options.Value);
+        AllowLargeBody(http, options.Value.MaxBodyBytes);
         var rows = JsonRowSource.ReadAsync(http.Request.Body, cancellationToken);
         return ToResult(await ingest.RunAsync(rows, "api-json", null, cancellationToken));
     }
@@ -43,8 +43,7 @@ public static class MeasurementsEndpoints
     private static async Task<Results<Ok<IngestAccepted>, ProblemHttpResult>> IngestCsvAsync(
         HttpContext http, IngestMeasurements ingest, IOptions<IngestOptions> options, CancellationToken cancellationToken)
     {
-        AllowLargeBody(http, options.Value);
-        var (stream, name) = await OpenCsvAsync(http.Request, cancellationToken);
+        var (stream, name) = await OpenCsvAsync(http, options.Value.MaxBodyBytes, cancellationToken);
         if (stream is null)
         {
             return TypedResults.Problem(Rejection(new IngestRejected(0, 1,
@@ -55,9 +54,11 @@ public static class MeasurementsEndpoints
         return ToResult(await ingest.RunAsync(rows, "api-csv", name, cancellationToken));
     }
 
-    /// <summary>The request body, or the first file part of a multipart form, read as it arrives.</summary>
-    private static async Task<(Stream? Stream, string? Name)> OpenCsvAsync(HttpRequest request, CancellationToken cancellationToken)
+    /// <summary>The request body, or the first file part of a multipart form, read as it arrives, with the body limit raised to <paramref name="maxBodyBytes"/>.</summary>
+    public static async Task<(Stream? Stream, string? Name)> OpenCsvAsync(HttpContext http, long maxBodyBytes, CancellationToken cancellationToken)
     {
+        AllowLargeBody(http, maxBodyBytes);
+        var request = http.Request;
         if (!MediaTypeHeaderValue.TryParse(request.ContentType, out var type)
             || !type.MediaType.Equals("multipart/form-data", StringComparison.OrdinalIgnoreCase))
         {
@@ -82,11 +83,11 @@ public static class MeasurementsEndpoints
         return (null, null);
     }
 
-    private static void AllowLargeBody(HttpContext http, IngestOptions options)
+    private static void AllowLargeBody(HttpContext http, long maxBodyBytes)
     {
         if (http.Features.Get<IHttpMaxRequestBodySizeFeature>() is { IsReadOnly: false } limit)
         {
-            limit.MaxRequestBodySize = options.MaxBodyBytes;
+            limit.MaxRequestBodySize = maxBodyBytes;
         }
     }
 

@@ -95,16 +95,20 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
             CornerRadiusNm = r,
             LinerThicknessNm = liner,
             Derived = DerivedFin.From(wt, wb, h, r, product.Faces),
-            Predicted = Predict(product, wt, wb, h, r),
         };
     }
 
     private static string? Cell(string?[] cells, IngestColumn column) => cells[(int)column];
 
-    // The shifts need the whole profile; the gate dielectric is the product's (the liner is outside the gate, A.6).
-    private static PredictedShifts? Predict(ProductRef product, double? wt, double? wb, double? h, double? r)
+    /// <summary>
+    /// The predicted shifts of a valid site under its product's model, or null without a model or a whole profile. The
+    /// gate dielectric is the product's (the liner is outside the gate, A.6). Kept apart from <see cref="Validate"/> so
+    /// the ingest can run it on the storing core, which has time to spare, instead of the reading core, which has none.
+    /// </summary>
+    public static PredictedShifts? Predict(ProductRef product, SiteRecord site)
     {
-        if (product.Model is not { } model || wt is not { } top || wb is not { } bottom || h is not { } height || r is not { } radius)
+        if (product.Model is not { } model || site.TopWidthNm is not { } top || site.BottomWidthNm is not { } bottom
+            || site.FinHeightNm is not { } height || site.CornerRadiusNm is not { } radius)
         {
             return null;
         }
@@ -194,8 +198,7 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
             return null;
         }
 
-        if (!TryParseUtcFast(value, out var at)
-            && (!DateTimeOffset.TryParse(value, CultureInfo.InvariantCulture, DateTimeStyles.None, out at) || !HasZone(value)))
+        if (!TryParseZonedTime(value, out var at))
         {
             errors.Add(RowError.For(row, "measured_at", value,
                 "not an ISO 8601 time with a zone, such as 2026-11-03T14:05:00Z or 2026-11-03T15:05:00+01:00"));
@@ -217,6 +220,11 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
 
         return at.ToUniversalTime();
     }
+
+    /// <summary>An ISO 8601 time with a zone ("Z" or an offset); a date alone or a local time is refused as ambiguous.</summary>
+    public static bool TryParseZonedTime(string value, out DateTimeOffset at) =>
+        TryParseUtcFast(value, out at)
+        || (DateTimeOffset.TryParse(value, CultureInfo.InvariantCulture, DateTimeStyles.None, out at) && HasZone(value));
 
     // The form metrology tools write, 2026-11-03T14:05:00Z, parsed without the general parser (it is the hot path of a
     // million-row file); anything else goes through DateTimeOffset.TryParse.

@@ -24,5 +24,6 @@ public sealed class SiteRecord
     public double? CornerRadiusNm { get; init; }
     public double? LinerThicknessNm { get; init; }
     public DerivedFin Derived { get; init; }
-    public PredictedShifts? Predicted { get; init; }
+    /// <summary>Set by the ingest's storing stage, not by validation (see <see cref="RowValidator.Predict"/>).</summary>
+    public PredictedShifts? Predicted { get; set; }
 }

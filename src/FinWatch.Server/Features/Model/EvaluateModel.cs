@@ -9,6 +9,11 @@ namespace FinWatch.Server.Features.Model;
 /// </summary>
 public static class EvaluateModel
 {
+    /// <summary>The caution shown with every prediction made under a product's parameter set (predict, sensitivities, calibrations, stored shifts).</summary>
+    public const string PredictionCaution =
+        "Engineering estimate from the analytic model of fin-model.md under the product's current parameter set (physics defaults until a calibration exists): shifts relative to the product's nominal fin, not measured thresholds; do not use it in place of electrical test or the fab's own procedures.";
+
+    /// <summary>The caution of the whole-working evaluation, which always uses the uncalibrated physics defaults.</summary>
     public const string Caution =
         "Engineering estimate from the analytic model of fin-model.md (mid-gap gate, uncalibrated physics defaults); compare shifts against the nominal fin, not absolute values, and do not use it in place of electrical test or the fab's own procedures.";
 

@@ -60,7 +60,7 @@ public static class PredictEndpoints
             return TypedResults.ValidationProblem(errors);
         }
 
-        var model = models.For(product!);
+        var model = await models.ForAsync(db, product!, cancellationToken);
         var nominal = model.Parameters.Nominal;
         var fin = nominal with
         {
@@ -73,7 +73,7 @@ public static class PredictEndpoints
         static double? F(double v) => double.IsFinite(v) ? v : null;
         return TypedResults.Ok(new PredictResponse(product!.Code, F(p.DeltaThresholdLinMv), F(p.DeltaThresholdSatMv),
             F(p.DeltaSwingLinMvPerDecade), F(p.DeltaDiblMvPerV), C(p.LinearLin), C(p.LinearSat), [.. EvaluateModel.Describe(p.Warnings)],
-            p.ParameterSetName, p.ParameterSetVersion, p.CodeVersion, EvaluateModel.Caution));
+            p.ParameterSetName, p.ParameterSetVersion, p.CodeVersion, EvaluateModel.PredictionCaution));
     }
 
     private static async Task<Results<Ok<SensitivitiesResponse>, ValidationProblem>> SensitivitiesAsync(
@@ -85,9 +85,9 @@ public static class PredictEndpoints
             return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["product"] = [$"'{product}' is not a product code"] });
         }
 
-        var model = models.For(p);
+        var model = await models.ForAsync(db, p, cancellationToken);
         var rows = model.Sensitivities.Rows.Select(row => new SensitivityRowResponse(
             Inputs[row.Parameter].Input, Inputs[row.Parameter].Unit, row.ThresholdLinMv, row.ThresholdSatMv, row.SwingLinMvPerDecade, row.DiblMvPerV)).ToList();
-        return TypedResults.Ok(new SensitivitiesResponse(p.Code, rows, model.Parameters.Name, model.Parameters.Version, ThresholdModel.CodeVersion, EvaluateModel.Caution));
+        return TypedResults.Ok(new SensitivitiesResponse(p.Code, rows, model.Parameters.Name, model.Parameters.Version, ThresholdModel.CodeVersion, EvaluateModel.PredictionCaution));
     }
 }

@@ -51,6 +51,29 @@ public class DemoLoaderTests
     }
 
     [Fact]
+    public async Task Demo_LongEnoughWindow_CalibratesEachProductOnItsInventedElectricalTests()
+    {
+        // Lots reach electrical test 18 days after their profile, so a 21-day window has tested lots of both products.
+        using var factory = new FinWatchAppFactory()
+            .With("FinWatch:Demo:Enabled", "true")
+            .With("FinWatch:Demo:Days", "21")
+            .With("FinWatch:Demo:LotsPerDay", "2");
+        using var client = factory.CreateClient();
+        Assert.Equal("loaded", await WaitForDemoAsync(factory));
+        var sets = await factory.QueryAsync(db => db.ModelParameterSets.ToListAsync());
+        Assert.Equal(2, sets.Count);
+        Assert.All(sets, s =>
+        {
+            Assert.Equal(1, s.Version);
+            Assert.Equal("demo loader", s.CreatedBy);
+            // The tests are the model under an invented truth plus 4 mV of wafer noise: the fit explains them to about that noise.
+            Assert.True(s.RmsResidualAfterMv < 8, $"rms after {s.RmsResidualAfterMv} mV");
+            Assert.True(s.RmsResidualBeforeMv > s.RmsResidualAfterMv);
+        });
+        Assert.Equal(sets.Sum(s => s.Observations), await factory.QueryAsync(db => db.ElectricalTests.CountAsync()));
+    }
+
+    [Fact]
     public async Task Demo_DatabaseWithProducts_IsNotLoadedAgain()
     {
         string path;

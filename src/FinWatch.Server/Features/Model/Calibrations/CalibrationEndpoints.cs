@@ -1,0 +1,71 @@
+using System.Globalization;
+using FinWatch.Data;
+using FinWatch.Server.Features.Measurements;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Server.Features.Model.Calibrations;
+
+public static class CalibrationEndpoints
+{
+    /// <summary>Largest electrical-test file accepted, bytes (about 100,000 wafers).</summary>
+    public const long MaxBodyBytes = 8 * 1024 * 1024;
+
+    public static IServiceCollection AddCalibrations(this IServiceCollection services) => services.AddScoped<CalibrateModel>();
+
+    public static IEndpointRouteBuilder MapCalibrations(this IEndpointRouteBuilder app)
+    {
+        var group = app.MapGroup("/api/model/calibrations").WithTags("Model");
+        group.MapPost("/", CalibrateAsync)
+            .Accepts<IFormFile>("text/csv", "multipart/form-data")
+            .WithSummary("Fit the product's calibration (fin-model.md G.3) to an electrical-test CSV; stores the next parameter-set version unless preview=true");
+        group.MapGet("/", HistoryAsync).WithSummary("A product's calibrations, newest (current) first");
+        return app;
+    }
+
+    private static async Task<Results<Ok<CalibrationResponse>, Created<CalibrationResponse>, ProblemHttpResult>> CalibrateAsync(
+        HttpContext http, CalibrateModel calibrate, string? reason, bool? preview, double? measurementSdMv, CancellationToken cancellationToken)
+    {
+        if (measurementSdMv is { } sd && !(sd >= 0.1 && sd <= 100))
+        {
+            return TypedResults.Problem(MeasurementsEndpoints.Rejection(new IngestRejected(0, 1,
+                [RowError.For(0, "measurementSdMv", sd.ToString(CultureInfo.InvariantCulture), "the threshold's test uncertainty is 0.1 to 100 mV")])));
+        }
+
+        var (stream, name) = await MeasurementsEndpoints.OpenCsvAsync(http, MaxBodyBytes, cancellationToken);
+        if (stream is null)
+        {
+            return TypedResults.Problem(MeasurementsEndpoints.Rejection(new IngestRejected(0, 1,
+                [RowError.For(1, null, null, "the multipart form has no file part; send the CSV as a form file or as the request body")])));
+        }
+
+        var who = http.User.Identity?.Name ?? "not signed in";
+        var outcome = await calibrate.RunAsync(stream, new CalibrateModel.Request(reason, who, name, preview ?? false,
+            measurementSdMv ?? CalibrateModel.DefaultMeasurementSdMv), cancellationToken);
+        if (outcome.Rejected is { } rejected)
+        {
+            return TypedResults.Problem(MeasurementsEndpoints.Rejection(rejected));
+        }
+
+        var result = outcome.Result!;
+        return result.Stored
+            ? TypedResults.Created($"/api/model/calibrations?product={Uri.EscapeDataString(result.Product)}", result)
+            : TypedResults.Ok(result);
+    }
+
+    private static async Task<Results<Ok<CalibrationHistoryResponse>, ValidationProblem>> HistoryAsync(
+        string? product, FinWatchDbContext db, ProductModels models, CancellationToken cancellationToken)
+    {
+        var p = product is null ? null : await db.Products.AsNoTracking().SingleOrDefaultAsync(x => x.Code == product, cancellationToken);
+        if (p is null)
+        {
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["product"] = [$"'{product}' is not a product code"] });
+        }
+
+        var sets = await db.ModelParameterSets.AsNoTracking().Where(s => s.ProductId == p.Id).OrderByDescending(s => s.Version).ToListAsync(cancellationToken);
+        var prior = ProductModels.ParametersOf(p);
+        var list = sets.Select(s => CalibrateModel.Describe(p, s, prior, models.For(p, s).Parameters, s.Version, null,
+            DateTimeOffset.FromUnixTimeMilliseconds(s.CreatedAtMs))).ToList();
+        return TypedResults.Ok(new CalibrationHistoryResponse(p.Code, list, EvaluateModel.PredictionCaution));
+    }
+}

@@ -1,0 +1,171 @@
+using System.Globalization;
+using FinWatch.Server.Features.Measurements;
+
+namespace FinWatch.Server.Features.Model.Calibrations;
+
+/// <summary>
+/// Reads an electrical-test CSV for calibration: one row per wafer, columns <c>lot_id</c>, <c>wafer_slot</c>,
+/// <c>product</c>, <c>vt_lin_v</c>, <c>vt_sat_v</c>, <c>tested_at</c> (any order, header required). Every bad cell is
+/// reported with its row, column and value; rows are numbered as in the file, the header being row 1.
+/// </summary>
+public static class ElectricalTestCsv
+{
+    public static readonly string[] Columns = ["lot_id", "wafer_slot", "product", "vt_lin_v", "vt_sat_v", "tested_at"];
+
+    /// <summary>Plausible threshold voltages, V: wider than any FinFET, narrow enough to catch mV typed as V.</summary>
+    public const double MinVtV = -1.0, MaxVtV = 2.0;
+
+    private static readonly DateTimeOffset Earliest = new(2000, 1, 1, 0, 0, 0, TimeSpan.Zero);
+
+    /// <summary>Reads and validates the whole file; the rows are returned only when there is no error.</summary>
+    public static async Task<(List<ElectricalTestRow> Rows, List<RowError> Errors)> ReadAsync(
+        Stream stream, DateTimeOffset now, CancellationToken cancellationToken)
+    {
+        var rows = new List<ElectricalTestRow>();
+        var errors = new List<RowError>();
+        using var csv = new CsvRecordReader(stream);
+        var fields = new List<string>(Columns.Length);
+        try
+        {
+            if (!await csv.ReadRecordAsync(fields, cancellationToken))
+            {
+                errors.Add(RowError.For(1, null, null, $"the file is empty; expected a header row: {string.Join(',', Columns)}"));
+                return (rows, errors);
+            }
+
+            var map = MapHeader(fields, errors);
+            if (errors.Count > 0)
+            {
+                return (rows, errors);
+            }
+
+            var seen = new Dictionary<(string, int), int>();
+            while (await csv.ReadRecordAsync(fields, cancellationToken))
+            {
+                var row = csv.Records;
+                if (fields.Count != map.Length)
+                {
+                    errors.Add(RowError.For(row, null, null, $"the row has {fields.Count} fields but the header has {map.Length}"));
+                    continue;
+                }
+
+                string? Cell(string column)
+                {
+                    var i = Array.IndexOf(map, column);
+                    var v = i < fields.Count ? fields[i].Trim() : "";
+                    return v.Length == 0 ? null : v;
+                }
+
+                if (Parse(row, Cell, now, errors) is { } parsed)
+                {
+                    if (seen.TryGetValue((parsed.LotId, parsed.WaferSlot), out var first))
+                    {
+                        errors.Add(RowError.For(row, "wafer_slot", parsed.WaferSlot.ToString(CultureInfo.InvariantCulture),
+                            $"lot {parsed.LotId} wafer {parsed.WaferSlot} already appears in row {first}; give one result per wafer (the mean of its test structures)"));
+                        continue;
+                    }
+
+                    seen[(parsed.LotId, parsed.WaferSlot)] = row;
+                    rows.Add(parsed);
+                }
+            }
+        }
+        catch (CsvFormatException e)
+        {
+            errors.Add(RowError.For(e.Row, null, null, $"{e.Message} (line {e.Line})"));
+        }
+
+        if (errors.Count == 0 && rows.Count == 0)
+        {
+            errors.Add(RowError.For(1, null, null, "the file has a header row but no data rows"));
+        }
+
+        return (rows, errors);
+    }
+
+    private static string[] MapHeader(List<string> header, List<RowError> errors)
+    {
+        var map = header.Select(h => h.Trim().ToLowerInvariant()).ToArray();
+        for (var i = 0; i < map.Length; i++)
+        {
+            if (!Columns.Contains(map[i]))
+            {
+                errors.Add(RowError.For(1, header[i], header[i], $"unknown column; the columns are {string.Join(", ", Columns)}"));
+            }
+            else if (Array.IndexOf(map, map[i]) != i)
+            {
+                errors.Add(RowError.For(1, header[i], header[i], "the column appears twice"));
+            }
+        }
+
+        foreach (var c in Columns.Where(c => !map.Contains(c)))
+        {
+            errors.Add(RowError.For(1, c, null, "the header lacks this required column"));
+        }
+
+        return map;
+    }
+
+    private static ElectricalTestRow? Parse(int row, Func<string, string?> cell, DateTimeOffset now, List<RowError> errors)
+    {
+        var before = errors.Count;
+        var lot = cell("lot_id");
+        if (lot is null)
+        {
+            errors.Add(RowError.For(row, "lot_id", null, "a value is required"));
+        }
+        else if (lot.Length > RowValidator.MaxTextLength)
+        {
+            errors.Add(RowError.For(row, "lot_id", lot, $"longer than {RowValidator.MaxTextLength} characters"));
+        }
+
+        var slotText = cell("wafer_slot");
+        if (!int.TryParse(slotText, NumberStyles.None, CultureInfo.InvariantCulture, out var slot) || slot < 1 || slot > RowValidator.MaxSlot)
+        {
+            errors.Add(RowError.For(row, "wafer_slot", slotText, $"a whole number from 1 to {RowValidator.MaxSlot} is required"));
+        }
+
+        var product = cell("product");
+        if (product is null)
+        {
+            errors.Add(RowError.For(row, "product", null, "a value is required"));
+        }
+
+        var lin = Voltage(row, "vt_lin_v", cell("vt_lin_v"), errors);
+        var sat = Voltage(row, "vt_sat_v", cell("vt_sat_v"), errors);
+        var atText = cell("tested_at");
+        DateTimeOffset at = default;
+        if (atText is null)
+        {
+            errors.Add(RowError.For(row, "tested_at", null, "a value is required"));
+        }
+        else if (!RowValidator.TryParseZonedTime(atText, out at))
+        {
+            errors.Add(RowError.For(row, "tested_at", atText, "not an ISO 8601 time with a zone, such as 2026-11-20T09:30:00Z"));
+        }
+        else if (at > now.AddMinutes(5) || at < Earliest)
+        {
+            errors.Add(RowError.For(row, "tested_at", atText, $"the time lies in the future (server clock {now:u}) or before 2000"));
+        }
+
+        return errors.Count > before ? null : new ElectricalTestRow(row, lot!, slot, product!, lin!.Value, sat!.Value, at.ToUniversalTime());
+    }
+
+    private static double? Voltage(int row, string column, string? text, List<RowError> errors)
+    {
+        if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var v) || !double.IsFinite(v))
+        {
+            errors.Add(RowError.For(row, column, text, "a number in V is required (invariant culture, '.' as the decimal point)"));
+            return null;
+        }
+
+        if (v < MinVtV || v > MaxVtV)
+        {
+            errors.Add(RowError.For(row, column, text,
+                string.Create(CultureInfo.InvariantCulture, $"outside {MinVtV} to {MaxVtV} V; thresholds are given in V, not mV")));
+            return null;
+        }
+
+        return v;
+    }
+}
