@@ -65,7 +65,18 @@ public static class QuadratureSliceModel
     /// <param name="input">The fin and calibration inputs; <see cref="SliceModelInput.SliceCount"/> fixes the end slices.</param>
     /// <returns>Absolute thresholds, swings and DIBL; NaN values with <see cref="SliceModelResult.PunchThrough"/> when the barrier is gone.</returns>
     /// <exception cref="ArgumentOutOfRangeException">An input is out of its stated range.</exception>
-    public static SliceModelResult Evaluate(SliceModelInput input)
+    public static SliceModelResult Evaluate(SliceModelInput input) => Evaluate(input, null);
+
+    /// <summary>
+    /// As <see cref="Evaluate(SliceModelInput)"/>, taking λ_W(w) and the long-channel threshold at width w from
+    /// <paramref name="table"/> when it was built for the input's EOT, doping, n_s,crit, κ_QC and surface and w lies in
+    /// its range (within 1e-7 V of the direct values over H.1, tests); otherwise each node is computed directly.
+    /// </summary>
+    /// <param name="input">The fin and calibration inputs.</param>
+    /// <param name="table">A table from <see cref="BuildWidthTable"/>, or null.</param>
+    /// <returns>Absolute thresholds, swings and DIBL; NaN values with <see cref="SliceModelResult.PunchThrough"/> when the barrier is gone.</returns>
+    /// <exception cref="ArgumentOutOfRangeException">An input is out of its stated range.</exception>
+    public static SliceModelResult Evaluate(SliceModelInput input, WidthTable? table)
     {
         ArgumentNullException.ThrowIfNull(input);
         SliceModel.ValidateInput(input);
@@ -83,7 +94,7 @@ public static class QuadratureSliceModel
             throw new ArgumentOutOfRangeException(nameof(input), "The straight-sidewall width must stay positive.");
         }
 
-        var ctx = new Context(input);
+        var ctx = new Context(input, table is not null && table.Matches(input) ? table : null);
         var guess = new Guess(double.NaN, double.NaN, double.NaN, double.NaN);
 
         // The end slices of E.1: the widest one gives min L/λ (λ grows with w, w is linear in z); the top one feeds E.4.
@@ -307,6 +318,47 @@ public static class QuadratureSliceModel
         return sum;
     }
 
+    /// <summary>
+    /// Tabulates λ_W(w) and the long-channel threshold at width w (the parts of a node that depend on the width alone)
+    /// for the input's EOT, doping, n_s,crit, κ_QC and surface, on a uniform grid of <paramref name="stepNm"/> over
+    /// [<paramref name="minWidthNm"/>, <paramref name="maxWidthNm"/>]. Building takes about a millisecond.
+    /// </summary>
+    /// <param name="input">Any input with the constants the table is for (profile, length and drain voltages are not used).</param>
+    /// <param name="minWidthNm">Smallest tabulated width, nm; &gt; 0.</param>
+    /// <param name="maxWidthNm">Largest tabulated width, nm; &gt; <paramref name="minWidthNm"/>.</param>
+    /// <param name="stepNm">Grid step, nm; default 0.01 (cubic interpolation error ≈ 1e-9 V).</param>
+    /// <returns>The table.</returns>
+    public static WidthTable BuildWidthTable(SliceModelInput input, double minWidthNm = 1, double maxWidthNm = 40, double stepNm = 0.01)
+    {
+        ArgumentNullException.ThrowIfNull(input);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(minWidthNm);
+        ArgumentOutOfRangeException.ThrowIfLessThanOrEqual(maxWidthNm, minWidthNm);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(stepNm);
+        var ctx = new Context(input);
+        int n = (int)Math.Ceiling((maxWidthNm - minWidthNm) / stepNm) + 1;
+        var lambdas = new double[n];
+        var baseVts = new double[n];
+        double guess = double.NaN;
+        for (int i = 0; i < n; i++)
+        {
+            (lambdas[i], baseVts[i]) = ctx.Direct(minWidthNm + (i * stepNm), guess);
+            guess = lambdas[i];
+        }
+
+        // λ of the top gate's film 2H (B.3) is the same root at film thicknesses 2·(15–300) nm: a coarser second grid.
+        const double filmMin = 30, filmStep = 0.05;
+        int m = (int)Math.Ceiling((600 - filmMin) / filmStep) + 1;
+        var films = new double[m];
+        guess = double.NaN;
+        for (int i = 0; i < m; i++)
+        {
+            films[i] = ctx.Direct(filmMin + (i * filmStep), guess).LambdaW;
+            guess = films[i];
+        }
+
+        return new WidthTable(input, minWidthNm, stepNm, lambdas, baseVts, filmMin, filmStep, films);
+    }
+
     private readonly record struct Guess(double W, double Lambda, double WPrev, double LambdaPrev);
 
     private readonly record struct Node(double VtLo, double VtHi, double NLo, double NHi, double Ratio, bool Punch);
@@ -316,9 +368,11 @@ public static class QuadratureSliceModel
     {
         private readonly double _eot, _length, _doping, _barrier, _vdsLo, _vdsHi, _lambdaH, _a, _phiConst, _qcMult;
         private readonly double _x0, _x1, _c0, _c1, _nClPerNm;
+        private readonly WidthTable? _table;
 
-        public Context(SliceModelInput input)
+        public Context(SliceModelInput input, WidthTable? table = null)
         {
+            _table = table;
             _eot = input.EotNm;
             _length = input.GateLengthNm;
             _doping = input.DopingPerCm3;
@@ -334,7 +388,9 @@ public static class QuadratureSliceModel
             _c1 = sets[1].Degeneracy * (sets[1].DensityOfStatesMassRatio * PhysicalConstants.ElectronMassKg * kT / (Math.PI * hbar * hbar));
             _nClPerNm = 1e-9 * QuantumConfinement.BulkEffectiveDensityPerM3;
             _qcMult = input.QcMultiplier;
-            _lambdaH = input.Faces == GatedFaces.TriGate ? DoubleGateNm(2 * input.Profile.HeightNm, input.EotNm, double.NaN) : double.PositiveInfinity;
+            _lambdaH = input.Faces != GatedFaces.TriGate ? double.PositiveInfinity
+                : table is not null && table.TryInterpolateFilm(2 * input.Profile.HeightNm, out double tabled) ? tabled
+                : DoubleGateNm(2 * input.Profile.HeightNm, input.EotNm, double.NaN);
             _a = PhysicalConstants.ElementaryChargeC * input.DopingPerCm3
                 / (2 * PhysicalConstants.SiliconPermittivityFPerCm * PhysicalConstants.ThermalVoltageV) * 1e-14;
             _phiConst = 2 * input.CriticalSheetDensityPerCm2 / PhysicalConstants.IntrinsicDensityPerCm3;
@@ -348,19 +404,38 @@ public static class QuadratureSliceModel
             return _qcMult * PhysicalConstants.ThermalVoltageV * Math.Log(w * _nClPerNm / nQm);
         }
 
+        /// <summary>λ_W(w) by its exact root, and the long-channel threshold φ + depletion + κ_QC·ΔV_T,QC at width w (E.1).</summary>
+        public (double LambdaW, double BaseVt) Direct(double w, double guessLambda) =>
+            (DoubleGateNm(w, _eot, guessLambda), w <= 100 ? LongChannelV(w) : double.NaN);
+
+        private double LongChannelV(double w)
+        {
+            double weffCm = EffectiveWidthSeriesNm(w, _a) * PhysicalConstants.CmPerNm;
+            double phi = PhysicalConstants.ThermalVoltageV * Math.Log(_phiConst / weffCm);
+            return phi + SliceModel.DepletionTermV(w, _eot, _doping) + QcShiftV(w);
+        }
+
         public Node At(double w, ref Guess guess)
         {
+            if (_table is not null && _table.TryInterpolate(w, out double tableLambdaW, out double tableBaseVt))
+            {
+                return Finish(tableLambdaW, tableBaseVt);
+            }
+
             // Start Newton from the previous nodes' λ_W, extrapolated linearly in w when two are known.
             double start = double.IsFinite(guess.LambdaPrev) && guess.WPrev != guess.W
                 ? guess.Lambda + ((w - guess.W) * (guess.Lambda - guess.LambdaPrev) / (guess.W - guess.WPrev))
                 : guess.Lambda;
             double lambdaW = DoubleGateNm(w, _eot, start);
             guess = new Guess(w, lambdaW, guess.W, guess.Lambda);
+            return Finish(lambdaW, LongChannelV(w));
+        }
+
+        // The height-dependent and drain-dependent rest of a node: λ with the top gate (B.3), L/λ and the B.5 roll-off.
+        private Node Finish(double lambdaW, double baseVt)
+        {
             double lambda = double.IsPositiveInfinity(_lambdaH) ? lambdaW : ScaleLength.CombineNm(lambdaW, _lambdaH);
             double ratio = _length / lambda;
-            double weffCm = EffectiveWidthSeriesNm(w, _a) * PhysicalConstants.CmPerNm;
-            double phi = PhysicalConstants.ThermalVoltageV * Math.Log(_phiConst / weffCm);
-            double baseVt = phi + SliceModel.DepletionTermV(w, _eot, _doping) + QcShiftV(w);
             bool usable = ratio > 0.05 && ratio <= 700;
             double sh2 = usable ? Math.Sinh(0.5 * ratio) : double.NaN, ch2 = usable ? Math.Sqrt(1 + (sh2 * sh2)) : double.NaN;
             ShortChannelThreshold lo = ShortChannel.ThresholdClosedForm(_barrier, _vdsLo, ratio, 1, sh2, ch2);

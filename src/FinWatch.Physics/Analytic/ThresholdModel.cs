@@ -29,6 +29,9 @@ public sealed class ThresholdModel
     public const double NonlinearAbsoluteMv = 5.0;
 
     private readonly SliceModelResult _nominal;
+
+    // λ_W(w) and V_T,long(w) for the set's EOT and doping, 1–40 nm (records with another EOT are computed directly).
+    private readonly WidthTable _widths;
     private readonly ModelWarnings _setWarnings;
 
     /// <summary>Builds the model for one parameter set and caches its nominal evaluation and sensitivity table.</summary>
@@ -39,7 +42,9 @@ public sealed class ThresholdModel
     {
         ArgumentNullException.ThrowIfNull(parameters);
         Parameters = parameters;
-        _nominal = QuadratureSliceModel.Evaluate(parameters.ToSliceInput(parameters.Nominal));
+        var nominalInput = parameters.ToSliceInput(parameters.Nominal);
+        _widths = QuadratureSliceModel.BuildWidthTable(nominalInput);
+        _nominal = QuadratureSliceModel.Evaluate(nominalInput, _widths);
         if (_nominal.PunchThrough)
         {
             throw new ArgumentException("The nominal fin punches through under this parameter set.", nameof(parameters));
@@ -84,7 +89,7 @@ public sealed class ThresholdModel
         SliceModelResult r;
         try
         {
-            r = QuadratureSliceModel.Evaluate(Parameters.ToSliceInput(fin));
+            r = QuadratureSliceModel.Evaluate(Parameters.ToSliceInput(fin), _widths);
         }
         catch (ArgumentOutOfRangeException)
         {

@@ -50,12 +50,12 @@ public sealed class IngestMeasurements(
             }
         }
 
-        // Reading, validating and deriving run on one core while predicting and inserting run on the other (the reading
-        // stage is the slower one, so the prediction goes with the inserts); the bounded channel keeps the reader at most
-        // a few thousand rows ahead, so memory stays flat for any file size.
+        // Reading, validating, deriving and predicting run on one core while the inserts run on the other (with the
+        // prediction there the two stages take about the same time); the bounded channel keeps the reader at most a few
+        // thousand rows ahead, so memory stays flat for any file size.
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken);
         var channel = Channel.CreateBounded<ValidatedRow>(new BoundedChannelOptions(4096) { SingleReader = true, SingleWriter = true });
-        var producer = Task.Run(() => ValidateAllAsync(rows, validator, channel.Writer, stop.Token), stop.Token);
+        var producer = Task.Run(() => ValidateAllAsync(rows, validator, productsById, channel.Writer, stop.Token), stop.Token);
         try
         {
             await foreach (var (raw, validated, problems) in channel.Reader.ReadAllAsync(cancellationToken))
@@ -73,11 +73,6 @@ public sealed class IngestMeasurements(
                 if (site is null)
                 {
                     continue;
-                }
-
-                if (errorCount == 0)
-                {
-                    site.Predicted = RowValidator.Predict(productsById[site.ProductId], site);
                 }
 
                 switch (writer.Insert(site))
@@ -143,7 +138,8 @@ public sealed class IngestMeasurements(
 
     private sealed record ValidatedRow(RawRow Raw, SiteRecord? Site, List<RowError> Problems);
 
-    private static async Task ValidateAllAsync(IAsyncEnumerable<RawRow> rows, RowValidator validator, ChannelWriter<ValidatedRow> output, CancellationToken cancellationToken)
+    private static async Task ValidateAllAsync(IAsyncEnumerable<RawRow> rows, RowValidator validator, Dictionary<int, ProductRef> products,
+        ChannelWriter<ValidatedRow> output, CancellationToken cancellationToken)
     {
         try
         {
@@ -151,6 +147,11 @@ public sealed class IngestMeasurements(
             {
                 var problems = new List<RowError>(0);
                 var site = validator.Validate(raw, problems);
+                if (site is not null)
+                {
+                    site.Predicted = RowValidator.Predict(products[site.ProductId], site);
+                }
+
                 await output.WriteAsync(new ValidatedRow(raw, site, problems), cancellationToken);
             }
 

@@ -102,8 +102,8 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
 
     /// <summary>
     /// The predicted shifts of a valid site under its product's model, or null without a model or a whole profile. The
-    /// gate dielectric is the product's (the liner is outside the gate, A.6). Kept apart from <see cref="Validate"/> so
-    /// the ingest can run it on the storing core, which has time to spare, instead of the reading core, which has none.
+    /// gate dielectric is the product's (the liner is outside the gate, A.6). Kept apart from <see cref="Validate"/>, which
+    /// only checks and derives, so the ingest decides where in its pipeline the prediction runs.
     /// </summary>
     public static PredictedShifts? Predict(ProductRef product, SiteRecord site)
     {

@@ -24,6 +24,6 @@ public sealed class SiteRecord
     public double? CornerRadiusNm { get; init; }
     public double? LinerThicknessNm { get; init; }
     public DerivedFin Derived { get; init; }
-    /// <summary>Set by the ingest's storing stage, not by validation (see <see cref="RowValidator.Predict"/>).</summary>
+    /// <summary>Set by the ingest after validation (see <see cref="RowValidator.Predict"/>).</summary>
     public PredictedShifts? Predicted { get; set; }
 }
