@@ -63,6 +63,46 @@ public sealed class SensitivityTable
             C(SensitivityParameter.Eot, fin.EotNm - Nominal.EotNm));
     }
 
+    /// <summary>
+    /// Standard deviation of an output from independent random metrology errors of the measured profile (G.4:
+    /// σ² = Sᵀ Σ S), linearised at the nominal. The errors on W_t and W_b map to the basis as
+    /// w_mid = (W_t + W_b)/2 and θ = atan((W_b − W_t)/(2 H_nom)), so Σ = J diag(σ²) Jᵀ and both widths' errors enter
+    /// w_mid and θ with their correlation; H, r and EOT map one to one.
+    /// </summary>
+    /// <param name="output">The output.</param>
+    /// <param name="topWidthSdNm">σ of W_t, nm (≥ 0).</param>
+    /// <param name="bottomWidthSdNm">σ of W_b, nm (≥ 0).</param>
+    /// <param name="heightSdNm">σ of H, nm (≥ 0).</param>
+    /// <param name="cornerRadiusSdNm">σ of r, nm (≥ 0).</param>
+    /// <param name="eotSdNm">σ of EOT, nm (≥ 0; default 0, the product's EOT is not measured per site).</param>
+    /// <returns>σ of the output in its unit.</returns>
+    /// <exception cref="ArgumentOutOfRangeException">A standard deviation is negative or not finite.</exception>
+    public double MetrologySd(ModelOutput output, double topWidthSdNm, double bottomWidthSdNm, double heightSdNm, double cornerRadiusSdNm, double eotSdNm = 0)
+    {
+        foreach (double sd in (ReadOnlySpan<double>)[topWidthSdNm, bottomWidthSdNm, heightSdNm, cornerRadiusSdNm, eotSdNm])
+        {
+            if (!double.IsFinite(sd) || sd < 0)
+            {
+                throw new ArgumentOutOfRangeException(nameof(topWidthSdNm), sd, "Standard deviations must be finite and ≥ 0.");
+            }
+        }
+
+        // dθ/dW_b = −dθ/dW_t = (180/π)·cos²θ_nom/(2 H_nom), in degrees per nm.
+        double cos = Math.Cos(Nominal.TaperDeg * Math.PI / 180);
+        double k = 180 / Math.PI * cos * cos / (2 * Nominal.HeightNm);
+        double vt = topWidthSdNm * topWidthSdNm, vb = bottomWidthSdNm * bottomWidthSdNm;
+        int n = _rows.Length;
+        var covariance = new double[n * n];
+        int w = (int)SensitivityParameter.MidWidth, t = (int)SensitivityParameter.Taper;
+        covariance[(w * n) + w] = 0.25 * (vt + vb);
+        covariance[(t * n) + t] = k * k * (vt + vb);
+        covariance[(w * n) + t] = covariance[(t * n) + w] = 0.5 * k * (vb - vt);
+        covariance[((int)SensitivityParameter.Height * n) + (int)SensitivityParameter.Height] = heightSdNm * heightSdNm;
+        covariance[((int)SensitivityParameter.CornerRadius * n) + (int)SensitivityParameter.CornerRadius] = cornerRadiusSdNm * cornerRadiusSdNm;
+        covariance[((int)SensitivityParameter.Eot * n) + (int)SensitivityParameter.Eot] = eotSdNm * eotSdNm;
+        return Math.Sqrt(Math.Max(0, Sensitivity.PropagateVariance(Gradient(output), covariance)));
+    }
+
     /// <summary>The gradient of one output over the seven basis parameters, in <see cref="SensitivityParameter"/> order.</summary>
     /// <param name="output">The output.</param>
     /// <returns>A new array of seven derivatives.</returns>

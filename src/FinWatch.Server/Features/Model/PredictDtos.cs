@@ -13,7 +13,24 @@ public sealed record PredictRequest
 
     /// <summary>Gate dielectric as EOT; the product's model EOT when not given.</summary>
     [JsonPropertyName("eotNm")] public double? EotNm { get; init; }
+
+    /// <summary>Optional random metrology errors (1 σ, nm) of the measured inputs, propagated to σ of ΔVT (G.4).</summary>
+    [JsonPropertyName("metrologySd")] public MetrologySdRequest? MetrologySd { get; init; }
 }
+
+/// <summary>1 σ random errors of the measured profile, nm; an omitted one counts as 0.</summary>
+public sealed record MetrologySdRequest
+{
+    [JsonPropertyName("topWidthNm")] public double? TopWidthNm { get; init; }
+    [JsonPropertyName("bottomWidthNm")] public double? BottomWidthNm { get; init; }
+    [JsonPropertyName("heightNm")] public double? HeightNm { get; init; }
+    [JsonPropertyName("cornerRadiusNm")] public double? CornerRadiusNm { get; init; }
+}
+
+/// <summary>σ of the predicted ΔVT from the metrology errors, mV (linearised at the nominal).</summary>
+public sealed record ShiftUncertaintyResponse(
+    [property: JsonPropertyName("deltaVtLinSdMv")] double DeltaVtLinSdMv,
+    [property: JsonPropertyName("deltaVtSatSdMv")] double DeltaVtSatSdMv);
 
 /// <summary>How much each input moved a shift, from the sensitivity table (they sum to the linear estimate).</summary>
 public sealed record ContributionsResponse(
@@ -33,6 +50,7 @@ public sealed record PredictResponse(
     [property: JsonPropertyName("contributionsLinMv")] ContributionsResponse ContributionsLinMv,
     [property: JsonPropertyName("contributionsSatMv")] ContributionsResponse ContributionsSatMv,
     [property: JsonPropertyName("warnings")] IReadOnlyList<string> Warnings,
+    [property: JsonPropertyName("uncertainty")] ShiftUncertaintyResponse? Uncertainty,
     [property: JsonPropertyName("parameterSet")] string ParameterSet,
     [property: JsonPropertyName("parameterSetVersion")] string ParameterSetVersion,
     [property: JsonPropertyName("codeVersion")] string CodeVersion,

@@ -49,6 +49,17 @@ public static class PredictEndpoints
             errors["eotNm"] = ["eotNm is 0 to 10 nm"];
         }
 
+        if (r.MetrologySd is { } m)
+        {
+            foreach (var (name, v) in new[] { ("topWidthNm", m.TopWidthNm), ("bottomWidthNm", m.BottomWidthNm), ("heightNm", m.HeightNm), ("cornerRadiusNm", m.CornerRadiusNm) })
+            {
+                if (v is { } sd && !(sd >= 0 && sd <= 10))
+                {
+                    errors[$"metrologySd.{name}"] = [$"metrologySd.{name} is 0 to 10 nm (one standard deviation)"];
+                }
+            }
+        }
+
         var product = r.Product is null ? null : await db.Products.AsNoTracking().SingleOrDefaultAsync(p => p.Code == r.Product, cancellationToken);
         if (product is null)
         {
@@ -73,7 +84,14 @@ public static class PredictEndpoints
         static double? F(double v) => double.IsFinite(v) ? v : null;
         return TypedResults.Ok(new PredictResponse(product!.Code, F(p.DeltaThresholdLinMv), F(p.DeltaThresholdSatMv),
             F(p.DeltaSwingLinMvPerDecade), F(p.DeltaDiblMvPerV), C(p.LinearLin), C(p.LinearSat), [.. EvaluateModel.Describe(p.Warnings)],
+            r.MetrologySd is { } u ? Uncertainty(model.Sensitivities, u) : null,
             p.ParameterSetName, p.ParameterSetVersion, p.CodeVersion, EvaluateModel.PredictionCaution));
+    }
+
+    private static ShiftUncertaintyResponse Uncertainty(SensitivityTable table, MetrologySdRequest u)
+    {
+        double Sd(ModelOutput output) => table.MetrologySd(output, u.TopWidthNm ?? 0, u.BottomWidthNm ?? 0, u.HeightNm ?? 0, u.CornerRadiusNm ?? 0);
+        return new ShiftUncertaintyResponse(Sd(ModelOutput.ThresholdLin), Sd(ModelOutput.ThresholdSat));
     }
 
     private static async Task<Results<Ok<SensitivitiesResponse>, ValidationProblem>> SensitivitiesAsync(

@@ -39,6 +39,26 @@ public class PredictEndpointsTests : IntegrationTest
     }
 
     [Fact]
+    public async Task Predict_WithMetrologySd_PropagatesItToTheShift()
+    {
+        // Only a height error: σ(ΔVT) = |dVT/dH|·σ_H (G.4 propagation), with dVT,sat/dH from the sensitivities endpoint.
+        var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict", new
+        {
+            product = TestProducts.TriGate, topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, cornerRadiusNm = 2.0,
+            metrologySd = new { heightNm = 1.5 },
+        }));
+        var s = await ReadJsonAsync(await Client.GetAsync($"/api/model/sensitivities?product={TestProducts.TriGate}"));
+        var dH = s.GetProperty("rows").EnumerateArray().Single(x => x.GetProperty("input").GetString() == "height").GetProperty("dVtSatMv").GetDouble();
+        Assert.Equal(Math.Abs(dH) * 1.5, r.GetProperty("uncertainty").GetProperty("deltaVtSatSdMv").GetDouble(), 1e-9);
+
+        var bad = await Client.PostAsJsonAsync("/api/model/predict", new
+        {
+            product = TestProducts.TriGate, topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, metrologySd = new { topWidthNm = -1.0 },
+        });
+        Assert.Equal(HttpStatusCode.BadRequest, bad.StatusCode);
+    }
+
+    [Fact]
     public async Task Predict_RadiusLargerThanTheTopAllows_Warns()
     {
         var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
