@@ -210,3 +210,131 @@ VALUES ('20261202100505_Calibrations', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+CREATE TABLE "chart_contexts" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_chart_contexts" PRIMARY KEY AUTOINCREMENT,
+    "code" TEXT NOT NULL,
+    "title" TEXT NOT NULL,
+    "product_id" INTEGER NOT NULL,
+    "step" TEXT NOT NULL,
+    "parameter" TEXT NOT NULL,
+    "chamber" TEXT NULL,
+    "chart_type" TEXT NOT NULL,
+    "subgroup" TEXT NOT NULL,
+    "rules" TEXT NOT NULL,
+    "reaction_plan" TEXT NOT NULL,
+    "electrical_concern_mv" REAL NOT NULL,
+    "evaluated_through_batch_id" INTEGER NOT NULL,
+    "created_at_ms" INTEGER NOT NULL,
+    "updated_at_ms" INTEGER NOT NULL,
+    CONSTRAINT "FK_chart_contexts_products_product_id" FOREIGN KEY ("product_id") REFERENCES "products" ("id") ON DELETE RESTRICT
+);
+
+CREATE TABLE "feed_events" (
+    "seq" INTEGER NOT NULL CONSTRAINT "PK_feed_events" PRIMARY KEY AUTOINCREMENT,
+    "at_ms" INTEGER NOT NULL,
+    "kind" TEXT NOT NULL,
+    "context_id" INTEGER NOT NULL,
+    "payload" TEXT NOT NULL
+);
+
+CREATE TABLE "alerts" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_alerts" PRIMARY KEY AUTOINCREMENT,
+    "context_id" INTEGER NOT NULL,
+    "rule" TEXT NOT NULL,
+    "state" TEXT NOT NULL,
+    "raised_at_ms" INTEGER NOT NULL,
+    "updated_at_ms" INTEGER NOT NULL,
+    "first_point_id" INTEGER NOT NULL,
+    "last_point_id" INTEGER NOT NULL,
+    "point_count" INTEGER NOT NULL,
+    "lot_id" TEXT NOT NULL,
+    "wafer_slot" INTEGER NULL,
+    "chamber" TEXT NULL,
+    "predicted_dvt_sat_mv" REAL NULL,
+    "severity" TEXT NOT NULL,
+    "severity_rank" INTEGER NOT NULL,
+    "escalated_at_ms" INTEGER NULL,
+    "acknowledged_by" TEXT NULL,
+    "acknowledged_at_ms" INTEGER NULL,
+    "closed_by" TEXT NULL,
+    "closed_at_ms" INTEGER NULL,
+    CONSTRAINT "FK_alerts_chart_contexts_context_id" FOREIGN KEY ("context_id") REFERENCES "chart_contexts" ("id") ON DELETE RESTRICT
+);
+
+CREATE TABLE "chart_points" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_chart_points" PRIMARY KEY AUTOINCREMENT,
+    "context_id" INTEGER NOT NULL,
+    "seq" INTEGER NOT NULL,
+    "batch_id" INTEGER NOT NULL,
+    "measured_at_ms" INTEGER NOT NULL,
+    "lot_id" TEXT NOT NULL,
+    "wafer_slot" INTEGER NULL,
+    "chamber" TEXT NULL,
+    "value" REAL NOT NULL,
+    "n" INTEGER NOT NULL,
+    "sd" REAL NULL,
+    "predicted_dvt_sat_mv" REAL NULL,
+    "limit_version_id" INTEGER NULL,
+    "z" REAL NULL,
+    "signals" TEXT NOT NULL,
+    CONSTRAINT "FK_chart_points_chart_contexts_context_id" FOREIGN KEY ("context_id") REFERENCES "chart_contexts" ("id") ON DELETE RESTRICT
+);
+
+CREATE TABLE "limit_versions" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_limit_versions" PRIMARY KEY AUTOINCREMENT,
+    "context_id" INTEGER NOT NULL,
+    "version" INTEGER NOT NULL,
+    "status" TEXT NOT NULL,
+    "centre" REAL NOT NULL,
+    "sigma" REAL NOT NULL,
+    "subgroup_size" REAL NOT NULL,
+    "points_used" INTEGER NOT NULL,
+    "from_ms" INTEGER NOT NULL,
+    "to_ms" INTEGER NOT NULL,
+    "excluded_json" TEXT NOT NULL,
+    "computed_by" TEXT NOT NULL,
+    "computed_at_ms" INTEGER NOT NULL,
+    "reason" TEXT NOT NULL,
+    "approved_by" TEXT NULL,
+    "approved_at_ms" INTEGER NULL,
+    "approval_comment" TEXT NULL,
+    "effective_from_ms" INTEGER NULL,
+    CONSTRAINT "FK_limit_versions_chart_contexts_context_id" FOREIGN KEY ("context_id") REFERENCES "chart_contexts" ("id") ON DELETE RESTRICT
+);
+
+CREATE TABLE "alert_events" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_alert_events" PRIMARY KEY AUTOINCREMENT,
+    "alert_id" INTEGER NOT NULL,
+    "kind" TEXT NOT NULL,
+    "at_ms" INTEGER NOT NULL,
+    "by" TEXT NOT NULL,
+    "comment" TEXT NOT NULL,
+    "steps_json" TEXT NULL,
+    "point_id" INTEGER NULL,
+    CONSTRAINT "FK_alert_events_alerts_alert_id" FOREIGN KEY ("alert_id") REFERENCES "alerts" ("id") ON DELETE RESTRICT
+);
+
+CREATE INDEX "IX_alert_events_alert_id" ON "alert_events" ("alert_id");
+
+CREATE INDEX "IX_alerts_context_id_rule_state" ON "alerts" ("context_id", "rule", "state");
+
+CREATE INDEX "IX_alerts_state" ON "alerts" ("state");
+
+CREATE UNIQUE INDEX "IX_chart_contexts_code" ON "chart_contexts" ("code");
+
+CREATE INDEX "IX_chart_contexts_product_id_step" ON "chart_contexts" ("product_id", "step");
+
+CREATE INDEX "IX_chart_points_context_id_measured_at_ms" ON "chart_points" ("context_id", "measured_at_ms");
+
+CREATE UNIQUE INDEX "IX_chart_points_context_id_seq" ON "chart_points" ("context_id", "seq");
+
+CREATE INDEX "IX_feed_events_context_id_seq" ON "feed_events" ("context_id", "seq");
+
+CREATE UNIQUE INDEX "IX_limit_versions_context_id_version" ON "limit_versions" ("context_id", "version");
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202111908_LiveMonitor', '10.0.15');
+
+COMMIT;
+

@@ -19,6 +19,12 @@ public abstract class FinWatchDbContext(DbContextOptions options) : DbContext(op
     public DbSet<ModelStamp> ModelStamps => Set<ModelStamp>();
     public DbSet<ModelParameterSet> ModelParameterSets => Set<ModelParameterSet>();
     public DbSet<ElectricalTest> ElectricalTests => Set<ElectricalTest>();
+    public DbSet<ChartContext> ChartContexts => Set<ChartContext>();
+    public DbSet<LimitVersion> LimitVersions => Set<LimitVersion>();
+    public DbSet<ChartPoint> ChartPoints => Set<ChartPoint>();
+    public DbSet<Alert> Alerts => Set<Alert>();
+    public DbSet<AlertEvent> AlertEvents => Set<AlertEvent>();
+    public DbSet<FeedEvent> FeedEvents => Set<FeedEvent>();
 
     protected override void OnModelCreating(ModelBuilder modelBuilder)
     {

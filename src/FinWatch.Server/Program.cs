@@ -1,4 +1,5 @@
 using FinWatch.Server.Features.Model.Calibrations;
+using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Features.About;
 using FinWatch.Server.Features.Demo;
 using FinWatch.Server.Features.Lots;
@@ -17,6 +18,7 @@ builder.AddDemo(args);
 builder.Services.AddMeasurements();
 builder.Services.AddModel();
 builder.Services.AddCalibrations();
+builder.Services.AddMonitor();
 
 var app = builder.Build();
 await app.MigrateFinWatchDatabaseAsync();
@@ -34,6 +36,7 @@ app.MapSpc();
 app.MapModel();
 app.MapPredict();
 app.MapCalibrations();
+app.MapMonitor();
 await app.RunAsync();
 
 /// <summary>Entry point; public so the integration tests' WebApplicationFactory can boot the real app.</summary>

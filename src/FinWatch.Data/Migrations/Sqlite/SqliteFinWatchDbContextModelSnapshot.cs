@@ -16,6 +16,325 @@ namespace FinWatch.Data.Migrations.Sqlite
 #pragma warning disable 612, 618
             modelBuilder.HasAnnotation("ProductVersion", "10.0.15");
 
+            modelBuilder.Entity("FinWatch.Data.Entities.Alert", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<long?>("AcknowledgedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("acknowledged_at_ms");
+
+                    b.Property<string>("AcknowledgedBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("acknowledged_by");
+
+                    b.Property<string>("Chamber")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("chamber");
+
+                    b.Property<long?>("ClosedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("closed_at_ms");
+
+                    b.Property<string>("ClosedBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("closed_by");
+
+                    b.Property<int>("ContextId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("context_id");
+
+                    b.Property<long?>("EscalatedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("escalated_at_ms");
+
+                    b.Property<long>("FirstPointId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("first_point_id");
+
+                    b.Property<long>("LastPointId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("last_point_id");
+
+                    b.Property<string>("LotId")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("lot_id");
+
+                    b.Property<int>("PointCount")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("point_count");
+
+                    b.Property<double?>("PredictedDvtSatMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("predicted_dvt_sat_mv");
+
+                    b.Property<long>("RaisedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("raised_at_ms");
+
+                    b.Property<string>("Rule")
+                        .IsRequired()
+                        .HasMaxLength(8)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("rule");
+
+                    b.Property<string>("Severity")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("severity");
+
+                    b.Property<int>("SeverityRank")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("severity_rank");
+
+                    b.Property<string>("State")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("state");
+
+                    b.Property<long>("UpdatedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("updated_at_ms");
+
+                    b.Property<int?>("WaferSlot")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("wafer_slot");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("State");
+
+                    b.HasIndex("ContextId", "Rule", "State");
+
+                    b.ToTable("alerts", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.AlertEvent", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<long>("AlertId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("alert_id");
+
+                    b.Property<long>("AtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("at_ms");
+
+                    b.Property<string>("By")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("by");
+
+                    b.Property<string>("Comment")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("comment");
+
+                    b.Property<string>("Kind")
+                        .IsRequired()
+                        .HasMaxLength(32)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("kind");
+
+                    b.Property<long?>("PointId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("point_id");
+
+                    b.Property<string>("StepsJson")
+                        .HasColumnType("TEXT")
+                        .HasColumnName("steps_json");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("AlertId");
+
+                    b.ToTable("alert_events", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.ChartContext", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<string>("Chamber")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("chamber");
+
+                    b.Property<string>("ChartType")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("chart_type");
+
+                    b.Property<string>("Code")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("code");
+
+                    b.Property<long>("CreatedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("created_at_ms");
+
+                    b.Property<double>("ElectricalConcernMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("electrical_concern_mv");
+
+                    b.Property<long>("EvaluatedThroughBatchId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("evaluated_through_batch_id");
+
+                    b.Property<string>("Parameter")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("parameter");
+
+                    b.Property<int>("ProductId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("product_id");
+
+                    b.Property<string>("ReactionPlan")
+                        .IsRequired()
+                        .HasMaxLength(8000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("reaction_plan");
+
+                    b.Property<string>("Rules")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("rules");
+
+                    b.Property<string>("Step")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("step");
+
+                    b.Property<string>("Subgroup")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("subgroup");
+
+                    b.Property<string>("Title")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("title");
+
+                    b.Property<long>("UpdatedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("updated_at_ms");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Code")
+                        .IsUnique();
+
+                    b.HasIndex("ProductId", "Step");
+
+                    b.ToTable("chart_contexts", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.ChartPoint", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<long>("BatchId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("batch_id");
+
+                    b.Property<string>("Chamber")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("chamber");
+
+                    b.Property<int>("ContextId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("context_id");
+
+                    b.Property<int?>("LimitVersionId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("limit_version_id");
+
+                    b.Property<string>("LotId")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("lot_id");
+
+                    b.Property<long>("MeasuredAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("measured_at_ms");
+
+                    b.Property<int>("N")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("n");
+
+                    b.Property<double?>("PredictedDvtSatMv")
+                        .HasColumnType("REAL")
+                        .HasColumnName("predicted_dvt_sat_mv");
+
+                    b.Property<double?>("Sd")
+                        .HasColumnType("REAL")
+                        .HasColumnName("sd");
+
+                    b.Property<long>("Seq")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("seq");
+
+                    b.Property<string>("Signals")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("signals");
+
+                    b.Property<double>("Value")
+                        .HasColumnType("REAL")
+                        .HasColumnName("value");
+
+                    b.Property<int?>("WaferSlot")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("wafer_slot");
+
+                    b.Property<double?>("Z")
+                        .HasColumnType("REAL")
+                        .HasColumnName("z");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ContextId", "MeasuredAtMs");
+
+                    b.HasIndex("ContextId", "Seq")
+                        .IsUnique();
+
+                    b.ToTable("chart_points", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.ElectricalTest", b =>
                 {
                     b.Property<long>("Id")
@@ -92,6 +411,39 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.ToTable("electrical_tests", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.FeedEvent", b =>
+                {
+                    b.Property<long>("Seq")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("seq");
+
+                    b.Property<long>("AtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("at_ms");
+
+                    b.Property<int>("ContextId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("context_id");
+
+                    b.Property<string>("Kind")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("kind");
+
+                    b.Property<string>("Payload")
+                        .IsRequired()
+                        .HasColumnType("TEXT")
+                        .HasColumnName("payload");
+
+                    b.HasKey("Seq");
+
+                    b.HasIndex("ContextId", "Seq");
+
+                    b.ToTable("feed_events", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.IngestBatch", b =>
                 {
                     b.Property<long>("Id")
@@ -133,6 +485,98 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.HasKey("Id");
 
                     b.ToTable("ingest_batches", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.LimitVersion", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<string>("ApprovalComment")
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("approval_comment");
+
+                    b.Property<long?>("ApprovedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("approved_at_ms");
+
+                    b.Property<string>("ApprovedBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("approved_by");
+
+                    b.Property<double>("Centre")
+                        .HasColumnType("REAL")
+                        .HasColumnName("centre");
+
+                    b.Property<long>("ComputedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("computed_at_ms");
+
+                    b.Property<string>("ComputedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("computed_by");
+
+                    b.Property<int>("ContextId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("context_id");
+
+                    b.Property<long?>("EffectiveFromMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("effective_from_ms");
+
+                    b.Property<string>("ExcludedJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT")
+                        .HasColumnName("excluded_json");
+
+                    b.Property<long>("FromMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("from_ms");
+
+                    b.Property<int>("PointsUsed")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("points_used");
+
+                    b.Property<string>("Reason")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("reason");
+
+                    b.Property<double>("Sigma")
+                        .HasColumnType("REAL")
+                        .HasColumnName("sigma");
+
+                    b.Property<string>("Status")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("status");
+
+                    b.Property<double>("SubgroupSize")
+                        .HasColumnType("REAL")
+                        .HasColumnName("subgroup_size");
+
+                    b.Property<long>("ToMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("to_ms");
+
+                    b.Property<int>("Version")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("version");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ContextId", "Version")
+                        .IsUnique();
+
+                    b.ToTable("limit_versions", (string)null);
                 });
 
             modelBuilder.Entity("FinWatch.Data.Entities.LotChamber", b =>
@@ -616,6 +1060,42 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.ToTable("spec_limits", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.Alert", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.ChartContext", null)
+                        .WithMany()
+                        .HasForeignKey("ContextId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.AlertEvent", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.Alert", null)
+                        .WithMany()
+                        .HasForeignKey("AlertId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.ChartContext", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.Product", null)
+                        .WithMany()
+                        .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.ChartPoint", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.ChartContext", null)
+                        .WithMany()
+                        .HasForeignKey("ContextId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.ElectricalTest", b =>
                 {
                     b.HasOne("FinWatch.Data.Entities.ModelParameterSet", null)
@@ -627,6 +1107,15 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.HasOne("FinWatch.Data.Entities.Product", null)
                         .WithMany()
                         .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.LimitVersion", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.ChartContext", null)
+                        .WithMany()
+                        .HasForeignKey("ContextId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
                 });

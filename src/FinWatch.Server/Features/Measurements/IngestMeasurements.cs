@@ -4,6 +4,7 @@ using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Physics;
 using FinWatch.Server.Features.Model;
+using FinWatch.Server.Features.Monitor;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
 
@@ -14,7 +15,8 @@ namespace FinWatch.Server.Features.Measurements;
 /// Every source (JSON, CSV, the inbox, the demo loader) comes through here, so they share one set of rules.
 /// </summary>
 public sealed class IngestMeasurements(
-    FinWatchDbContext db, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ProductModels models, ILogger<IngestMeasurements> logger)
+    FinWatchDbContext db, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ProductModels models, MonitorEvaluator monitor,
+    ILogger<IngestMeasurements> logger)
 {
     /// <summary>Ingests the rows as one batch. Nothing is stored unless every row is valid.</summary>
     public async Task<IngestOutcome> RunAsync(IAsyncEnumerable<RawRow> rows, string source, string? label, CancellationToken cancellationToken)
@@ -130,6 +132,10 @@ public sealed class IngestMeasurements(
         }
 
         await writer.CommitAsync(lotSteps, chambers, rowsRead, inserted, present, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
+        turn.Dispose();
+
+        // The next step of the one-way flow: the stored batch becomes chart points, rule signals and alerts, pushed live.
+        await monitor.EvaluatePendingAsync(cancellationToken);
         var ms = Stopwatch.GetElapsedTime(started).TotalMilliseconds;
         logger.LogInformation("Accepted {Source} batch {BatchId} {Label}: {Inserted} stored, {Present} already present, {Ms:0} ms",
             source, writer.BatchId, label, inserted, present, ms);

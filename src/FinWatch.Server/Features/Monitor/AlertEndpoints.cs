@@ -1,0 +1,185 @@
+using System.Text.Json;
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Model;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Server.Features.Monitor;
+
+/// <summary>The alert queue and its one-way life: acknowledge, disposition (the reaction plan's steps), close.</summary>
+public static class AlertEndpoints
+{
+    public static void Map(IEndpointRouteBuilder app)
+    {
+        var group = app.MapGroup("/api/alerts").WithTags("Monitor");
+        group.MapGet("/", ListAsync).WithSummary("Alerts, most severe and newest first; filter by state, context, severity, escalated");
+        group.MapGet("/{id:long}", GetAsync).WithSummary("One alert with its reaction plan, history and points");
+        group.MapPost("/{id:long}/acknowledge", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
+            ActAsync(id, r, AlertStates.Open, AlertStates.Acknowledged, http, db, clock, feed, ct)).WithSummary("Acknowledge an open alert");
+        group.MapPost("/{id:long}/disposition", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
+            ActAsync(id, r, AlertStates.Acknowledged, AlertStates.Dispositioned, http, db, clock, feed, ct)).WithSummary("Record the reaction-plan steps taken");
+        group.MapPost("/{id:long}/close", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
+            ActAsync(id, r, AlertStates.Dispositioned, AlertStates.Closed, http, db, clock, feed, ct)).WithSummary("Close a dispositioned alert");
+    }
+
+    private static async Task<Results<Ok<List<AlertMessage>>, ValidationProblem>> ListAsync(
+        string? state, string? context, string? severity, bool? escalated, FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var errors = new Dictionary<string, string[]>();
+        if (state is not null && state != "active" && !AlertStates.All.Contains(state))
+        {
+            errors["state"] = [$"state is active (not closed), {string.Join(", ", AlertStates.All)}"];
+        }
+
+        if (severity is not null && Array.IndexOf(Severity.Names, severity) < 1)
+        {
+            errors["severity"] = ["severity is low, medium, high or critical (that level or above)"];
+        }
+
+        if (errors.Count > 0)
+        {
+            return TypedResults.ValidationProblem(errors);
+        }
+
+        var q = db.Alerts.AsNoTracking();
+        q = state switch { null => q, "active" => q.Where(a => a.State != AlertStates.Closed), _ => q.Where(a => a.State == state) };
+        if (severity is not null)
+        {
+            var rank = Array.IndexOf(Severity.Names, severity);
+            q = q.Where(a => a.SeverityRank >= rank);
+        }
+
+        if (escalated is { } e)
+        {
+            q = e ? q.Where(a => a.EscalatedAtMs != null) : q.Where(a => a.EscalatedAtMs == null);
+        }
+
+        var contexts = await db.ChartContexts.AsNoTracking().ToDictionaryAsync(c => c.Id, cancellationToken);
+        if (context is not null)
+        {
+            var id = contexts.Values.FirstOrDefault(c => c.Code == context)?.Id ?? -1;
+            q = q.Where(a => a.ContextId == id);
+        }
+
+        var alerts = await q.OrderByDescending(a => a.SeverityRank).ThenByDescending(a => a.RaisedAtMs).Take(1000).ToListAsync(cancellationToken);
+        var pointIds = alerts.SelectMany(a => new[] { a.FirstPointId, a.LastPointId }).Distinct().ToList();
+        var seqs = await db.ChartPoints.AsNoTracking().Where(p => pointIds.Contains(p.Id)).ToDictionaryAsync(p => p.Id, p => p.Seq, cancellationToken);
+        return TypedResults.Ok(alerts.Select(a => AlertViews.ToMessage(a, contexts[a.ContextId], seqs[a.FirstPointId], seqs[a.LastPointId])).ToList());
+    }
+
+    private static async Task<Results<Ok<AlertDetailResponse>, ProblemHttpResult>> GetAsync(long id, FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var alert = await db.Alerts.AsNoTracking().SingleOrDefaultAsync(a => a.Id == id, cancellationToken);
+        if (alert is null)
+        {
+            return NotFound(id);
+        }
+
+        return TypedResults.Ok(await DetailAsync(db, alert, cancellationToken));
+    }
+
+    private static async Task<AlertDetailResponse> DetailAsync(FinWatchDbContext db, Alert alert, CancellationToken cancellationToken)
+    {
+        var context = await db.ChartContexts.AsNoTracking().SingleAsync(c => c.Id == alert.ContextId, cancellationToken);
+        var events = await db.AlertEvents.AsNoTracking().Where(e => e.AlertId == alert.Id).OrderBy(e => e.Id).ToListAsync(cancellationToken);
+        var pointIds = events.Where(e => e.PointId is not null).Select(e => e.PointId!.Value).Distinct().ToList();
+        var points = await db.ChartPoints.AsNoTracking().Where(p => pointIds.Contains(p.Id)).OrderBy(p => p.Seq).ToListAsync(cancellationToken);
+        var limits = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == context.Id).ToDictionaryAsync(l => l.Id, cancellationToken);
+        var seqById = points.ToDictionary(p => p.Id, p => p.Seq);
+        return new AlertDetailResponse(
+            AlertViews.ToMessage(alert, context, seqById[alert.FirstPointId], seqById[alert.LastPointId]),
+            context.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries),
+            [.. events.Select(e => new AlertEventResponse(e.Kind, DateTimeOffset.FromUnixTimeMilliseconds(e.AtMs), e.By, e.Comment,
+                e.StepsJson is null ? null : JsonSerializer.Deserialize<List<StepTaken>>(e.StepsJson, FeedLog.Json), e.PointId is { } p ? seqById[p] : null))],
+            [.. points.Select(p => ContextRules.ToMessage(context, p, p.LimitVersionId is { } l ? limits[l] : null))],
+            EvaluateModel.PredictionCaution);
+    }
+
+    private static async Task<Results<Ok<AlertDetailResponse>, ValidationProblem, ProblemHttpResult>> ActAsync(
+        long id, AlertActionRequest r, string from, string to, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken cancellationToken)
+    {
+        await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
+        var alert = await db.Alerts.SingleOrDefaultAsync(a => a.Id == id, cancellationToken);
+        if (alert is null)
+        {
+            return NotFound(id);
+        }
+
+        var context = await db.ChartContexts.AsNoTracking().SingleAsync(c => c.Id == alert.ContextId, cancellationToken);
+        var errors = new Dictionary<string, string[]>();
+        if (alert.State != from)
+        {
+            errors["state"] = [$"alert {id} is {alert.State}; only an {from} alert can become {to} (open → acknowledged → dispositioned → closed)"];
+        }
+
+        if (r.Comment is { Length: > 4000 })
+        {
+            errors["comment"] = ["comment is at most 4000 characters"];
+        }
+
+        var plan = context.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        List<StepTaken>? steps = null;
+        if (to == AlertStates.Dispositioned)
+        {
+            steps = [.. r.Steps ?? []];
+            var missing = plan.Where(s => !steps.Any(t => t.Step == s)).ToList();
+            var unknown = steps.Where(t => !plan.Contains(t.Step)).Select(t => t.Step).ToList();
+            if (missing.Count > 0 || unknown.Count > 0)
+            {
+                errors["steps"] = [$"report every step of the context's reaction plan as done or not done; missing: {string.Join(" | ", missing)}; not in the plan: {string.Join(" | ", unknown)}"];
+            }
+
+            if (plan.Length == 0 && string.IsNullOrWhiteSpace(r.Comment))
+            {
+                errors["comment"] = ["the context has no reaction plan; say in the comment what was done"];
+            }
+        }
+
+        if (to == AlertStates.Closed && string.IsNullOrWhiteSpace(r.Comment))
+        {
+            errors["comment"] = ["say why the alert can be closed"];
+        }
+
+        if (errors.Count > 0)
+        {
+            return TypedResults.ValidationProblem(errors);
+        }
+
+        var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        var who = http.User.Identity?.Name ?? "not signed in";
+        alert.State = to;
+        alert.UpdatedAtMs = now;
+        if (to == AlertStates.Acknowledged)
+        {
+            alert.AcknowledgedBy = who;
+            alert.AcknowledgedAtMs = now;
+        }
+        else if (to == AlertStates.Closed)
+        {
+            alert.ClosedBy = who;
+            alert.ClosedAtMs = now;
+        }
+
+        db.AlertEvents.Add(new AlertEvent
+        {
+            AlertId = alert.Id, Kind = to, AtMs = now, By = who, Comment = r.Comment?.Trim() ?? "",
+            StepsJson = steps is null ? null : JsonSerializer.Serialize(steps, FeedLog.Json),
+        });
+        await db.SaveChangesAsync(cancellationToken);
+        var detail = await DetailAsync(db, alert, cancellationToken);
+        var message = await FeedLog.AddAsync(db, "alert", context, null, detail.Alert, now, cancellationToken);
+        await transaction.CommitAsync(cancellationToken);
+        feed.Publish([message]);
+        return TypedResults.Ok(detail);
+    }
+
+    private static ProblemHttpResult NotFound(long id) => TypedResults.Problem(new ProblemDetails
+    {
+        Type = "/problems/not-found",
+        Title = "No such alert.",
+        Status = StatusCodes.Status404NotFound,
+        Detail = $"There is no alert {id}.",
+    });
+}

@@ -1,0 +1,12 @@
+namespace FinWatch.Server.Features.Monitor;
+
+/// <summary>The states of an alert, in their only order: open → acknowledged → dispositioned → closed.</summary>
+public static class AlertStates
+{
+    public const string Open = "open";
+    public const string Acknowledged = "acknowledged";
+    public const string Dispositioned = "dispositioned";
+    public const string Closed = "closed";
+
+    public static readonly string[] All = [Open, Acknowledged, Dispositioned, Closed];
+}

@@ -1,0 +1,380 @@
+using System.Text.Json;
+using System.Text.RegularExpressions;
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Parameters;
+using FinWatch.Statistics.Shewhart;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Server.Features.Monitor;
+
+public static partial class ContextEndpoints
+{
+    /// <summary>Fewer baseline points than this gives a warning (common practice, 20–25 subgroups; no single source).</summary>
+    public const int RecommendedBaselinePoints = 20;
+
+    public static IServiceCollection AddMonitor(this IServiceCollection services)
+    {
+        services.AddOptions<MonitorOptions>().BindConfiguration(MonitorOptions.Section).ValidateDataAnnotations().ValidateOnStart();
+        services.AddSignalR();
+        services.AddSingleton<MonitorFeed>();
+        services.AddScoped<MonitorEvaluator>();
+        services.AddSingleton<MonitorWorker>();
+        services.AddHostedService(sp => sp.GetRequiredService<MonitorWorker>());
+        return services;
+    }
+
+    public static IEndpointRouteBuilder MapMonitor(this IEndpointRouteBuilder app)
+    {
+        var group = app.MapGroup("/api/contexts").WithTags("Monitor");
+        group.MapGet("/", ListAsync).WithSummary("Every chart context with its state, worst first");
+        group.MapPost("/", CreateAsync).WithSummary("Create a chart context (it starts in its baseline phase)");
+        group.MapGet("/{code}", GetAsync).WithSummary("One chart context with its limits in force and its state");
+        group.MapPut("/{code}", UpdateAsync).WithSummary("Change a context's title, rules, reaction plan or electrical concern");
+        group.MapGet("/{code}/points", PointsAsync).WithSummary("The context's points in order, each with the limits it was judged by");
+        group.MapGet("/{code}/limits", LimitsAsync).WithSummary("Every limit version of the context, newest first");
+        group.MapPost("/{code}/limits", ComputeLimitsAsync).WithSummary("Compute a draft limit version from chosen points");
+        group.MapPost("/{code}/limits/{version:int}/approve", ApproveAsync).WithSummary("Approve (freeze) a draft limit version");
+        app.MapGet("/api/feed", FeedAsync).WithTags("Monitor").WithSummary("Live-feed entries after a number (what a reconnecting client missed)");
+        app.MapHub<MonitorHub>(MonitorHub.Path);
+        AlertEndpoints.Map(app);
+        return app;
+    }
+
+    [GeneratedRegex("^[A-Za-z0-9][A-Za-z0-9._-]{0,99}$")]
+    private static partial Regex CodePattern();
+
+    private static async Task<Ok<List<ContextResponse>>> ListAsync(FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var contexts = await db.ChartContexts.AsNoTracking().ToListAsync(cancellationToken);
+        var list = new List<ContextResponse>();
+        foreach (var c in contexts)
+        {
+            list.Add(await DescribeAsync(db, c, cancellationToken));
+        }
+
+        return TypedResults.Ok(list.OrderByDescending(c => c.State == "out_of_control").ThenByDescending(c => Array.IndexOf(Severity.Names, c.WorstSeverity))
+            .ThenByDescending(c => c.UnacknowledgedAlerts).ThenBy(c => c.Code, StringComparer.Ordinal).ToList());
+    }
+
+    private static async Task<Results<Ok<ContextResponse>, ProblemHttpResult>> GetAsync(string code, FinWatchDbContext db, CancellationToken cancellationToken) =>
+        await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken) is { } c
+            ? TypedResults.Ok(await DescribeAsync(db, c, cancellationToken))
+            : NotFound(code);
+
+    private static async Task<Results<Created<ContextResponse>, ValidationProblem>> CreateAsync(
+        ContextRequest r, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator, CancellationToken cancellationToken)
+    {
+        var errors = new Dictionary<string, string[]>();
+        if (r.Code is null || !CodePattern().IsMatch(r.Code))
+        {
+            errors["code"] = ["code is 1 to 100 letters, digits, '.', '_' or '-', starting with a letter or digit"];
+        }
+        else if (await db.ChartContexts.AnyAsync(c => c.Code == r.Code, cancellationToken))
+        {
+            errors["code"] = [$"a context '{r.Code}' exists already"];
+        }
+
+        var product = r.Product is null ? null : await db.Products.AsNoTracking().SingleOrDefaultAsync(p => p.Code == r.Product, cancellationToken);
+        if (product is null)
+        {
+            errors["product"] = [$"'{r.Product}' is not a product code"];
+        }
+
+        if (string.IsNullOrWhiteSpace(r.Step) || r.Step.Length > 64)
+        {
+            errors["step"] = ["step is required (1 to 64 characters)"];
+        }
+
+        if (r.Parameter is null || !FinParameters.TryGet(r.Parameter, out _))
+        {
+            errors["parameter"] = [$"'{r.Parameter}' is not a parameter; the parameters are {FinParameters.NameList}"];
+        }
+
+        if (r.Chamber is { Length: > 64 })
+        {
+            errors["chamber"] = ["chamber is at most 64 characters"];
+        }
+
+        CheckCommon(r, errors, creating: true);
+        if (errors.Count > 0)
+        {
+            return TypedResults.ValidationProblem(errors);
+        }
+
+        var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        var context = new ChartContext
+        {
+            Code = r.Code!, Title = string.IsNullOrWhiteSpace(r.Title) ? $"{r.Product} {r.Step} {r.Parameter}{(r.Chamber is null ? "" : " " + r.Chamber)}" : r.Title.Trim(),
+            ProductId = product!.Id, Step = r.Step!.Trim(), Parameter = r.Parameter!, Chamber = string.IsNullOrWhiteSpace(r.Chamber) ? null : r.Chamber.Trim(),
+            ChartType = r.ChartType ?? "xbar", Subgroup = r.Subgroup ?? "wafer", Rules = NormaliseRules(r.Rules ?? "westernElectric"),
+            ReactionPlan = string.Join('\n', (r.ReactionPlan ?? []).Select(s => s.Trim()).Where(s => s.Length > 0)),
+            ElectricalConcernMv = r.ElectricalConcernMv ?? 10, CreatedAtMs = now, UpdatedAtMs = now,
+        };
+        db.ChartContexts.Add(context);
+        await db.SaveChangesAsync(cancellationToken);
+        await evaluator.EvaluatePendingAsync(cancellationToken); // the stored history becomes its baseline points
+        var saved = await db.ChartContexts.AsNoTracking().SingleAsync(c => c.Id == context.Id, cancellationToken);
+        return TypedResults.Created($"/api/contexts/{Uri.EscapeDataString(context.Code)}", await DescribeAsync(db, saved, cancellationToken));
+    }
+
+    private static async Task<Results<Ok<ContextResponse>, ValidationProblem, ProblemHttpResult>> UpdateAsync(
+        string code, ContextRequest r, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
+    {
+        var context = await db.ChartContexts.SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
+        if (context is null)
+        {
+            return NotFound(code);
+        }
+
+        var errors = new Dictionary<string, string[]>();
+        CheckCommon(r, errors, creating: false);
+        foreach (var (name, given, current) in new[] { ("product", r.Product, (string?)null), ("step", r.Step, context.Step), ("parameter", r.Parameter, context.Parameter), ("chamber", r.Chamber, context.Chamber) })
+        {
+            if (given is not null && given != current)
+            {
+                errors[name] = [$"{name} cannot change: it defines what the chart watches; create a new context instead"];
+            }
+        }
+
+        if (errors.Count > 0)
+        {
+            return TypedResults.ValidationProblem(errors);
+        }
+
+        context.Title = string.IsNullOrWhiteSpace(r.Title) ? context.Title : r.Title.Trim();
+        context.Rules = r.Rules is null ? context.Rules : NormaliseRules(r.Rules);
+        context.ReactionPlan = r.ReactionPlan is null ? context.ReactionPlan : string.Join('\n', r.ReactionPlan.Select(s => s.Trim()).Where(s => s.Length > 0));
+        context.ElectricalConcernMv = r.ElectricalConcernMv ?? context.ElectricalConcernMv;
+        context.ChartType = r.ChartType ?? context.ChartType;
+        context.Subgroup = r.Subgroup ?? context.Subgroup;
+        context.UpdatedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        await db.SaveChangesAsync(cancellationToken);
+        return TypedResults.Ok(await DescribeAsync(db, context, cancellationToken));
+    }
+
+    private static void CheckCommon(ContextRequest r, Dictionary<string, string[]> errors, bool creating)
+    {
+        if (r.ChartType is not null && !ContextRules.ChartTypes.Contains(r.ChartType))
+        {
+            errors["chart_type"] = [$"chart_type is {string.Join(" or ", ContextRules.ChartTypes)}"];
+        }
+
+        if (r.Subgroup is not null && !ContextRules.Subgroups.Contains(r.Subgroup))
+        {
+            errors["subgroup"] = [$"subgroup is {string.Join(" or ", ContextRules.Subgroups)}"];
+        }
+
+        if (!creating && (r.ChartType is not null || r.Subgroup is not null))
+        {
+            errors["chart_type"] = ["chart type and subgrouping are fixed once points exist; create a new context instead"];
+        }
+
+        if (r.Rules is not null)
+        {
+            var bad = r.Rules.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries)
+                .Where(id => !Statistics.Rules.RunRules.TryParse(id, out _)).ToList();
+            if (bad.Count > 0 || ContextRules.Parse(r.Rules).Count == 0)
+            {
+                errors["rules"] = [$"unknown rules: {string.Join(", ", bad)}; use WE1..WE4, N1..N8, westernElectric or nelson, comma separated"];
+            }
+        }
+
+        if (r.ReactionPlan is { } plan && (plan.Count > 50 || plan.Any(s => s is null || s.Length > 500)))
+        {
+            errors["reaction_plan"] = ["the reaction plan has at most 50 steps of at most 500 characters"];
+        }
+
+        if (r.ElectricalConcernMv is { } e && !(e > 0 && e <= 1000))
+        {
+            errors["electrical_concern_mv"] = ["electrical_concern_mv is above 0 and at most 1000 mV"];
+        }
+
+        if (r.Title is { Length: > 200 })
+        {
+            errors["title"] = ["title is at most 200 characters"];
+        }
+    }
+
+    private static string NormaliseRules(string rules) => string.Join(',', ContextRules.Parse(rules).Select(Statistics.Rules.RunRules.Id));
+
+    private static async Task<Results<Ok<List<PointMessage>>, ProblemHttpResult>> PointsAsync(
+        string code, long? afterSeq, DateTimeOffset? from, DateTimeOffset? to, int? limit, FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
+        if (context is null)
+        {
+            return NotFound(code);
+        }
+
+        var q = db.ChartPoints.AsNoTracking().Where(p => p.ContextId == context.Id && p.Seq > (afterSeq ?? 0));
+        if (from is { } f)
+        {
+            var ms = f.ToUnixTimeMilliseconds();
+            q = q.Where(p => p.MeasuredAtMs >= ms);
+        }
+
+        if (to is { } t)
+        {
+            var ms = t.ToUnixTimeMilliseconds();
+            q = q.Where(p => p.MeasuredAtMs <= ms);
+        }
+
+        var max = Math.Clamp(limit ?? 5000, 1, 50_000);
+        var points = await q.OrderByDescending(p => p.Seq).Take(max).ToListAsync(cancellationToken);
+        var limits = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == context.Id).ToDictionaryAsync(l => l.Id, cancellationToken);
+        return TypedResults.Ok(points.OrderBy(p => p.Seq)
+            .Select(p => ContextRules.ToMessage(context, p, p.LimitVersionId is { } id ? limits[id] : null)).ToList());
+    }
+
+    private static async Task<Results<Ok<List<LimitResponse>>, ProblemHttpResult>> LimitsAsync(string code, FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
+        if (context is null)
+        {
+            return NotFound(code);
+        }
+
+        var versions = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == context.Id).OrderByDescending(l => l.Version).ToListAsync(cancellationToken);
+        return TypedResults.Ok(versions.Select(v => Describe(context, v)).ToList());
+    }
+
+    private static async Task<Results<Created<LimitResponse>, ValidationProblem, ProblemHttpResult>> ComputeLimitsAsync(
+        string code, LimitComputeRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
+    {
+        var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
+        if (context is null)
+        {
+            return NotFound(code);
+        }
+
+        var from = r.FromSeq ?? 1;
+        var to = r.ToSeq ?? long.MaxValue;
+        var points = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == context.Id && p.Seq >= from && p.Seq <= to)
+            .OrderBy(p => p.Seq).ToListAsync(cancellationToken);
+        var errors = new Dictionary<string, string[]>();
+        var exclude = r.Exclude ?? [];
+        var seqs = points.Select(p => p.Seq).ToHashSet();
+        var badExclusions = exclude.Where(e => !seqs.Contains(e.Seq) || string.IsNullOrWhiteSpace(e.Reason)).Select(e => e.Seq).ToList();
+        if (badExclusions.Count > 0)
+        {
+            errors["exclude"] = [$"each excluded point needs a seq in the chosen range and a reason; not so for {string.Join(", ", badExclusions)}"];
+        }
+
+        if (string.IsNullOrWhiteSpace(r.Reason))
+        {
+            errors["reason"] = ["say why these limits are computed (kept with the version)"];
+        }
+
+        var used = points.Where(p => !exclude.Any(e => e.Seq == p.Seq)).ToList();
+        var (centre, sigma) = used.Count == 0 ? (double.NaN, null)
+            : context.ChartType == "xbar"
+                ? SummaryLimits.MeanStandardDeviation([.. used.Select(p => p.Value)], [.. used.Select(p => p.N)], [.. used.Select(p => p.Sd ?? 0)])
+                : SummaryLimits.Individuals([.. used.Select(p => p.Value)]);
+        if (sigma is not > 0)
+        {
+            errors["points"] = [$"{used.Count} usable points in seq {from}..{(r.ToSeq is null ? "last" : r.ToSeq)}: too few to estimate σ (an xbar chart needs a subgroup of 2 or more sites, an individuals chart 2 points)"];
+        }
+
+        if (errors.Count > 0)
+        {
+            return TypedResults.ValidationProblem(errors);
+        }
+
+        var version = 1 + (await db.LimitVersions.Where(l => l.ContextId == context.Id).MaxAsync(l => (int?)l.Version, cancellationToken) ?? 0);
+        var limit = new LimitVersion
+        {
+            ContextId = context.Id, Version = version, Status = "draft", Centre = centre, Sigma = sigma!.Value,
+            SubgroupSize = context.ChartType == "xbar" ? used.Average(p => p.N) : 1, PointsUsed = used.Count,
+            FromMs = used.Min(p => p.MeasuredAtMs), ToMs = used.Max(p => p.MeasuredAtMs),
+            ExcludedJson = JsonSerializer.Serialize(exclude, FeedLog.Json), ComputedBy = http.User.Identity?.Name ?? "not signed in",
+            ComputedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds(), Reason = r.Reason!.Trim(),
+        };
+        db.LimitVersions.Add(limit);
+        await db.SaveChangesAsync(cancellationToken);
+        return TypedResults.Created($"/api/contexts/{Uri.EscapeDataString(code)}/limits", Describe(context, limit));
+    }
+
+    private static async Task<Results<Ok<LimitResponse>, ValidationProblem, ProblemHttpResult>> ApproveAsync(
+        string code, int version, ApproveRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator, CancellationToken cancellationToken)
+    {
+        var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
+        var limit = context is null ? null : await db.LimitVersions.SingleOrDefaultAsync(l => l.ContextId == context.Id && l.Version == version, cancellationToken);
+        if (context is null || limit is null)
+        {
+            return NotFound($"{code} limits v{version}");
+        }
+
+        var now = clock.GetUtcNow();
+        var effective = r.EffectiveFrom ?? now;
+        if (limit.Status != "draft")
+        {
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["version"] = [$"v{version} is {limit.Status}: approved limits are frozen; compute a new version to revise them"] });
+        }
+
+        if (effective > now || effective.ToUnixTimeMilliseconds() < limit.ToMs)
+        {
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]>
+            {
+                ["effective_from"] = [$"effective_from lies between the last point the limits were computed from ({DateTimeOffset.FromUnixTimeMilliseconds(limit.ToMs):u}) and now"],
+            });
+        }
+
+        limit.Status = "approved";
+        limit.ApprovedBy = http.User.Identity?.Name ?? "not signed in";
+        limit.ApprovedAtMs = now.ToUnixTimeMilliseconds();
+        limit.ApprovalComment = r.Comment?.Trim();
+        limit.EffectiveFromMs = effective.ToUnixTimeMilliseconds();
+        await db.SaveChangesAsync(cancellationToken);
+        await evaluator.EvaluatePendingAsync(cancellationToken);
+        return TypedResults.Ok(Describe(context, limit));
+    }
+
+    private static async Task<Ok<List<FeedMessage>>> FeedAsync(long? after, string? context, FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var contexts = context?.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries);
+        return TypedResults.Ok(await FeedLog.ReadAsync(db, after ?? 0, contexts, MonitorHub.MaxCatchUp, cancellationToken));
+    }
+
+    internal static LimitResponse Describe(ChartContext context, LimitVersion l)
+    {
+        var unit = FinParameters.TryGet(context.Parameter, out var p) ? p.Unit : "";
+        var sigmaPoint = ContextRules.PointSigma(context, l, (int)Math.Round(l.SubgroupSize));
+        static DateTimeOffset? T(long? ms) => ms is { } v ? DateTimeOffset.FromUnixTimeMilliseconds(v) : null;
+        List<string> warnings = l.PointsUsed < RecommendedBaselinePoints
+            ? [$"computed from {l.PointsUsed} points; {RecommendedBaselinePoints} or more are usual (common practice)"]
+            : [];
+        return new LimitResponse(l.Version, l.Status, l.Centre, l.Sigma, l.SubgroupSize, l.Centre + (3 * sigmaPoint), l.Centre - (3 * sigmaPoint), unit,
+            l.PointsUsed, DateTimeOffset.FromUnixTimeMilliseconds(l.FromMs), DateTimeOffset.FromUnixTimeMilliseconds(l.ToMs),
+            JsonSerializer.Deserialize<List<ExcludedPoint>>(l.ExcludedJson, FeedLog.Json) ?? [], l.ComputedBy,
+            DateTimeOffset.FromUnixTimeMilliseconds(l.ComputedAtMs), l.Reason, l.ApprovedBy, T(l.ApprovedAtMs), l.ApprovalComment, T(l.EffectiveFromMs), warnings);
+    }
+
+    internal static async Task<ContextResponse> DescribeAsync(FinWatchDbContext db, ChartContext c, CancellationToken cancellationToken)
+    {
+        var product = await db.Products.AsNoTracking().Where(p => p.Id == c.ProductId).Select(p => p.Code).SingleAsync(cancellationToken);
+        var limit = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == c.Id && l.Status == "approved")
+            .OrderByDescending(l => l.EffectiveFromMs).FirstOrDefaultAsync(cancellationToken);
+        var alerts = await db.Alerts.AsNoTracking().Where(a => a.ContextId == c.Id && a.State != AlertStates.Closed).ToListAsync(cancellationToken);
+        var last = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == c.Id).OrderByDescending(p => p.Seq).FirstOrDefaultAsync(cancellationToken);
+        var count = last?.Seq ?? 0;
+        LimitVersion? lastLimit = last?.LimitVersionId is { } id ? await db.LimitVersions.AsNoTracking().SingleAsync(l => l.Id == id, cancellationToken) : null;
+        var unit = FinParameters.TryGet(c.Parameter, out var p) ? p.Unit : "";
+        var state = limit is null ? "baseline" : alerts.Count > 0 ? "out_of_control" : "in_control";
+        return new ContextResponse(c.Code, c.Title, product, c.Step, c.Parameter, unit, c.Chamber, c.ChartType, c.Subgroup,
+            c.Rules.Split(',', StringSplitOptions.RemoveEmptyEntries), c.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries), c.ElectricalConcernMv,
+            limit is null ? "baseline" : "monitoring", state, Severity.Name(alerts.Count == 0 ? 0 : alerts.Max(a => a.SeverityRank)),
+            alerts.Count, alerts.Count(a => a.State == AlertStates.Open), alerts.Count(a => a.EscalatedAtMs is not null && a.State == AlertStates.Open),
+            count, limit is null ? null : Describe(c, limit), last is null ? null : ContextRules.ToMessage(c, last, lastLimit));
+    }
+
+    internal static ProblemHttpResult NotFound(string what) => TypedResults.Problem(new ProblemDetails
+    {
+        Type = "/problems/not-found",
+        Title = "Not found.",
+        Status = StatusCodes.Status404NotFound,
+        Detail = $"There is no chart context or limit version '{what}'.",
+    });
+}

@@ -1,0 +1,217 @@
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Parameters;
+using FinWatch.Statistics.Rules;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Server.Features.Monitor;
+
+/// <summary>
+/// The step after store in the one-way flow: turns each stored ingest batch into points of every chart context it
+/// concerns, judges them by the limits in force when they were measured, evaluates the context's run rules
+/// incrementally (the rule state is rebuilt from the context's last judged points), raises or extends alerts, and
+/// records all of it in the live feed, in one transaction per context and batch. Contexts resume after the last batch
+/// they evaluated, so a batch missed by a crash is evaluated at the next run and none twice.
+/// </summary>
+public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, ILogger<MonitorEvaluator> logger)
+{
+    /// <summary>More than the longest rule window (N7, 15 points), so the replayed state equals the full history's.</summary>
+    private const int ReplayPoints = 20;
+
+    private static readonly SemaphoreSlim Gate = new(1, 1);
+
+    /// <summary>Evaluates every batch not yet evaluated by every context, in batch order; returns the new feed entries.</summary>
+    public async Task<IReadOnlyList<FeedMessage>> EvaluatePendingAsync(CancellationToken cancellationToken)
+    {
+        await Gate.WaitAsync(cancellationToken);
+        var published = new List<FeedMessage>();
+        try
+        {
+            var contexts = await db.ChartContexts.AsNoTracking().OrderBy(c => c.Id).ToListAsync(cancellationToken);
+            if (contexts.Count == 0)
+            {
+                return published;
+            }
+
+            var lastBatch = await db.IngestBatches.MaxAsync(b => (long?)b.Id, cancellationToken) ?? 0;
+            foreach (var context in contexts.Where(c => c.EvaluatedThroughBatchId < lastBatch))
+            {
+                published.AddRange(await EvaluateContextAsync(context, lastBatch, cancellationToken));
+            }
+        }
+        finally
+        {
+            Gate.Release();
+        }
+
+        feed.Publish(published);
+        return published;
+    }
+
+    private sealed record SiteValue(string LotId, int WaferSlot, long At, string? EtchChamber, string? LinerChamber, double Value, double? DvtSat);
+
+    private async Task<List<FeedMessage>> EvaluateContextAsync(ChartContext context, long throughBatch, CancellationToken cancellationToken)
+    {
+        if (!FinParameters.TryGet(context.Parameter, out var parameter))
+        {
+            logger.LogWarning("Context {Context} names an unknown parameter {Parameter}; skipped", context.Code, context.Parameter);
+            return [];
+        }
+
+        var column = parameter.Property;
+        var q = db.Measurements.AsNoTracking().Where(m => m.BatchId > context.EvaluatedThroughBatchId && m.BatchId <= throughBatch
+            && m.ProductId == context.ProductId && m.Step == context.Step && EF.Property<double?>(m, column) != null);
+        if (context.Chamber is { } chamber)
+        {
+            q = q.Where(m => m.EtchChamber == chamber || m.LinerChamber == chamber);
+        }
+
+        var rows = await q.Select(m => new { m.BatchId, Site = new SiteValue(m.LotId, m.WaferSlot, m.MeasuredAtMs, m.EtchChamber, m.LinerChamber,
+                EF.Property<double?>(m, column)!.Value, m.DeltaVtSatMv) })
+            .ToListAsync(cancellationToken);
+
+        var candidates = rows.GroupBy(r => r.BatchId).OrderBy(g => g.Key)
+            .SelectMany(g => Subgroups(context, g.Key, g.Select(r => r.Site)))
+            .ToList();
+
+        await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
+        var tracked = await db.ChartContexts.SingleAsync(c => c.Id == context.Id, cancellationToken);
+        var messages = new List<FeedMessage>();
+        if (candidates.Count > 0)
+        {
+            messages = await JudgeAsync(tracked, candidates, cancellationToken);
+        }
+
+        tracked.EvaluatedThroughBatchId = throughBatch;
+        await db.SaveChangesAsync(cancellationToken);
+        await transaction.CommitAsync(cancellationToken);
+        return messages;
+    }
+
+    // One point per wafer (its sites) or per lot (its wafer means) of each batch, in measured-at order.
+    private static IEnumerable<ChartPoint> Subgroups(ChartContext context, long batchId, IEnumerable<SiteValue> sites)
+    {
+        var wafers = sites.GroupBy(s => (s.LotId, s.WaferSlot)).Select(g => new
+        {
+            g.Key.LotId,
+            g.Key.WaferSlot,
+            At = g.Max(s => s.At),
+            Chamber = context.Chamber ?? g.Select(s => s.EtchChamber ?? s.LinerChamber).FirstOrDefault(c => c is not null),
+            Values = g.Select(s => s.Value).ToArray(),
+            Dvt = g.Where(s => s.DvtSat is not null).Select(s => s.DvtSat!.Value).DefaultIfEmpty(double.NaN).Average(),
+        }).ToList();
+        IEnumerable<ChartPoint> points = context.Subgroup == "lot"
+            ? wafers.GroupBy(w => w.LotId).Select(g => Point(context, batchId, g.Key, null, g.Max(w => w.At),
+                g.Select(w => w.Chamber).FirstOrDefault(c => c is not null), [.. g.Select(w => w.Values.Average())],
+                g.Select(w => w.Dvt).Where(double.IsFinite).DefaultIfEmpty(double.NaN).Average()))
+            : wafers.Select(w => Point(context, batchId, w.LotId, w.WaferSlot, w.At, w.Chamber, w.Values, w.Dvt));
+        return points.OrderBy(p => p.MeasuredAtMs).ThenBy(p => p.LotId, StringComparer.Ordinal).ThenBy(p => p.WaferSlot);
+    }
+
+    private static ChartPoint Point(ChartContext context, long batchId, string lot, int? slot, long at, string? chamber, double[] values, double dvt)
+    {
+        var mean = values.Average();
+        double? sd = values.Length >= 2 ? Math.Sqrt(values.Sum(v => (v - mean) * (v - mean)) / (values.Length - 1)) : null;
+        return new ChartPoint
+        {
+            ContextId = context.Id, BatchId = batchId, LotId = lot, WaferSlot = slot, MeasuredAtMs = at, Chamber = chamber,
+            Value = mean, N = values.Length, Sd = sd, PredictedDvtSatMv = double.IsFinite(dvt) ? dvt : null,
+        };
+    }
+
+    private async Task<List<FeedMessage>> JudgeAsync(ChartContext context, List<ChartPoint> points, CancellationToken cancellationToken)
+    {
+        var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        var limits = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == context.Id && l.Status == "approved")
+            .OrderBy(l => l.EffectiveFromMs).ToListAsync(cancellationToken);
+        var rules = ContextRules.Parse(context.Rules);
+        var evaluator = new RunRuleEvaluator(rules);
+        var history = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == context.Id && p.Z != null)
+            .OrderByDescending(p => p.Seq).Take(ReplayPoints).ToListAsync(cancellationToken);
+        foreach (var p in history.OrderBy(p => p.Seq))
+        {
+            evaluator.Append((int)p.Seq, p.Value, p.Z!.Value, null);
+        }
+
+        var seq = await db.ChartPoints.Where(p => p.ContextId == context.Id).MaxAsync(p => (long?)p.Seq, cancellationToken) ?? 0;
+        var signals = new List<RuleSignal>();
+        var messages = new List<FeedMessage>();
+        foreach (var point in points)
+        {
+            point.Seq = ++seq;
+            var limit = limits.LastOrDefault(l => l.EffectiveFromMs <= point.MeasuredAtMs);
+            signals.Clear();
+            if (limit is not null)
+            {
+                var sigmaPoint = ContextRules.PointSigma(context, limit, point.N);
+                point.LimitVersionId = limit.Id;
+                point.Z = sigmaPoint > 0 ? (point.Value - limit.Centre) / sigmaPoint : null;
+                evaluator.Append((int)point.Seq, point.Value, point.Z ?? double.NaN, signals);
+                point.Signals = string.Join(',', signals.Select(s => RunRules.Id(s.Rule)));
+            }
+
+            db.ChartPoints.Add(point);
+            await db.SaveChangesAsync(cancellationToken);
+            messages.Add(await FeedLog.AddAsync(db, "point", context, ContextRules.ToMessage(context, point, limit), null, now, cancellationToken));
+            foreach (var signal in signals)
+            {
+                var alert = await RaiseOrExtendAsync(context, signal.Rule, point, now, cancellationToken);
+                messages.Add(await FeedLog.AddAsync(db, "alert", context, null, AlertViews.ToMessage(alert, context, await FirstSeqAsync(alert, cancellationToken), point.Seq), now, cancellationToken));
+            }
+        }
+
+        return messages;
+    }
+
+    private Task<long> FirstSeqAsync(Alert alert, CancellationToken cancellationToken) =>
+        db.ChartPoints.Where(p => p.Id == alert.FirstPointId).Select(p => p.Seq).SingleAsync(cancellationToken);
+
+    // One open alert per context and rule: a new signal of the same rule adds its point to it rather than raising another.
+    private async Task<Alert> RaiseOrExtendAsync(ChartContext context, RunRule rule, ChartPoint point, long now, CancellationToken cancellationToken)
+    {
+        var id = RunRules.Id(rule);
+        var alert = await db.Alerts.SingleOrDefaultAsync(a => a.ContextId == context.Id && a.Rule == id && a.State != AlertStates.Closed, cancellationToken);
+        var dvt = point.PredictedDvtSatMv;
+        if (alert is null)
+        {
+            var rank = Severity.Rank(rule, dvt, context.ElectricalConcernMv);
+            alert = new Alert
+            {
+                ContextId = context.Id, Rule = id, State = AlertStates.Open, RaisedAtMs = now, UpdatedAtMs = now,
+                FirstPointId = point.Id, LastPointId = point.Id, PointCount = 1, LotId = point.LotId, WaferSlot = point.WaferSlot,
+                Chamber = point.Chamber, PredictedDvtSatMv = dvt, Severity = Severity.Name(rank), SeverityRank = rank,
+            };
+            db.Alerts.Add(alert);
+            await db.SaveChangesAsync(cancellationToken);
+            db.AlertEvents.Add(new AlertEvent
+            {
+                AlertId = alert.Id, Kind = "raised", AtMs = now, By = "FinWatch", PointId = point.Id,
+                Comment = $"{Severity.Describe(rule)} at lot {point.LotId}{(point.WaferSlot is { } s ? $" wafer {s}" : "")}",
+            });
+        }
+        else
+        {
+            alert.LastPointId = point.Id;
+            alert.PointCount++;
+            alert.UpdatedAtMs = now;
+            alert.LotId = point.LotId;
+            alert.WaferSlot = point.WaferSlot;
+            alert.Chamber = point.Chamber;
+            if (dvt is { } d && (alert.PredictedDvtSatMv is not { } old || Math.Abs(d) > Math.Abs(old)))
+            {
+                alert.PredictedDvtSatMv = d;
+            }
+
+            alert.SeverityRank = Math.Max(alert.SeverityRank, Severity.Rank(rule, alert.PredictedDvtSatMv, context.ElectricalConcernMv));
+            alert.Severity = Severity.Name(alert.SeverityRank);
+            db.AlertEvents.Add(new AlertEvent
+            {
+                AlertId = alert.Id, Kind = "point-added", AtMs = now, By = "FinWatch", PointId = point.Id,
+                Comment = $"lot {point.LotId}{(point.WaferSlot is { } s ? $" wafer {s}" : "")}",
+            });
+        }
+
+        await db.SaveChangesAsync(cancellationToken);
+        return alert;
+    }
+}

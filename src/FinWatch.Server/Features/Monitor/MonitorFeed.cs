@@ -1,0 +1,45 @@
+using Microsoft.AspNetCore.SignalR;
+
+namespace FinWatch.Server.Features.Monitor;
+
+/// <summary>Pushes committed feed entries to the watching clients, in order, off the request's path.</summary>
+public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> hub, ILogger<MonitorFeed> logger) : IDisposable
+{
+    private readonly SemaphoreSlim order = new(1, 1);
+
+    public void Dispose() => order.Dispose();
+
+    public void Publish(IReadOnlyList<FeedMessage> messages)
+    {
+        if (messages.Count == 0)
+        {
+            return;
+        }
+
+        _ = SendAsync(messages);
+    }
+
+    private async Task SendAsync(IReadOnlyList<FeedMessage> messages)
+    {
+        await order.WaitAsync();
+        try
+        {
+            foreach (var m in messages)
+            {
+                await hub.Clients.Groups(MonitorHub.AllGroup, MonitorHub.ContextGroup(m.Context)).Feed(m);
+            }
+        }
+        catch (Exception e) when (e is not OutOfMemoryException)
+        {
+            // Clients that miss an entry catch up from the feed by number; the data are already committed.
+            LogSendFailed(e);
+        }
+        finally
+        {
+            order.Release();
+        }
+    }
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Live feed: sending to clients failed; they will catch up by feed number")]
+    private partial void LogSendFailed(Exception e);
+}

@@ -1,0 +1,41 @@
+using FinWatch.Data;
+using Microsoft.AspNetCore.SignalR;
+
+namespace FinWatch.Server.Features.Monitor;
+
+/// <summary>What the server calls on a connected browser: one feed entry at a time (points and alert changes).</summary>
+public interface IMonitorClient
+{
+    Task Feed(FeedMessage message);
+}
+
+/// <summary>
+/// The live monitor hub (/hubs/monitor). A client watches the contexts it shows (or everything, for the floor
+/// overview and the alert queue), and after a dropped connection asks for what it missed since the last feed number it
+/// saw. Entries carry their number, so a client drops any it has already seen.
+/// </summary>
+public sealed class MonitorHub(FinWatchDbContext db) : Hub<IMonitorClient>
+{
+    public const string Path = "/hubs/monitor";
+    public const string AllGroup = "all";
+    public const int MaxCatchUp = 10_000;
+
+    public static string ContextGroup(string code) => "context:" + code;
+
+    /// <summary>Receive the entries of these contexts from now on.</summary>
+    public async Task Watch(string[] contexts)
+    {
+        ArgumentNullException.ThrowIfNull(contexts);
+        foreach (var c in contexts.Distinct(StringComparer.Ordinal).Take(500))
+        {
+            await Groups.AddToGroupAsync(Context.ConnectionId, ContextGroup(c));
+        }
+    }
+
+    /// <summary>Receive every entry from now on (floor overview, alert queue).</summary>
+    public Task WatchAll() => Groups.AddToGroupAsync(Context.ConnectionId, AllGroup);
+
+    /// <summary>The entries after <paramref name="afterSeq"/> (of these contexts, or all when empty), oldest first, at most 10,000.</summary>
+    public Task<List<FeedMessage>> CatchUp(long afterSeq, string[]? contexts) =>
+        FeedLog.ReadAsync(db, afterSeq, contexts, MaxCatchUp, Context.ConnectionAborted);
+}

@@ -1,0 +1,61 @@
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.Options;
+
+namespace FinWatch.Server.Features.Monitor;
+
+/// <summary>
+/// At start, evaluates any batch a crash left unevaluated; then, every <see cref="MonitorOptions.CheckEverySeconds"/>,
+/// escalates open alerts that nobody acknowledged within <see cref="MonitorOptions.EscalateAfterMinutes"/>.
+/// </summary>
+public sealed class MonitorWorker(IServiceScopeFactory scopes, IOptions<MonitorOptions> options, TimeProvider clock, MonitorFeed feed) : BackgroundService
+{
+    protected override async Task ExecuteAsync(CancellationToken stoppingToken)
+    {
+        await using (var scope = scopes.CreateAsyncScope())
+        {
+            await scope.ServiceProvider.GetRequiredService<MonitorEvaluator>().EvaluatePendingAsync(stoppingToken);
+        }
+
+        using var timer = new PeriodicTimer(TimeSpan.FromSeconds(options.Value.CheckEverySeconds), clock);
+        while (await timer.WaitForNextTickAsync(stoppingToken))
+        {
+            await EscalateAsync(stoppingToken);
+        }
+    }
+
+    public async Task<int> EscalateAsync(CancellationToken cancellationToken)
+    {
+        await using var scope = scopes.CreateAsyncScope();
+        var db = scope.ServiceProvider.GetRequiredService<FinWatchDbContext>();
+        var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        var due = now - (options.Value.EscalateAfterMinutes * 60_000L);
+        var alerts = await db.Alerts.Where(a => a.State == AlertStates.Open && a.EscalatedAtMs == null && a.RaisedAtMs <= due).ToListAsync(cancellationToken);
+        if (alerts.Count == 0)
+        {
+            return 0;
+        }
+
+        var messages = new List<FeedMessage>();
+        await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
+        foreach (var a in alerts)
+        {
+            a.EscalatedAtMs = now;
+            db.AlertEvents.Add(new AlertEvent
+            {
+                AlertId = a.Id, Kind = "escalated", AtMs = now, By = "FinWatch",
+                Comment = $"not acknowledged within {options.Value.EscalateAfterMinutes} min; shown to the supervisors",
+            });
+            var context = await db.ChartContexts.AsNoTracking().SingleAsync(c => c.Id == a.ContextId, cancellationToken);
+            var seqs = await db.ChartPoints.Where(p => p.Id == a.FirstPointId || p.Id == a.LastPointId).Select(p => new { p.Id, p.Seq }).ToListAsync(cancellationToken);
+            messages.Add(await FeedLog.AddAsync(db, "alert", context,
+                null, AlertViews.ToMessage(a, context, seqs.First(s => s.Id == a.FirstPointId).Seq, seqs.First(s => s.Id == a.LastPointId).Seq), now, cancellationToken));
+        }
+
+        await db.SaveChangesAsync(cancellationToken);
+        await transaction.CommitAsync(cancellationToken);
+        feed.Publish(messages);
+        return alerts.Count;
+    }
+}
