@@ -46,7 +46,15 @@ public static class DemoFab
     /// culture, UTC ISO-8601 times with 'Z', rows in measurement-time order. Nothing but one line is held in memory.
     /// </summary>
     /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
-    public static void WriteMeasurementsCsv(TextWriter writer, int seed = DefaultSeed, DemoScale? scale = null)
+    public static void WriteMeasurementsCsv(TextWriter writer, int seed = DefaultSeed, DemoScale? scale = null) =>
+        WriteMeasurementsCsv(writer, seed, scale, null, null);
+
+    /// <summary>
+    /// As <see cref="WriteMeasurementsCsv(TextWriter, int, DemoScale?)"/>, keeping only the rows measured in
+    /// [<paramref name="fromUtc"/>, <paramref name="toUtc"/>) (either end open when null).
+    /// </summary>
+    /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
+    public static void WriteMeasurementsCsv(TextWriter writer, int seed, DemoScale? scale, DateTime? fromUtc, DateTime? toUtc)
     {
         ArgumentNullException.ThrowIfNull(writer);
         IEnumerable<DemoSiteRow> rows = GenerateRows(seed, scale);
@@ -54,7 +62,10 @@ public static class DemoFab
         csv.WriteHeader();
         foreach (DemoSiteRow row in rows)
         {
-            csv.Write(row);
+            if ((fromUtc is null || row.MeasuredAtUtc >= fromUtc) && (toUtc is null || row.MeasuredAtUtc < toUtc))
+            {
+                csv.Write(row);
+            }
         }
     }
 

@@ -5,6 +5,7 @@ using FinWatch.Data.Entities;
 using FinWatch.SeedDemo;
 using FinWatch.Server.Features.Measurements;
 using FinWatch.Server.Features.Model.Calibrations;
+using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Features.Products;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
@@ -48,30 +49,52 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         await db.SaveChangesAsync(stoppingToken);
 
         var ingest = scope.ServiceProvider.GetRequiredService<IngestMeasurements>();
-        var pipe = new Pipe();
         var seed = options.Value.Seed;
         var scale = new DemoScale(options.Value.Days, options.Value.LotsPerDay);
+
+        // The first weeks are the baseline the demo's limits are computed from; the rest arrives after the limits are approved.
+        var start = DemoFab.StartUtc(scale);
+        var cut = start + TimeSpan.FromDays(Math.Min(20, Math.Max(1, options.Value.Days / 3)));
+        var baseline = await IngestPartAsync(ingest, seed, scale, null, cut, "baseline", stoppingToken);
+        if (baseline is null)
+        {
+            return;
+        }
+
+        await DemoMonitor.SetUpAsync(db, scope.ServiceProvider.GetRequiredService<MonitorEvaluator>(), cut, now, stoppingToken);
+        var rest = await IngestPartAsync(ingest, seed, scale, cut, null, "monitoring", stoppingToken);
+        if (rest is null)
+        {
+            return;
+        }
+
+        LogLoaded(baseline.Inserted + rest.Inserted, (baseline.DurationMs + rest.DurationMs) / 1000);
+        await CalibrateAsync(scope.ServiceProvider.GetRequiredService<CalibrateModel>(), seed, scale, stoppingToken);
+        State = "loaded";
+    }
+
+    private async Task<IngestAccepted?> IngestPartAsync(IngestMeasurements ingest, int seed, DemoScale scale, DateTime? from, DateTime? to, string part,
+        CancellationToken stoppingToken)
+    {
+        var pipe = new Pipe();
         var writer = Task.Run(async () =>
         {
             await using var stream = pipe.Writer.AsStream();
             await using var text = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
-            DemoFab.WriteMeasurementsCsv(text, seed, scale);
+            DemoFab.WriteMeasurementsCsv(text, seed, scale, from, to);
         }, stoppingToken);
         await using var reader = pipe.Reader.AsStream();
-        var outcome = await ingest.RunAsync(CsvRowSource.ReadAsync(reader, stoppingToken), "demo", $"invented demo fab, seed {seed}", stoppingToken);
+        var outcome = await ingest.RunAsync(CsvRowSource.ReadAsync(reader, stoppingToken), "demo", $"invented demo fab, seed {seed}, {part}", stoppingToken);
         await pipe.Reader.CompleteAsync();
         await writer;
         if (outcome.Accepted is { } a)
         {
-            LogLoaded(a.Inserted, a.DurationMs / 1000);
-            await CalibrateAsync(scope.ServiceProvider.GetRequiredService<CalibrateModel>(), seed, scale, stoppingToken);
-            State = "loaded";
+            return a;
         }
-        else
-        {
-            State = "failed";
-            LogFailed(outcome.Rejected!.ErrorCount, string.Join("; ", outcome.Rejected.Errors.Take(3).Select(e => $"row {e.Row} {e.Column}: {e.Reason}")));
-        }
+
+        State = "failed";
+        LogFailed(outcome.Rejected!.ErrorCount, string.Join("; ", outcome.Rejected.Errors.Take(3).Select(e => $"row {e.Row} {e.Column}: {e.Reason}")));
+        return null;
     }
 
     // The invented electrical tests go through the normal calibration, one product at a time, as an engineer's upload would.

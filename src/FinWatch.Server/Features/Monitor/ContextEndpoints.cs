@@ -269,10 +269,7 @@ public static partial class ContextEndpoints
         }
 
         var used = points.Where(p => !exclude.Any(e => e.Seq == p.Seq)).ToList();
-        var (centre, sigma) = used.Count == 0 ? (double.NaN, null)
-            : context.ChartType == "xbar"
-                ? SummaryLimits.MeanStandardDeviation([.. used.Select(p => p.Value)], [.. used.Select(p => p.N)], [.. used.Select(p => p.Sd ?? 0)])
-                : SummaryLimits.Individuals([.. used.Select(p => p.Value)]);
+        var (centre, sigma) = Estimate(context, used);
         if (sigma is not > 0)
         {
             errors["points"] = [$"{used.Count} usable points in seq {from}..{(r.ToSeq is null ? "last" : r.ToSeq)}: too few to estimate σ (an xbar chart needs a subgroup of 2 or more sites, an individuals chart 2 points)"];
@@ -284,18 +281,29 @@ public static partial class ContextEndpoints
         }
 
         var version = 1 + (await db.LimitVersions.Where(l => l.ContextId == context.Id).MaxAsync(l => (int?)l.Version, cancellationToken) ?? 0);
-        var limit = new LimitVersion
-        {
-            ContextId = context.Id, Version = version, Status = "draft", Centre = centre, Sigma = sigma!.Value,
-            SubgroupSize = context.ChartType == "xbar" ? used.Average(p => p.N) : 1, PointsUsed = used.Count,
-            FromMs = used.Min(p => p.MeasuredAtMs), ToMs = used.Max(p => p.MeasuredAtMs),
-            ExcludedJson = JsonSerializer.Serialize(exclude, FeedLog.Json), ComputedBy = http.User.Identity?.Name ?? "not signed in",
-            ComputedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds(), Reason = r.Reason!.Trim(),
-        };
+        var limit = Draft(context, version, centre, sigma!.Value, used, exclude, http.User.Identity?.Name ?? "not signed in",
+            clock.GetUtcNow().ToUnixTimeMilliseconds(), r.Reason!.Trim());
         db.LimitVersions.Add(limit);
         await db.SaveChangesAsync(cancellationToken);
         return TypedResults.Created($"/api/contexts/{Uri.EscapeDataString(code)}/limits", Describe(context, limit));
     }
+
+    /// <summary>Centre and σ of a context's chosen points: Xbar-S from summaries or I-MR (spc.md 2.1, 2.3).</summary>
+    public static (double Centre, double? Sigma) Estimate(ChartContext context, IReadOnlyList<ChartPoint> used) =>
+        used.Count == 0 ? (double.NaN, null)
+            : context.ChartType == "xbar"
+                ? SummaryLimits.MeanStandardDeviation([.. used.Select(p => p.Value)], [.. used.Select(p => p.N)], [.. used.Select(p => p.Sd ?? 0)])
+                : SummaryLimits.Individuals([.. used.Select(p => p.Value)]);
+
+    /// <summary>A draft limit version from the chosen points.</summary>
+    public static LimitVersion Draft(ChartContext context, int version, double centre, double sigma, IReadOnlyList<ChartPoint> used,
+        IReadOnlyList<ExcludedPoint> exclude, string by, long nowMs, string reason) => new()
+    {
+        ContextId = context.Id, Version = version, Status = "draft", Centre = centre, Sigma = sigma,
+        SubgroupSize = context.ChartType == "xbar" ? used.Average(p => p.N) : 1, PointsUsed = used.Count,
+        FromMs = used.Min(p => p.MeasuredAtMs), ToMs = used.Max(p => p.MeasuredAtMs),
+        ExcludedJson = JsonSerializer.Serialize(exclude, FeedLog.Json), ComputedBy = by, ComputedAtMs = nowMs, Reason = reason,
+    };
 
     private static async Task<Results<Ok<LimitResponse>, ValidationProblem, ProblemHttpResult>> ApproveAsync(
         string code, int version, ApproveRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator, CancellationToken cancellationToken)

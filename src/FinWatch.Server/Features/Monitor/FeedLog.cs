@@ -21,6 +21,19 @@ public static class FeedLog
         return message with { Seq = e.Seq };
     }
 
+    /// <summary>Stages one entry for the caller's next SaveChanges; its number is known after that (see <see cref="Numbered"/>).</summary>
+    public static (FeedEvent Entry, FeedMessage Message) Stage(FinWatchDbContext db, string kind, ChartContext context, PointMessage? point, AlertMessage? alert, long now)
+    {
+        var message = new FeedMessage(0, kind, context.Code, point, alert);
+        var e = new FeedEvent { Kind = kind, ContextId = context.Id, AtMs = now, Payload = JsonSerializer.Serialize(message, Json) };
+        db.FeedEvents.Add(e);
+        return (e, message);
+    }
+
+    /// <summary>The staged entries with the numbers the database gave them, in number order.</summary>
+    public static List<FeedMessage> Numbered(IEnumerable<(FeedEvent Entry, FeedMessage Message)> staged) =>
+        [.. staged.Select(s => s.Message with { Seq = s.Entry.Seq }).OrderBy(m => m.Seq)];
+
     /// <summary>The entries after <paramref name="afterSeq"/>, oldest first, optionally for some contexts only.</summary>
     public static async Task<List<FeedMessage>> ReadAsync(FinWatchDbContext db, long afterSeq, IReadOnlyCollection<string>? contexts, int max,
         CancellationToken cancellationToken)

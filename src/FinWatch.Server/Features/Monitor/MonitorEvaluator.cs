@@ -85,6 +85,7 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
         tracked.EvaluatedThroughBatchId = throughBatch;
         await db.SaveChangesAsync(cancellationToken);
         await transaction.CommitAsync(cancellationToken);
+        db.ChangeTracker.Clear();
         return messages;
     }
 
@@ -135,7 +136,7 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
 
         var seq = await db.ChartPoints.Where(p => p.ContextId == context.Id).MaxAsync(p => (long?)p.Seq, cancellationToken) ?? 0;
         var signals = new List<RuleSignal>();
-        var messages = new List<FeedMessage>();
+        var staged = new List<(FeedEvent, FeedMessage)>();
         foreach (var point in points)
         {
             point.Seq = ++seq;
@@ -151,20 +152,25 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
             }
 
             db.ChartPoints.Add(point);
-            await db.SaveChangesAsync(cancellationToken);
-            messages.Add(await FeedLog.AddAsync(db, "point", context, ContextRules.ToMessage(context, point, limit), null, now, cancellationToken));
-            foreach (var signal in signals)
+            staged.Add(FeedLog.Stage(db, "point", context, ContextRules.ToMessage(context, point, limit), null, now));
+            if (signals.Count > 0)
             {
-                var alert = await RaiseOrExtendAsync(context, signal.Rule, point, now, cancellationToken);
-                messages.Add(await FeedLog.AddAsync(db, "alert", context, null, AlertViews.ToMessage(alert, context, await FirstSeqAsync(alert, cancellationToken), point.Seq), now, cancellationToken));
+                await db.SaveChangesAsync(cancellationToken); // the alert refers to the point by id
+                foreach (var signal in signals)
+                {
+                    var alert = await RaiseOrExtendAsync(context, signal.Rule, point, now, cancellationToken);
+                    staged.Add(FeedLog.Stage(db, "alert", context, null, AlertViews.ToMessage(alert, context, await FirstSeqAsync(alert, point, cancellationToken), point.Seq), now));
+                }
             }
         }
 
-        return messages;
+        await db.SaveChangesAsync(cancellationToken);
+        return FeedLog.Numbered(staged);
     }
 
-    private Task<long> FirstSeqAsync(Alert alert, CancellationToken cancellationToken) =>
-        db.ChartPoints.Where(p => p.Id == alert.FirstPointId).Select(p => p.Seq).SingleAsync(cancellationToken);
+    private async Task<long> FirstSeqAsync(Alert alert, ChartPoint current, CancellationToken cancellationToken) =>
+        alert.FirstPointId == current.Id ? current.Seq
+            : await db.ChartPoints.Where(p => p.Id == alert.FirstPointId).Select(p => p.Seq).SingleAsync(cancellationToken);
 
     // One open alert per context and rule: a new signal of the same rule adds its point to it rather than raising another.
     private async Task<Alert> RaiseOrExtendAsync(ChartContext context, RunRule rule, ChartPoint point, long now, CancellationToken cancellationToken)

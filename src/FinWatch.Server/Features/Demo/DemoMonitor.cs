@@ -1,0 +1,101 @@
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Monitor;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Server.Features.Demo;
+
+/// <summary>
+/// The demo's chart contexts: the main parameters of both invented products, per etch or liner chamber where the
+/// planted behaviour lives, with invented reaction plans. Their limits are computed from the baseline part of the data
+/// and approved, as an engineer would, effective from the end of the baseline, so the planted drifts in the rest of the
+/// data raise real alerts when it is ingested.
+/// </summary>
+public static class DemoMonitor
+{
+    public const string DemoEngineer = "demo engineer (invented)";
+
+    private static readonly string[] EtchChambers = ["FX07-L", "FX07-R", "FX08-L", "FX08-R"];
+    private static readonly string[] LinerChambers = ["LD03-1", "LD03-2"];
+
+    private static readonly string[] EtchPlan =
+    [
+        "Put the lot on hold at the next step",
+        "Re-measure two wafers of the lot on the other profile tool",
+        "Check the etch chamber's RF hours and last maintenance in the chamber log",
+        "If confirmed, inhibit the chamber and call the etch engineer on duty",
+    ];
+
+    private static readonly string[] LinerPlan =
+    [
+        "Put the lot on hold at the next step",
+        "Re-measure the liner on two wafers",
+        "Check the deposition chamber's precursor and recipe log",
+        "If confirmed, inhibit the chamber and call the thin-film engineer on duty",
+    ];
+
+    private static readonly string[] ElectricalPlan =
+    [
+        "Flag the lot for early electrical test of the threshold structures",
+        "Review which profile input drives the predicted shift (model what-if page)",
+        "Tell the device engineer on duty; the prediction is an engineering estimate, not a test result",
+    ];
+
+    /// <summary>The demo contexts of one product.</summary>
+    public static IEnumerable<ChartContext> ContextsFor(Product p, long nowMs)
+    {
+        ChartContext C(string code, string title, string step, string parameter, string? chamber, string[] plan, double concern = 10) => new()
+        {
+            Code = $"{p.Code}-{code}", Title = $"{p.Code} {title}", ProductId = p.Id, Step = step, Parameter = parameter, Chamber = chamber,
+            ChartType = "individuals", Subgroup = "wafer", Rules = "WE1,WE2,WE3,WE4", ReactionPlan = string.Join('\n', plan),
+            ElectricalConcernMv = concern, CreatedAtMs = nowMs, UpdatedAtMs = nowMs,
+        };
+
+        foreach (var chamber in EtchChambers)
+        {
+            yield return C($"taper-{chamber}", $"sidewall taper, etch {chamber}", SeedDemo.DemoFab.ProfileStep, "taper_deg", chamber, EtchPlan);
+            yield return C($"radius-{chamber}", $"top-corner radius, etch {chamber}", SeedDemo.DemoFab.ProfileStep, "corner_radius_nm", chamber, EtchPlan);
+        }
+
+        foreach (var chamber in LinerChambers)
+        {
+            yield return C($"liner-{chamber}", $"liner thickness, {chamber}", SeedDemo.DemoFab.ProfileStep, "liner_thickness_nm", chamber, LinerPlan);
+        }
+
+        yield return C("mid-width", "mid-height width, all chambers", SeedDemo.DemoFab.ProfileStep, "mid_width_nm", null, EtchPlan);
+        yield return C("dvt-sat", "predicted ΔVT (saturation), all chambers", SeedDemo.DemoFab.ProfileStep, "delta_vt_sat_mv", null, ElectricalPlan);
+    }
+
+    /// <summary>Creates the contexts, turns the stored (baseline) data into their points, and approves limits from them.</summary>
+    public static async Task SetUpAsync(FinWatchDbContext db, MonitorEvaluator evaluator, DateTime effectiveFromUtc, long nowMs, CancellationToken cancellationToken)
+    {
+        foreach (var p in await db.Products.AsNoTracking().OrderBy(p => p.Id).ToListAsync(cancellationToken))
+        {
+            db.ChartContexts.AddRange(ContextsFor(p, nowMs));
+        }
+
+        await db.SaveChangesAsync(cancellationToken);
+        await evaluator.EvaluatePendingAsync(cancellationToken);
+        var effective = new DateTimeOffset(effectiveFromUtc, TimeSpan.Zero).ToUnixTimeMilliseconds();
+        foreach (var context in await db.ChartContexts.AsNoTracking().ToListAsync(cancellationToken))
+        {
+            var points = await db.ChartPoints.AsNoTracking().Where(x => x.ContextId == context.Id).OrderBy(x => x.Seq).ToListAsync(cancellationToken);
+            var (centre, sigma) = ContextEndpoints.Estimate(context, points);
+            if (sigma is not > 0)
+            {
+                continue; // too little baseline in a small demo window: the context stays in its baseline phase
+            }
+
+            var limit = ContextEndpoints.Draft(context, 1, centre, sigma.Value, points, [], DemoEngineer, effective,
+                "demo: baseline of the invented fab's first weeks");
+            limit.Status = "approved";
+            limit.ApprovedBy = DemoEngineer;
+            limit.ApprovedAtMs = effective;
+            limit.ApprovalComment = "demo: reviewed and approved at the end of the baseline (invented history)";
+            limit.EffectiveFromMs = Math.Max(effective, limit.ToMs);
+            db.LimitVersions.Add(limit);
+        }
+
+        await db.SaveChangesAsync(cancellationToken);
+    }
+}
