@@ -352,7 +352,7 @@ public static class QuadratureSliceModel
         guess = double.NaN;
         for (int i = 0; i < m; i++)
         {
-            films[i] = ctx.Direct(filmMin + (i * filmStep), guess).LambdaW;
+            films[i] = ctx.Lambda(filmMin + (i * filmStep), guess);
             guess = films[i];
         }
 
@@ -405,8 +405,10 @@ public static class QuadratureSliceModel
         }
 
         /// <summary>λ_W(w) by its exact root, and the long-channel threshold φ + depletion + κ_QC·ΔV_T,QC at width w (E.1).</summary>
-        public (double LambdaW, double BaseVt) Direct(double w, double guessLambda) =>
-            (DoubleGateNm(w, _eot, guessLambda), w <= 100 ? LongChannelV(w) : double.NaN);
+        public (double LambdaW, double BaseVt) Direct(double w, double guessLambda) => (Lambda(w, guessLambda), LongChannelV(w));
+
+        /// <summary>The exact double-gate λ of a film <paramref name="t"/> nm thick with this EOT (B.2).</summary>
+        public double Lambda(double t, double guessLambda) => DoubleGateNm(t, _eot, guessLambda);
 
         private double LongChannelV(double w)
         {

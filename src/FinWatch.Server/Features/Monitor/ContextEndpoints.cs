@@ -131,7 +131,8 @@ public static partial class ContextEndpoints
 
         var errors = new Dictionary<string, string[]>();
         CheckCommon(r, errors, creating: false);
-        foreach (var (name, given, current) in new[] { ("product", r.Product, (string?)null), ("step", r.Step, context.Step), ("parameter", r.Parameter, context.Parameter), ("chamber", r.Chamber, context.Chamber) })
+        var productCode = await db.Products.Where(p => p.Id == context.ProductId).Select(p => p.Code).SingleAsync(cancellationToken);
+        foreach (var (name, given, current) in new[] { ("product", r.Product, (string?)productCode), ("step", r.Step, context.Step), ("parameter", r.Parameter, context.Parameter), ("chamber", r.Chamber, context.Chamber) })
         {
             if (given is not null && given != current)
             {
@@ -148,8 +149,6 @@ public static partial class ContextEndpoints
         context.Rules = r.Rules is null ? context.Rules : NormaliseRules(r.Rules);
         context.ReactionPlan = r.ReactionPlan is null ? context.ReactionPlan : string.Join('\n', r.ReactionPlan.Select(s => s.Trim()).Where(s => s.Length > 0));
         context.ElectricalConcernMv = r.ElectricalConcernMv ?? context.ElectricalConcernMv;
-        context.ChartType = r.ChartType ?? context.ChartType;
-        context.Subgroup = r.Subgroup ?? context.Subgroup;
         context.UpdatedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds();
         await db.SaveChangesAsync(cancellationToken);
         return TypedResults.Ok(await DescribeAsync(db, context, cancellationToken));

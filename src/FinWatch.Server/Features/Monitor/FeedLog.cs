@@ -14,11 +14,9 @@ public static class FeedLog
     public static async Task<FeedMessage> AddAsync(FinWatchDbContext db, string kind, ChartContext context, PointMessage? point, AlertMessage? alert,
         long now, CancellationToken cancellationToken)
     {
-        var message = new FeedMessage(0, kind, context.Code, point, alert);
-        var e = new FeedEvent { Kind = kind, ContextId = context.Id, AtMs = now, Payload = JsonSerializer.Serialize(message, Json) };
-        db.FeedEvents.Add(e);
+        var (entry, message) = Stage(db, kind, context, point, alert, now);
         await db.SaveChangesAsync(cancellationToken);
-        return message with { Seq = e.Seq };
+        return message with { Seq = entry.Seq };
     }
 
     /// <summary>Stages one entry for the caller's next SaveChanges; its number is known after that (see <see cref="Numbered"/>).</summary>

@@ -14,7 +14,7 @@ namespace FinWatch.Server.Features.Model.Calibrations;
 /// the tests it was fitted on. From then on every prediction (ingest, predict, sensitivities) uses the new set and is
 /// stamped with it. All or nothing: a file with any bad row stores nothing.
 /// </summary>
-public sealed class CalibrateModel(FinWatchDbContext db, ProductModels models, TimeProvider clock, ILogger<CalibrateModel> logger)
+public sealed class CalibrateModel(FinWatchDbContext db, TimeProvider clock, ILogger<CalibrateModel> logger)
 {
     public const double DefaultMeasurementSdMv = 5;
 
@@ -134,7 +134,7 @@ public sealed class CalibrateModel(FinWatchDbContext db, ProductModels models, T
                 product.Code, set.Version, tests.Count, fit.RmsResidualBeforeMv, fit.RmsResidualAfterMv);
         }
 
-        var parameters = request.Preview ? fit.Parameters : models.For(product, set).Parameters;
+        var parameters = request.Preview ? fit.Parameters : ProductModels.ParametersOf(product, set);
         return new Outcome(Describe(product, set, prior, parameters, request.Preview ? null : set.Version, tests, now), null);
     }
 

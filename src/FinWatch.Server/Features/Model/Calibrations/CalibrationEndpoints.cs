@@ -54,7 +54,7 @@ public static class CalibrationEndpoints
     }
 
     private static async Task<Results<Ok<CalibrationHistoryResponse>, ValidationProblem>> HistoryAsync(
-        string? product, FinWatchDbContext db, ProductModels models, CancellationToken cancellationToken)
+        string? product, FinWatchDbContext db, CancellationToken cancellationToken)
     {
         var p = product is null ? null : await db.Products.AsNoTracking().SingleOrDefaultAsync(x => x.Code == product, cancellationToken);
         if (p is null)
@@ -64,7 +64,7 @@ public static class CalibrationEndpoints
 
         var sets = await db.ModelParameterSets.AsNoTracking().Where(s => s.ProductId == p.Id).OrderByDescending(s => s.Version).ToListAsync(cancellationToken);
         var prior = ProductModels.ParametersOf(p);
-        var list = sets.Select(s => CalibrateModel.Describe(p, s, prior, models.For(p, s).Parameters, s.Version, null,
+        var list = sets.Select(s => CalibrateModel.Describe(p, s, prior, ProductModels.ParametersOf(p, s), s.Version, null,
             DateTimeOffset.FromUnixTimeMilliseconds(s.CreatedAtMs))).ToList();
         return TypedResults.Ok(new CalibrationHistoryResponse(p.Code, list, EvaluateModel.PredictionCaution));
     }
