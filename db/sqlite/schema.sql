@@ -338,3 +338,13 @@ VALUES ('20261202111908_LiveMonitor', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+DROP INDEX "IX_measurements_batch_id";
+
+CREATE INDEX "IX_measurements_batch_id_product_id_step" ON "measurements" ("batch_id", "product_id", "step");
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202143009_MonitorBatchIndex', '10.0.15');
+
+COMMIT;
+

@@ -23,6 +23,7 @@ builder.Services.AddMonitor();
 var app = builder.Build();
 await app.MigrateFinWatchDatabaseAsync();
 app.UseFinWatchApiDefaults();
+app.UseFinWatchPages();
 app.MapAbout();
 app.MapParameters();
 app.MapProducts();

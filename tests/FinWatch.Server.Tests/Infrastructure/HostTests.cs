@@ -30,9 +30,9 @@ public class HostTests : IntegrationTest
     }
 
     [Fact]
-    public async Task Root_DescribesTheService()
+    public async Task About_DescribesTheService()
     {
-        var about = await ReadJsonAsync(await Client.GetAsync("/"));
+        var about = await ReadJsonAsync(await Client.GetAsync("/api/about"));
         Assert.Equal("FinWatch", about.GetProperty("name").GetString());
         Assert.Equal("/openapi/v1.json", about.GetProperty("links").GetProperty("openapi").GetString());
     }

@@ -789,7 +789,7 @@ namespace FinWatch.Data.Migrations.Sqlite
 
                     b.HasKey("Id");
 
-                    b.HasIndex("BatchId");
+                    b.HasIndex("BatchId", "ProductId", "Step");
 
                     b.HasIndex("ProductId", "Step", "MeasuredAtMs");
 

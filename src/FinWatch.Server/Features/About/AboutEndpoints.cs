@@ -7,13 +7,13 @@ public sealed record AboutResponse(string Name, string Version, string Job, stri
 
 public static class AboutEndpoints
 {
-    /// <summary>The root answers with what this service is and where its parts are (the floor pages arrive with the live monitor).</summary>
+    /// <summary>What this service is and where its parts are; the root (/) serves the floor pages.</summary>
     public static IEndpointRouteBuilder MapAbout(this IEndpointRouteBuilder app)
     {
-        app.MapGet("/", (DemoLoader demo) => TypedResults.Ok(new AboutResponse(
+        app.MapGet("/api/about", (DemoLoader demo) => TypedResults.Ok(new AboutResponse(
             "FinWatch",
             typeof(AboutEndpoints).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "dev",
-            "Fin-profile metrology ingest, derived fin geometry and (to come) SPC and electrical-impact estimates for FinFET lines.",
+            "Fin-profile metrology ingest, derived fin geometry, SPC, electrical-impact estimates and a live monitor for FinFET lines.",
             demo.State,
             new Dictionary<string, string>
             {
@@ -25,6 +25,10 @@ public static class AboutEndpoints
                 ["series"] = "/api/series?product={code}&step={step}&parameter=taper_deg&level=wafer",
                 ["ingest_json"] = "POST /api/measurements",
                 ["ingest_csv"] = "POST /api/measurements/csv",
+                ["contexts"] = "/api/contexts",
+                ["alerts"] = "/api/alerts?state=active",
+                ["live_hub"] = "/hubs/monitor",
+                ["floor_pages"] = "/",
             }))).WithTags("About").WithSummary("What this service is, and links to its API");
         return app;
     }

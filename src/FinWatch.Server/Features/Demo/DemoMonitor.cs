@@ -9,7 +9,9 @@ namespace FinWatch.Server.Features.Demo;
 /// The demo's chart contexts: the main parameters of both invented products, per etch or liner chamber where the
 /// planted behaviour lives, with invented reaction plans. Their limits are computed from the baseline part of the data
 /// and approved, as an engineer would, effective from the end of the baseline, so the planted drifts in the rest of the
-/// data raise real alerts when it is ingested.
+/// data raise real alerts when it is ingested. Each point is one lot (the mean of its wafer means) on an individuals
+/// chart, so the moving range measures the lot-to-lot variation: wafers of one lot share their etch and liner run and
+/// vary far less among themselves, and limits from wafer-to-wafer moving ranges would be too tight for lots.
 /// </summary>
 public static class DemoMonitor
 {
@@ -47,7 +49,7 @@ public static class DemoMonitor
         ChartContext C(string code, string title, string step, string parameter, string? chamber, string[] plan, double concern = 10) => new()
         {
             Code = $"{p.Code}-{code}", Title = $"{p.Code} {title}", ProductId = p.Id, Step = step, Parameter = parameter, Chamber = chamber,
-            ChartType = "individuals", Subgroup = "wafer", Rules = "WE1,WE2,WE3,WE4", ReactionPlan = string.Join('\n', plan),
+            ChartType = "individuals", Subgroup = "lot", Rules = "WE1,WE2,WE3,WE4", ReactionPlan = string.Join('\n', plan),
             ElectricalConcernMv = concern, CreatedAtMs = nowMs, UpdatedAtMs = nowMs,
         };
 

@@ -59,34 +59,50 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
         }
 
         var column = parameter.Property;
-        var q = db.Measurements.AsNoTracking().Where(m => m.BatchId > context.EvaluatedThroughBatchId && m.BatchId <= throughBatch
-            && m.ProductId == context.ProductId && m.Step == context.Step && EF.Property<double?>(m, column) != null);
-        if (context.Chamber is { } chamber)
+        var batches = await db.IngestBatches.AsNoTracking().Where(b => b.Id > context.EvaluatedThroughBatchId && b.Id <= throughBatch)
+            .OrderBy(b => b.Id).Select(b => b.Id).ToListAsync(cancellationToken);
+        var candidates = new List<ChartPoint>();
+        foreach (var batchId in batches)
         {
-            q = q.Where(m => m.EtchChamber == chamber || m.LinerChamber == chamber);
+            // One batch at a time by equality, so the (batch, product, step) index serves it however long the history.
+            var q = db.Measurements.AsNoTracking().Where(m => m.BatchId == batchId
+                && m.ProductId == context.ProductId && m.Step == context.Step && EF.Property<double?>(m, column) != null);
+            if (context.Chamber is { } chamber)
+            {
+                q = q.Where(m => m.EtchChamber == chamber || m.LinerChamber == chamber);
+            }
+
+            var sites = await q.Select(m => new SiteValue(m.LotId, m.WaferSlot, m.MeasuredAtMs, m.EtchChamber, m.LinerChamber,
+                    EF.Property<double?>(m, column)!.Value, m.DeltaVtSatMv))
+                .ToListAsync(cancellationToken);
+            candidates.AddRange(Subgroups(context, batchId, sites));
         }
 
-        var rows = await q.Select(m => new { m.BatchId, Site = new SiteValue(m.LotId, m.WaferSlot, m.MeasuredAtMs, m.EtchChamber, m.LinerChamber,
-                EF.Property<double?>(m, column)!.Value, m.DeltaVtSatMv) })
-            .ToListAsync(cancellationToken);
-
-        var candidates = rows.GroupBy(r => r.BatchId).OrderBy(g => g.Key)
-            .SelectMany(g => Subgroups(context, g.Key, g.Select(r => r.Site)))
-            .ToList();
-
-        await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
-        var tracked = await db.ChartContexts.SingleAsync(c => c.Id == context.Id, cancellationToken);
-        var messages = new List<FeedMessage>();
-        if (candidates.Count > 0)
+        // A batch can bring thousands of points per context and every signal saves once (its alert refers to the
+        // point by id): automatic change detection would rescan everything tracked at each save, quadratic in the
+        // batch. The only entities changed after being attached are the context and alerts; they are detected by hand.
+        db.ChangeTracker.AutoDetectChangesEnabled = false;
+        try
         {
-            messages = await JudgeAsync(tracked, candidates, cancellationToken);
-        }
+            await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
+            var tracked = await db.ChartContexts.SingleAsync(c => c.Id == context.Id, cancellationToken);
+            var messages = new List<FeedMessage>();
+            if (candidates.Count > 0)
+            {
+                messages = await JudgeAsync(tracked, candidates, cancellationToken);
+            }
 
-        tracked.EvaluatedThroughBatchId = throughBatch;
-        await db.SaveChangesAsync(cancellationToken);
-        await transaction.CommitAsync(cancellationToken);
-        db.ChangeTracker.Clear();
-        return messages;
+            tracked.EvaluatedThroughBatchId = throughBatch;
+            db.Entry(tracked).DetectChanges();
+            await db.SaveChangesAsync(cancellationToken);
+            await transaction.CommitAsync(cancellationToken);
+            return messages;
+        }
+        finally
+        {
+            db.ChangeTracker.Clear();
+            db.ChangeTracker.AutoDetectChangesEnabled = true;
+        }
     }
 
     // One point per wafer (its sites) or per lot (its wafer means) of each batch, in measured-at order.
@@ -210,6 +226,7 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
 
             alert.SeverityRank = Math.Max(alert.SeverityRank, Severity.Rank(rule, alert.PredictedDvtSatMv, context.ElectricalConcernMv));
             alert.Severity = Severity.Name(alert.SeverityRank);
+            db.Entry(alert).DetectChanges();
             db.AlertEvents.Add(new AlertEvent
             {
                 AlertId = alert.Id, Kind = "point-added", AtMs = now, By = "FinWatch", PointId = point.Id,

@@ -1,5 +1,6 @@
 using FinWatch.Data;
 using Microsoft.AspNetCore.SignalR;
+using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Monitor;
 
@@ -22,18 +23,29 @@ public sealed class MonitorHub(FinWatchDbContext db) : Hub<IMonitorClient>
 
     public static string ContextGroup(string code) => "context:" + code;
 
-    /// <summary>Receive the entries of these contexts from now on.</summary>
-    public async Task Watch(string[] contexts)
+    /// <summary>
+    /// Receive the entries of these contexts from now on. Returns the newest feed number at the moment of joining:
+    /// everything up to it is in the HTTP endpoints already, everything after it will be pushed.
+    /// </summary>
+    public async Task<long> Watch(string[] contexts)
     {
         ArgumentNullException.ThrowIfNull(contexts);
         foreach (var c in contexts.Distinct(StringComparer.Ordinal).Take(500))
         {
             await Groups.AddToGroupAsync(Context.ConnectionId, ContextGroup(c));
         }
+
+        return await HeadAsync();
     }
 
-    /// <summary>Receive every entry from now on (floor overview, alert queue).</summary>
-    public Task WatchAll() => Groups.AddToGroupAsync(Context.ConnectionId, AllGroup);
+    /// <summary>Receive every entry from now on (floor overview, alert queue); returns the newest feed number, as <see cref="Watch"/>.</summary>
+    public async Task<long> WatchAll()
+    {
+        await Groups.AddToGroupAsync(Context.ConnectionId, AllGroup);
+        return await HeadAsync();
+    }
+
+    private async Task<long> HeadAsync() => await db.FeedEvents.MaxAsync(e => (long?)e.Seq, Context.ConnectionAborted) ?? 0;
 
     /// <summary>The entries after <paramref name="afterSeq"/> (of these contexts, or all when empty), oldest first, at most 10,000.</summary>
     public Task<List<FeedMessage>> CatchUp(long afterSeq, string[]? contexts) =>

@@ -1,0 +1,38 @@
+// Building DOM without innerHTML: every user-supplied string (lot ids, comments, plan text) lands as text, never markup.
+
+/** el('td', { class: 'num', title: 't' }, 'text', childNode, ...) */
+export function el(tag, attrs = {}, ...children) {
+  const node = document.createElement(tag);
+  for (const [key, value] of Object.entries(attrs ?? {})) {
+    if (value === undefined || value === null || value === false) continue;
+    if (key === 'class') node.className = value;
+    else if (key === 'dataset') Object.assign(node.dataset, value);
+    else if (key.startsWith('on') && typeof value === 'function') node.addEventListener(key.slice(2), value);
+    else if (value === true) node.setAttribute(key, '');
+    else node.setAttribute(key, String(value));
+  }
+  append(node, children);
+  return node;
+}
+
+function append(node, children) {
+  for (const child of children) {
+    if (child === undefined || child === null || child === false) continue;
+    if (Array.isArray(child)) append(node, child);
+    else node.append(child instanceof Node ? child : document.createTextNode(String(child)));
+  }
+}
+
+/** Replaces the children of a node. */
+export function fill(node, ...children) {
+  node.replaceChildren();
+  append(node, children);
+  return node;
+}
+
+export const $ = (selector, root = document) => root.querySelector(selector);
+
+/** The query-string parameter, or a fallback. */
+export function param(name, fallback = null) {
+  return new URLSearchParams(location.search).get(name) ?? fallback;
+}
