@@ -68,6 +68,9 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
             return;
         }
 
+        var closed = await DemoMonitor.CloseStaleAlertsAsync(db, new DateTimeOffset(start + TimeSpan.FromDays(options.Value.Days), TimeSpan.Zero).ToUnixTimeMilliseconds(),
+            TimeSpan.FromDays(Math.Max(1, options.Value.Days / 6)), stoppingToken);
+        LogHistory(closed);
         LogLoaded(baseline.Inserted + rest.Inserted, (baseline.DurationMs + rest.DurationMs) / 1000);
         await CalibrateAsync(scope.ServiceProvider.GetRequiredService<CalibrateModel>(), seed, scale, stoppingToken);
         State = "loaded";
@@ -150,6 +153,9 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Demo: loading the invented demo fab (about 650,000 site rows; this takes a little while)")]
     private partial void LogLoading();
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Demo: {Closed} older alerts given an invented, closed history; the recent ones stay open")]
+    private partial void LogHistory(int closed);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Demo: loaded {Rows} site rows in {Seconds:0.0} s")]
     private partial void LogLoaded(int rows, double seconds);

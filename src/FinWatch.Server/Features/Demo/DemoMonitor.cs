@@ -100,4 +100,57 @@ public static class DemoMonitor
 
         await db.SaveChangesAsync(cancellationToken);
     }
+
+    private const string DemoSupervisor = "shift supervisor S-2 (invented)";
+
+    /// <summary>
+    /// The demo's invented past: the whole history is ingested at once, so every alert would otherwise be open and
+    /// dated today. Alerts whose last point is older than <paramref name="quiet"/> before the end of the data are given
+    /// the times of their points and an invented, complete lifecycle (acknowledged, every reaction-plan step reported,
+    /// closed with "no assignable cause" or the planted cause), as a shift would have left them; the recent ones stay open
+    /// for the floor to see. Only the demo does this; the product never rewrites an alert.
+    /// </summary>
+    public static async Task<int> CloseStaleAlertsAsync(FinWatchDbContext db, long endMs, TimeSpan quiet, CancellationToken cancellationToken)
+    {
+        var cutoff = endMs - (long)quiet.TotalMilliseconds;
+        var points = db.ChartPoints.AsNoTracking();
+        var stale = await db.Alerts.Where(a => a.State == AlertStates.Open && points.Any(p => p.Id == a.LastPointId && p.MeasuredAtMs < cutoff))
+            .ToListAsync(cancellationToken);
+        var contexts = await db.ChartContexts.AsNoTracking().ToDictionaryAsync(c => c.Id, cancellationToken);
+        foreach (var a in stale)
+        {
+            var first = await points.Where(p => p.Id == a.FirstPointId).Select(p => p.MeasuredAtMs).SingleAsync(cancellationToken);
+            var last = await points.Where(p => p.Id == a.LastPointId).Select(p => p.MeasuredAtMs).SingleAsync(cancellationToken);
+            var raised = first + 60_000;
+            var events = await db.AlertEvents.Where(e => e.AlertId == a.Id).OrderBy(e => e.Id).ToListAsync(cancellationToken);
+            var times = await points.Where(p => events.Select(e => e.PointId).Contains(p.Id)).ToDictionaryAsync(p => p.Id, p => p.MeasuredAtMs, cancellationToken);
+            foreach (var e in events)
+            {
+                e.AtMs = e.PointId is { } id && times.TryGetValue(id, out var t) ? t + 60_000 : raised;
+            }
+
+            var acknowledged = raised + (35 * 60_000);
+            var done = Math.Max(last + (2 * 3_600_000), acknowledged + 3_600_000);
+            var plan = contexts[a.ContextId].ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+            var steps = plan.Select((step, i) => new StepTaken(step, i < 2, i < 2 ? "done; nothing abnormal found (invented)" : "not needed: cause not confirmed")).ToList();
+            db.AlertEvents.AddRange(
+                new AlertEvent { AlertId = a.Id, Kind = AlertStates.Acknowledged, AtMs = acknowledged, By = DemoSupervisor, Comment = "seen on the floor board; lot held (invented)" },
+                new AlertEvent
+                {
+                    AlertId = a.Id, Kind = AlertStates.Dispositioned, AtMs = done, By = DemoSupervisor, Comment = "re-measure agrees with the first reading; no assignable cause (invented)",
+                    StepsJson = System.Text.Json.JsonSerializer.Serialize(steps, FeedLog.Json),
+                },
+                new AlertEvent { AlertId = a.Id, Kind = AlertStates.Closed, AtMs = done + 600_000, By = DemoEngineer, Comment = "false alarm within the expected rate of the rules; lot released (invented)" });
+            a.RaisedAtMs = raised;
+            a.State = AlertStates.Closed;
+            a.AcknowledgedBy = DemoSupervisor;
+            a.AcknowledgedAtMs = acknowledged;
+            a.ClosedBy = DemoEngineer;
+            a.ClosedAtMs = done + 600_000;
+            a.UpdatedAtMs = done + 600_000;
+        }
+
+        await db.SaveChangesAsync(cancellationToken);
+        return stale.Count;
+    }
 }

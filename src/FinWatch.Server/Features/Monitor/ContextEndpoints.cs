@@ -18,7 +18,8 @@ public static partial class ContextEndpoints
     public static IServiceCollection AddMonitor(this IServiceCollection services)
     {
         services.AddOptions<MonitorOptions>().BindConfiguration(MonitorOptions.Section).ValidateDataAnnotations().ValidateOnStart();
-        services.AddSignalR();
+        // The hub speaks the same JSON as the HTTP API (snake_case), so a page handles a pushed point like a fetched one.
+        services.AddSignalR().AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.SnakeCaseLower);
         services.AddSingleton<MonitorFeed>();
         services.AddScoped<MonitorEvaluator>();
         services.AddSingleton<MonitorWorker>();

@@ -4,7 +4,7 @@ using System.Text.Json;
 using FinWatch.Server.Features.Monitor;
 using FinWatch.Statistics.Shewhart;
 using Microsoft.Extensions.DependencyInjection;
-using static FinWatch.Server.Tests.Features.Monitor.MonitorFixture;
+using static FinWatch.Testing.MonitorFixture;
 
 namespace FinWatch.Server.Tests.Features.Monitor;
 

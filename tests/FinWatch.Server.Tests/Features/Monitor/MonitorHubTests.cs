@@ -2,7 +2,8 @@ using System.Threading.Channels;
 using FinWatch.Server.Features.Monitor;
 using Microsoft.AspNetCore.Http.Connections;
 using Microsoft.AspNetCore.SignalR.Client;
-using static FinWatch.Server.Tests.Features.Monitor.MonitorFixture;
+using Microsoft.Extensions.DependencyInjection;
+using static FinWatch.Testing.MonitorFixture;
 
 namespace FinWatch.Server.Tests.Features.Monitor;
 
@@ -17,6 +18,7 @@ public class MonitorHubTests : IntegrationTest
                 o.Transports = HttpTransportType.LongPolling;
                 o.HttpMessageHandlerFactory = _ => Factory.Server.CreateHandler();
             })
+            .AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.SnakeCaseLower)
             .Build();
         connection.On<FeedMessage>(nameof(IMonitorClient.Feed), m => received.Writer.TryWrite(m));
         return connection;
@@ -36,10 +38,13 @@ public class MonitorHubTests : IntegrationTest
         var received = Channel.CreateUnbounded<FeedMessage>();
         await using var connection = Connect(received);
         await connection.StartAsync();
-        await connection.InvokeAsync("Watch", new[] { "TRI-TOP" });
+        var head = await connection.InvokeAsync<long>("Watch", new[] { "TRI-TOP" });
+        var stored = await ReadJsonAsync(await Client.GetAsync("/api/feed?after=0"));
+        Assert.Equal(stored.EnumerateArray().Max(e => e.GetProperty("seq").GetInt64()), head); // the number at joining: all of it is stored already
 
         await IngestAsync(Client, Wafers("M0001", MonitorDay, 0.0));
         var m = await NextAsync(received);
+        Assert.Equal(head + 1, m.Seq);
         Assert.Equal("point", m.Kind);
         Assert.Equal("TRI-TOP", m.Context);
         Assert.Equal(21, m.Point!.Seq);

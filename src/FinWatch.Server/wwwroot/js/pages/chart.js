@@ -173,6 +173,12 @@ async function drawCapability() {
     fill(box, 'Too few points in this range for capability.');
     return;
   }
+  const s = spec();
+  if (s?.lower == null && s?.upper == null) {
+    fill(box, `The product ${context.product} has no specification limits for ${context.parameter}: capability needs an LSL, a USL or both (set them on the product).`);
+    capability?.destroy();
+    return;
+  }
   const chamber = context.chamber ?? chamberFilter();
   const from = new Date(Date.parse(view[0].measured_at)).toISOString();
   const to = new Date(Date.parse(view[view.length - 1].measured_at)).toISOString();
@@ -201,7 +207,6 @@ async function drawCapability() {
       curve.push({ x, y: values.length * width * Math.exp(-0.5 * ((x - c.mean) / sd) ** 2) / (sd * Math.sqrt(2 * Math.PI)) });
     }
   }
-  const s = spec();
   capability?.destroy();
   capability = makeChart($('#capability'), {
     type: 'bar',

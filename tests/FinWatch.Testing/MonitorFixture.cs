@@ -1,9 +1,8 @@
 using System.Globalization;
 using System.Net.Http.Json;
 using System.Text.Json;
-using FinWatch.Testing;
 
-namespace FinWatch.Server.Tests.Features.Monitor;
+namespace FinWatch.Testing;
 
 /// <summary>
 /// Rows and steps shared by the monitor tests. Every wafer has the same five top widths 5.9, 5.95, 6.0, 6.05 and

@@ -1,0 +1,128 @@
+// Alert queue with filters, and the selected alert: its points, its context's reaction plan as a checklist, the
+// actions of its state (acknowledge → disposition → close) and its append-only history.
+import { el, fill, $, param } from '../core/dom.js';
+import { getJson, sendJson } from '../core/api.js';
+import { frame } from '../core/shell.js';
+import { LiveFeed } from '../core/live.js';
+import { withUnit, when, alertStateWords } from '../core/format.js';
+
+const banner = frame('alerts.html');
+const filters = $('#filters');
+const queue = $('#queue');
+const detail = $('#detail');
+let selected = param('alert') ? Number(param('alert')) : null;
+
+const contexts = await getJson('/api/contexts');
+const units = Object.fromEntries(contexts.map((c) => [c.code, c.unit]));
+fill($('#f-context'), el('option', { value: '' }, 'all charts'), contexts.map((c) => el('option', { value: c.code }, c.title)));
+for (const name of ['state', 'severity', 'context', 'escalated']) {
+  const v = param(name);
+  if (v !== null) filters.elements[name].value = v;
+}
+filters.addEventListener('change', () => {
+  const q = new URLSearchParams(new FormData(filters));
+  for (const [k, v] of [...q]) if (!v) q.delete(k);
+  history.replaceState(null, '', `?${q}`);
+  loadQueue();
+});
+
+async function loadQueue() {
+  const q = new URLSearchParams(new FormData(filters));
+  for (const [k, v] of [...q]) if (!v) q.delete(k);
+  const alerts = await getJson(`/api/alerts?${q}`);
+  fill(queue, alerts.length === 0 ? el('p', { class: 'notice' }, 'No alert matches these filters.') : alerts.map(card));
+}
+
+function card(a) {
+  return el('article', { class: `alert-item ${a.state}${a.escalated ? ' escalated' : ''}`, dataset: { alert: a.id, state: a.state } },
+    el('div', { class: 'head' },
+      el('span', { class: `sev ${a.severity}` }, a.severity),
+      el('span', { class: 'rule' }, `${a.rule}: ${a.rule_text}`),
+      el('span', {}, `· ${alertStateWords[a.state]}`),
+      a.escalated ? el('strong', {}, '· escalated to supervisors') : ''),
+    el('div', {}, el('a', { href: `chart.html?context=${encodeURIComponent(a.context)}` }, a.context_title)),
+    el('div', { class: 'muted' },
+      `last at lot ${a.lot_id}${a.wafer_slot ? ` wafer ${a.wafer_slot}` : ''}${a.chamber ? ` · ${a.chamber}` : ''} · ${a.point_count} point${a.point_count > 1 ? 's' : ''} · raised ${when(a.raised_at)}`,
+      a.predicted_dvt_sat_mv != null ? ` · predicted ΔVT sat ${withUnit(a.predicted_dvt_sat_mv, 'mV', 1)}` : ''),
+    el('button', { type: 'button', class: 'quiet', onclick: () => select(a.id) }, selected === a.id ? 'shown on the right' : 'open'));
+}
+
+async function select(id) {
+  selected = id;
+  const q = new URLSearchParams(location.search);
+  q.set('alert', id);
+  history.replaceState(null, '', `?${q}`);
+  const d = await getJson(`/api/alerts/${id}`);
+  const a = d.alert;
+  const unit = units[a.context] ?? '';
+  const message = el('div', { role: 'status', 'aria-live': 'polite' });
+  const comment = el('textarea', { id: 'action-comment', 'aria-label': 'comment' });
+  const checklist = el('fieldset', { class: 'checklist' }, el('legend', {}, 'Reaction plan: mark each step done or not, with a note'),
+    d.reaction_plan.length === 0 ? el('p', { class: 'muted' }, 'This chart has no reaction plan; describe what was done in the comment.') : '',
+    d.reaction_plan.map((step, i) => el('div', {},
+      el('label', {}, el('input', { type: 'checkbox', name: `step-${i}`, dataset: { step } }), step),
+      el('input', { type: 'text', name: `note-${i}`, placeholder: 'note (optional)', 'aria-label': `note for: ${step}` }))));
+  const actions = {
+    open: ['acknowledge', 'Acknowledge'],
+    acknowledged: ['disposition', 'Record the steps taken'],
+    dispositioned: ['close', 'Close the alert'],
+  }[a.state];
+  async function act() {
+    const body = { comment: comment.value };
+    if (actions[0] === 'disposition') {
+      body.steps = d.reaction_plan.map((step, i) => ({
+        step, done: checklist.querySelector(`[name="step-${i}"]`).checked, note: checklist.querySelector(`[name="note-${i}"]`).value || null,
+      }));
+    }
+    try {
+      await sendJson('POST', `/api/alerts/${id}/${actions[0]}`, body);
+      await select(id);
+      await loadQueue();
+    } catch (e) {
+      fill(message, el('div', { class: 'problem' }, e.message));
+    }
+  }
+  fill(detail,
+    el('h2', {}, `Alert ${a.id}: ${a.rule}`),
+    el('p', {}, el('span', { class: `sev ${a.severity}` }, a.severity), ` ${a.rule_text} on `, el('a', { href: `chart.html?context=${encodeURIComponent(a.context)}` }, a.context_title)),
+    el('p', {}, `State: ${alertStateWords[a.state]}`, a.acknowledged_by ? ` · acknowledged by ${a.acknowledged_by} ${when(a.acknowledged_at)}` : '',
+      a.closed_by ? ` · closed by ${a.closed_by} ${when(a.closed_at)}` : ''),
+    a.predicted_dvt_sat_mv != null ? el('p', { class: 'caution' }, `Largest predicted ΔVT sat among its points: ${withUnit(a.predicted_dvt_sat_mv, 'mV', 1)}. ${d.caution}`) : '',
+    el('h3', {}, 'Points'),
+    el('div', { class: 'table-box' }, el('table', {},
+      el('thead', {}, el('tr', {}, el('th', {}, 'point'), el('th', {}, 'measured'), el('th', {}, 'lot · wafer'), el('th', {}, 'chamber'), el('th', { class: 'num' }, 'value'), el('th', { class: 'num' }, 'ΔVT sat'), el('th', {}, 'rules'))),
+      el('tbody', {}, d.points.slice(-200).reverse().map((p) => el('tr', {},
+        el('td', { class: 'num' }, p.seq), el('td', {}, when(p.measured_at)),
+        el('td', {}, el('a', { href: `lot.html?lot=${encodeURIComponent(p.lot_id)}` }, p.lot_id), p.wafer_slot ? ` · W${p.wafer_slot}` : ''),
+        el('td', {}, p.chamber ?? ''), el('td', { class: 'num' }, withUnit(p.value, unit)),
+        el('td', { class: 'num' }, withUnit(p.predicted_dvt_sat_mv, 'mV', 1)), el('td', {}, p.signals.join(', '))))))),
+    actions ? el('section', { 'aria-label': 'action' },
+      el('h3', {}, actions[1]),
+      actions[0] === 'disposition' ? checklist : '',
+      el('label', { for: 'action-comment' }, actions[0] === 'close' ? 'Why can it be closed? (required)' : 'Comment'),
+      comment,
+      el('p', {}, el('button', { type: 'button', id: 'action-button', onclick: act }, actions[1])),
+      message) : el('p', { class: 'notice' }, 'Closed. Nothing about an alert is ever deleted; its history stays below.'),
+    el('h3', {}, 'History'),
+    el('ol', { class: 'history' }, d.history.map((h) => el('li', {},
+      `${when(h.at)} · ${h.kind} by ${h.by}`, h.comment ? `: ${h.comment}` : '',
+      h.steps ? el('ul', {}, h.steps.map((s) => el('li', {}, `${s.done ? '✔ done' : '✘ not done'}: ${s.step}${s.note ? ` (${s.note})` : ''}`))) : ''))));
+  for (const b of queue.querySelectorAll('.alert-item button')) b.textContent = 'open';
+}
+
+async function load() {
+  await loadQueue();
+  if (selected) await select(selected);
+}
+
+let timer = null;
+function onEntry(entry) {
+  if (entry.kind !== 'alert') return;
+  timer ??= setTimeout(async () => {
+    timer = null;
+    await loadQueue();
+    if (selected && entry.alert?.id === selected && !detail.contains(document.activeElement)) await select(selected);
+  }, 300);
+}
+
+await new LiveFeed({ all: true, onEntry, banner }).start(load);

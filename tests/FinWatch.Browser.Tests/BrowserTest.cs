@@ -1,0 +1,90 @@
+using Microsoft.AspNetCore.Hosting.Server;
+using Microsoft.AspNetCore.Hosting.Server.Features;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Playwright;
+using FinWatch.Testing;
+
+namespace FinWatch.Browser.Tests;
+
+/// <summary>
+/// Each test: its own server (the real app on a free port, its own SQLite file), its own browser page, and a record of
+/// every script error and failed request the page reports; a test fails if the page had any.
+/// </summary>
+[Collection(BrowserCollection.Name)]
+public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
+{
+    private readonly List<string> problems = [];
+    private IBrowserContext? context;
+
+    protected FinWatchAppFactory Factory { get; } = new();
+    protected HttpClient Client { get; private set; } = null!;
+    protected IPage Page { get; private set; } = null!;
+    protected string BaseUrl { get; private set; } = "";
+
+    /// <summary>Settings for the server before it starts (for example the demo).</summary>
+    protected virtual void Configure(FinWatchAppFactory factory)
+    {
+    }
+
+    public virtual async Task InitializeAsync()
+    {
+        Configure(Factory);
+        Factory.UseKestrel(0);
+        Factory.StartServer();
+        BaseUrl = Factory.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()!.Addresses.First().Replace("[::]", "127.0.0.1", StringComparison.Ordinal);
+        Client = new HttpClient { BaseAddress = new Uri(BaseUrl) };
+        context = await browser.Browser.NewContextAsync(new BrowserNewContextOptions { ViewportSize = new ViewportSize { Width = 1400, Height = 1000 }, Locale = "en-GB", TimezoneId = "UTC" });
+        Page = await context.NewPageAsync();
+        Page.SetDefaultTimeout(15_000);
+        Page.Console += (_, m) =>
+        {
+            // A failed response is recorded below with its address; the console's copy of it says less.
+            if (m.Type == "error" && !m.Text.StartsWith("Failed to load resource", StringComparison.Ordinal))
+            {
+                problems.Add($"console: {m.Text}");
+            }
+        };
+        Page.PageError += (_, e) => problems.Add($"script error: {e}");
+        Page.RequestFailed += (_, r) => problems.Add($"request failed: {r.Url} {r.Failure}");
+        Page.Response += (_, r) =>
+        {
+            if (r.Status >= 400 && !ExpectedFailures.Any(f => r.Url.Contains(f, StringComparison.Ordinal)))
+            {
+                var what = $"{r.Status} from {r.Request.Method} {r.Url}";
+                lock (problems)
+                {
+                    problems.Add(what);
+                }
+
+                _ = r.TextAsync().ContinueWith(t =>
+                {
+                    lock (problems)
+                    {
+                        problems.Add(t.IsCompletedSuccessfully ? $"its body: {t.Result}" : "its body could not be read");
+                    }
+                }, TaskScheduler.Default);
+            }
+        };
+    }
+
+    public async Task DisposeAsync()
+    {
+        if (context is not null)
+        {
+            await context.DisposeAsync();
+        }
+
+        Client.Dispose();
+        Factory.Dispose();
+    }
+
+    /// <summary>Addresses whose error answers a test provokes on purpose (a rejected upload).</summary>
+    protected List<string> ExpectedFailures { get; } = [];
+
+    protected Task OpenAsync(string path) => Page.GotoAsync(BaseUrl.TrimEnd('/') + "/" + path.TrimStart('/'));
+
+    /// <summary>Waits until the page's live-feed line says it is connected and current.</summary>
+    protected Task WaitLiveAsync() => Page.Locator(".link-state[data-state='live']").WaitForAsync();
+
+    protected void AssertNoPageProblems() => Assert.True(problems.Count == 0, "the page reported: " + string.Join(" | ", problems));
+}

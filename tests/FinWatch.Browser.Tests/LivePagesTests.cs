@@ -1,0 +1,115 @@
+using System.Net.Http.Json;
+using System.Text.Json;
+using Microsoft.Playwright;
+using static FinWatch.Testing.MonitorFixture;
+
+namespace FinWatch.Browser.Tests;
+
+/// <summary>
+/// The floor pages against the real server: live updates without reload, the alert lifecycle by mouse and keyboard.
+/// The expected states follow from the fixture's hand-computable data (MonitorFixture): a wafer mean 0.5 nm above the
+/// centre is about 6 σ of the mean away (σ of the mean 0.0791/√5·… see MonitorEndpointsTests) and fires WE1.
+/// </summary>
+public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser)
+{
+    public override async Task InitializeAsync()
+    {
+        await base.InitializeAsync();
+        await FinWatch.Testing.TestProducts.CreateBothAsync(Client);
+        await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
+        await ApprovedContextAsync(Client, "TRI-TOP");
+    }
+
+    [Fact]
+    public async Task ChartPage_PostingALot_AddsItsPointsAndSignalsWithoutReload()
+    {
+        await OpenAsync("chart.html?context=TRI-TOP&range=all");
+        await WaitLiveAsync();
+        await Assertions.Expect(Page.Locator("#legend")).ToContainTextAsync("20 points shown");
+        await Assertions.Expect(Page.Locator("#signals tbody")).ToContainTextAsync("No rule fired");
+        var navigations = 0;
+        Page.FrameNavigated += (_, _) => navigations++;
+
+        await IngestAsync(Client, Wafers("M0001", MonitorDay, 0.0, 0.5));
+
+        await Assertions.Expect(Page.Locator("#legend")).ToContainTextAsync("22 points shown");
+        await Assertions.Expect(Page.Locator("#signals tbody tr")).ToHaveCountAsync(1);
+        await Assertions.Expect(Page.Locator("#signals tbody tr").First).ToContainTextAsync("WE1");
+        await Assertions.Expect(Page.Locator("#signals tbody tr").First).ToContainTextAsync("M0001");
+        await Assertions.Expect(Page.Locator("#summary")).ToContainTextAsync("out of control");
+        Assert.Equal(0, navigations);
+        AssertNoPageProblems();
+    }
+
+    [Fact]
+    public async Task FloorOverview_TileTurnsOutOfControl_WhenARuleFires()
+    {
+        await OpenAsync("index.html");
+        await WaitLiveAsync();
+        var tile = Page.Locator(".tile[data-context='TRI-TOP']");
+        await Assertions.Expect(tile).ToHaveAttributeAsync("data-state", "in_control");
+        await Assertions.Expect(tile.Locator(".state")).ToHaveTextAsync("in control");
+
+        await IngestAsync(Client, Wafers("M0002", MonitorDay, 0.5));
+
+        await Assertions.Expect(tile).ToHaveAttributeAsync("data-state", "out_of_control");
+        await Assertions.Expect(tile.Locator(".state")).ToHaveTextAsync("out of control"); // in words, not colour alone
+        await Assertions.Expect(tile).ToContainTextAsync("1 active alert");
+        await Assertions.Expect(Page.Locator("#tally")).ToContainTextAsync("1 out of control");
+        AssertNoPageProblems();
+    }
+
+    [Fact]
+    public async Task AlertsPage_AnAlertIsAcknowledgedDispositionedAndClosed()
+    {
+        await IngestAsync(Client, Wafers("M0003", MonitorDay, 0.5));
+        var alerts = await Client.GetFromJsonAsync<JsonElement>("/api/alerts?state=active");
+        var id = alerts.EnumerateArray().Single().GetProperty("id").GetInt64();
+
+        await OpenAsync("alerts.html");
+        await WaitLiveAsync();
+        var item = Page.Locator($".alert-item[data-alert='{id}']");
+        await Assertions.Expect(item).ToHaveAttributeAsync("data-state", "open");
+        await item.GetByRole(AriaRole.Button).ClickAsync();
+        await Assertions.Expect(Page.Locator("#detail h2")).ToHaveTextAsync($"Alert {id}: WE1");
+
+        await Page.Locator("#action-comment").FillAsync("seen at the tool <b>held</b>");
+        await Page.Locator("#action-button").ClickAsync();
+        await Assertions.Expect(Page.Locator("#detail")).ToContainTextAsync("acknowledged by");
+        await Assertions.Expect(Page.Locator("#detail .history")).ToContainTextAsync("seen at the tool <b>held</b>"); // comment shown as text
+
+        await Page.GetByRole(AriaRole.Checkbox, new() { Name = "Hold the lot" }).CheckAsync();
+        await Page.GetByLabel("note for: Check the etch chamber log").FillAsync("log clean");
+        await Page.Locator("#action-button").ClickAsync();
+        await Assertions.Expect(Page.Locator("#detail .history")).ToContainTextAsync("✔ done: Hold the lot");
+        await Assertions.Expect(Page.Locator("#detail .history")).ToContainTextAsync("✘ not done: Check the etch chamber log (log clean)");
+
+        await Page.Locator("#action-comment").FillAsync("re-measured: within limits");
+        await Page.Locator("#action-button").ClickAsync();
+        await Assertions.Expect(Page.Locator("#detail")).ToContainTextAsync("closed by");
+
+        var detail = await Client.GetFromJsonAsync<JsonElement>($"/api/alerts/{id}");
+        Assert.Equal("closed", detail.GetProperty("alert").GetProperty("state").GetString());
+        Assert.Equal(["raised", "acknowledged", "dispositioned", "closed"], detail.GetProperty("history").EnumerateArray().Select(h => h.GetProperty("kind").GetString()!).ToArray());
+        await Page.Locator("#f-state").SelectOptionAsync("active");
+        await Assertions.Expect(Page.Locator("#queue")).ToContainTextAsync("No alert matches");
+        AssertNoPageProblems();
+    }
+
+    [Fact]
+    public async Task LimitsPage_ComputesADraftAndApprovesIt()
+    {
+        await OpenAsync("limits.html?context=TRI-TOP");
+        await Assertions.Expect(Page.Locator("#versions tbody tr")).ToHaveCountAsync(1);
+        await Page.Locator("#from-seq").FillAsync("1");
+        await Page.Locator("#to-seq").FillAsync("20");
+        await Page.Locator("#reason").FillAsync("re-baseline after chamber clean");
+        await Page.Locator("#compute-button").ClickAsync();
+        await Assertions.Expect(Page.Locator("#compute-result")).ToContainTextAsync("Draft v2: centre 6.000 nm");
+        var draft = Page.Locator("#versions tr[data-version='2']");
+        await Assertions.Expect(draft).ToHaveAttributeAsync("data-status", "draft");
+        await draft.GetByRole(AriaRole.Button, new() { Name = "Approve v2" }).ClickAsync();
+        await Assertions.Expect(Page.Locator("#versions tr[data-version='2']")).ToHaveAttributeAsync("data-status", "approved");
+        AssertNoPageProblems();
+    }
+}
