@@ -73,6 +73,8 @@ export function drawCrossSection(target, measured, nominal, { width = 520, heigh
   target.setAttribute('height', height);
   const complete = (p) => p && p.wt > 0 && p.wb > 0 && p.h > 0;
   if (!complete(measured)) {
+    target.setAttribute('viewBox', `0 0 ${width} 60`);
+    target.setAttribute('height', 60);
     target.append(svg('text', { x: 20, y: 40, class: 'xs-note' }, 'This site lacks top width, bottom width or height: no cross-section.'));
     return;
   }

@@ -396,9 +396,14 @@ function checkCell(input) {
   return !why;
 }
 
+const gridLabels = { site_id: 'site id', site_x_mm: 'x', site_y_mm: 'y', top_width_nm: 'top width', bottom_width_nm: 'bottom width',
+  fin_height_nm: 'height', corner_radius_nm: 'corner radius', liner_thickness_nm: 'liner' };
+
 function rowMessage(tr, extra = [], full = false) {
+  if (full) tr.dataset.checked = 'full';
+  full = full || tr.dataset.checked === 'full'; // once the whole row was checked, keep its row-level reasons
   const lines = [];
-  for (const input of tr.querySelectorAll('input[data-field]')) if (input.title) lines.push(`${input.dataset.field}: ${input.title}`);
+  for (const input of tr.querySelectorAll('input[data-field]')) if (input.title) lines.push(`${gridLabels[input.dataset.field]}: ${input.title}`);
   if (!rowEmpty(tr)) {
     const get = (f) => tr.querySelector(`[data-field="${f}"]`).value.trim();
     if (full && valueFields.every((f) => !get(f))) lines.push('no measured value: fill at least one of the widths, height, radius or liner');
@@ -484,19 +489,27 @@ form.addEventListener('submit', async (e) => {
 function placeServerErrors(result, problem, rows) {
   const general = [];
   const perRow = new Map();
+  const perHead = new Map(); // field → reason → rows
   for (const e of problem.errors) {
     const tr = rows[e.row - 1];
     if (e.column && headFields.includes(e.column)) {
-      const input = headInput(e.column);
-      setMessage(input, $(`#${input.id}-msg`), `${e.reason}${rows.length > 1 ? ` (site row ${e.row})` : ''}`);
+      if (!perHead.has(e.column)) perHead.set(e.column, new Map());
+      const reasons = perHead.get(e.column);
+      if (!reasons.has(e.reason)) reasons.set(e.reason, []);
+      reasons.get(e.reason).push(Number(tr?.dataset.index ?? e.row));
     } else if (tr) {
       const input = e.column ? tr.querySelector(`[data-field="${e.column}"]`) : null;
       if (input) setMessage(input, null, e.reason);
       if (!perRow.has(tr)) perRow.set(tr, []);
-      if (!input) perRow.get(tr).push(`${e.column ? `${e.column}: ` : ''}${e.reason}`);
+      if (!input) perRow.get(tr).push(`${e.column ? `${gridLabels[e.column] ?? e.column}: ` : ''}${e.reason}`);
     } else {
       general.push(whyText(e));
     }
+  }
+  for (const [field, reasons] of perHead) {
+    const input = headInput(field);
+    const text = [...reasons].map(([reason, at]) => (at.length === rows.length ? reason : `${reason} (grid row${at.length > 1 ? 's' : ''} ${at.join(', ')})`)).join('; ');
+    setMessage(input, $(`#${input.id}-msg`), text);
   }
   for (const tr of grid.children) rowMessage(tr, perRow.get(tr) ?? []);
   fill(result, el('div', { class: 'problem', id: 'manual-rejected' },
