@@ -109,13 +109,14 @@ function parseCsv(text) {
 const csvText = $('#csv-text');
 const csvFile = $('#csv-file');
 let bigFile = null; // { name, text } of a file too large for the box
+let boxFile = null; // name of the file whose text is in the box, until it is edited
 
 function describeSource() {
   const text = bigFile?.text ?? csvText.value;
   const lines = text ? text.split(/\r\n|\r|\n/).filter((l) => l.length).length : 0;
   fill($('#csv-source'), bigFile
     ? `Will send the file ${bigFile.name} (${lines} lines, ${(bigFile.text.length / 1024).toFixed(0)} KiB; too large to show in the box).`
-    : lines ? `Will send the text in the box (${lines} line${lines === 1 ? '' : 's'} incl. the header).` : 'Choose a file or paste CSV text.');
+    : lines ? `Will send ${boxFile ? `the file ${boxFile}, as shown in the box` : 'the text in the box'} (${lines} line${lines === 1 ? '' : 's'} incl. the header).` : 'Choose a file or paste CSV text.');
 }
 
 csvFile.addEventListener('change', async () => {
@@ -128,14 +129,16 @@ csvFile.addEventListener('change', async () => {
     csvText.placeholder = `${file.name} is loaded (too large to show here); typing here replaces it.`;
   } else {
     bigFile = null;
+    boxFile = file.name;
     csvText.value = text;
   }
   describeSource();
 });
-csvText.addEventListener('input', () => { bigFile = null; csvFile.value = ''; describeSource(); });
+csvText.addEventListener('input', () => { bigFile = null; boxFile = null; csvFile.value = ''; describeSource(); });
 $('#csv-sample').addEventListener('click', () => {
   if (!csvText.value.trim()) csvText.value = `${HEADER.join(',')}\n`;
   bigFile = null;
+  boxFile = null;
   csvText.focus();
   describeSource();
 });
