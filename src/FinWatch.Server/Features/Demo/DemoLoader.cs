@@ -69,7 +69,7 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         }
 
         var closed = await DemoMonitor.CloseStaleAlertsAsync(db, new DateTimeOffset(start + TimeSpan.FromDays(options.Value.Days), TimeSpan.Zero).ToUnixTimeMilliseconds(),
-            TimeSpan.FromDays(Math.Max(1, options.Value.Days / 6)), stoppingToken);
+            TimeSpan.FromDays(Math.Max(1, options.Value.Days / 12)), stoppingToken);
         LogHistory(closed);
         LogLoaded(baseline.Inserted + rest.Inserted, (baseline.DurationMs + rest.DurationMs) / 1000);
         await CalibrateAsync(scope.ServiceProvider.GetRequiredService<CalibrateModel>(), seed, scale, stoppingToken);

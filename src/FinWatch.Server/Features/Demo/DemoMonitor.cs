@@ -113,7 +113,7 @@ public static class DemoMonitor
     public static async Task<int> CloseStaleAlertsAsync(FinWatchDbContext db, long endMs, TimeSpan quiet, CancellationToken cancellationToken)
     {
         var cutoff = endMs - (long)quiet.TotalMilliseconds;
-        var points = db.ChartPoints.AsNoTracking();
+        IQueryable<ChartPoint> points = db.ChartPoints; // not AsNoTracking: inside the alert query it would untrack the alerts too
         var stale = await db.Alerts.Where(a => a.State == AlertStates.Open && points.Any(p => p.Id == a.LastPointId && p.MeasuredAtMs < cutoff))
             .ToListAsync(cancellationToken);
         var contexts = await db.ChartContexts.AsNoTracking().ToDictionaryAsync(c => c.Id, cancellationToken);

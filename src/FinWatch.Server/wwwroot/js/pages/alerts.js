@@ -104,10 +104,30 @@ async function select(id) {
       el('p', {}, el('button', { type: 'button', id: 'action-button', onclick: act }, actions[1])),
       message) : el('p', { class: 'notice' }, 'Closed. Nothing about an alert is ever deleted; its history stays below.'),
     el('h3', {}, 'History'),
-    el('ol', { class: 'history' }, d.history.map((h) => el('li', {},
-      `${when(h.at)} · ${h.kind} by ${h.by}`, h.comment ? `: ${h.comment}` : '',
-      h.steps ? el('ul', {}, h.steps.map((s) => el('li', {}, `${s.done ? '✔ done' : '✘ not done'}: ${s.step}${s.note ? ` (${s.note})` : ''}`))) : ''))));
+    el('ol', { class: 'history' }, historyItems(d.history)));
   for (const b of queue.querySelectorAll('.alert-item button')) b.textContent = 'open';
+}
+
+// Every event is kept and shown; a run of "point added" events folds into one line that opens to the full list.
+function historyItems(history) {
+  const items = [];
+  for (let i = 0; i < history.length;) {
+    const h = history[i];
+    if (h.kind === 'point-added') {
+      let j = i;
+      while (j < history.length && history[j].kind === 'point-added') j++;
+      const run = history.slice(i, j);
+      items.push(el('li', {}, el('details', {},
+        el('summary', {}, `${when(run[0].at)} – ${when(run.at(-1).at)} · ${run.length} point${run.length > 1 ? 's' : ''} added by ${h.by}`),
+        el('ul', {}, run.map((r) => el('li', {}, `${when(r.at)}: ${r.comment}${r.point_seq ? ` (point ${r.point_seq})` : ''}`))))));
+      i = j;
+      continue;
+    }
+    items.push(el('li', {}, `${when(h.at)} · ${h.kind} by ${h.by}`, h.comment ? `: ${h.comment}` : '',
+      h.steps ? el('ul', {}, h.steps.map((st) => el('li', {}, `${st.done ? '✔ done' : '✘ not done'}: ${st.step}${st.note ? ` (${st.note})` : ''}`))) : ''));
+    i++;
+  }
+  return items;
 }
 
 async function load() {

@@ -105,7 +105,8 @@ function drawControl() {
       pointRadius: view.map((p) => (p.signals.length ? 6 : 2.5)),
       pointStyle: view.map((p) => (p.signals.length ? 'triangle' : 'circle')),
       pointBackgroundColor: view.map((p) => (p.signals.length ? palette.signal : palette.ink)),
-      pointLabels: view.map((p) => p.signals.join(' ')), order: 0,
+      // A run of signalling points is labelled where its rules change, so long runs stay readable.
+      pointLabels: view.map((p, i) => (p.signals.length && p.signals.join(' ') !== view[i - 1]?.signals.join(' ') ? p.signals.join(' ') : '')), order: 0,
     },
     { label: 'centre line', data: line((p) => p.centre), borderColor: palette.steady, borderWidth: 1.5, pointRadius: 0, stepped: true },
     { label: 'UCL (3σ)', data: line((p) => p.ucl), ...limitStyle },
@@ -122,7 +123,7 @@ function drawControl() {
     options: {
       parsing: false,
       scales: {
-        x: { type: 'linear', title: { display: true, text: 'point number (one per wafer, in measured order)' }, ticks: { precision: 0 } },
+        x: { type: 'linear', title: { display: true, text: `point number (one per ${context.subgroup}, in measured order)` }, ticks: { precision: 0 } },
         y: { title: { display: true, text: `${context.title} [${unit}]` } },
       },
       plugins: {
@@ -212,19 +213,19 @@ async function drawCapability() {
     type: 'bar',
     data: {
       datasets: [
-        { type: 'bar', label: 'wafers per bin', data: counts.map((n, i) => ({ x: min + (i + 0.5) * width, y: n })), backgroundColor: 'rgba(36, 80, 122, 0.45)', barPercentage: 1, categoryPercentage: 1 },
+        { type: 'bar', label: `${context.subgroup}s per bin`, data: counts.map((n, i) => ({ x: min + (i + 0.5) * width, y: n })), backgroundColor: 'rgba(36, 80, 122, 0.45)', barPercentage: 1, categoryPercentage: 1 },
         { type: 'line', label: 'fitted normal (overall σ)', data: curve, borderColor: palette.ink, pointRadius: 0, borderWidth: 1.5 },
       ],
     },
     options: {
       parsing: false,
-      scales: { x: { type: 'linear', title: { display: true, text: `${context.parameter} [${unitLabel(context.unit)}]` } }, y: { title: { display: true, text: 'wafers' } } },
+      scales: { x: { type: 'linear', title: { display: true, text: `${context.parameter} [${unitLabel(context.unit)}]` } }, y: { title: { display: true, text: `${context.subgroup}s` } } },
       plugins: { finwatchVerticals: [s?.lower != null && { x: s.lower, label: 'LSL' }, s?.upper != null && { x: s.upper, label: 'USL' }].filter(Boolean) },
     },
   });
   const ci = (k) => (c?.ci?.[k] ? ` (${(c.confidence * 100).toFixed(0)} % CI ${number(c.ci[k][0], 2)}–${number(c.ci[k][1], 2)})` : '');
   fill(box,
-    el('p', {}, `Cpk ${number(c?.Cpk, 2)}${ci('Cpk')} · Cp ${number(c?.Cp, 2)} · Ppk ${number(c?.Ppk, 2)} · n = ${c?.n ?? 0} wafers`),
+    el('p', {}, `Cpk ${number(c?.Cpk, 2)}${ci('Cpk')} · Cp ${number(c?.Cp, 2)} · Ppk ${number(c?.Ppk, 2)} · n = ${c?.n ?? 0} wafers (the indices use every wafer mean in the range; the histogram shows the chart's points)`),
     el('p', {}, `mean ${withUnit(c?.mean, context.unit)} · σ within ${withUnit(c?.sigmaWithin, context.unit)} · σ overall ${withUnit(c?.sigmaOverall, context.unit)}`),
     cap.normality?.pValue != null ? el('p', {}, `Anderson–Darling A²* = ${number(cap.normality.a2Star, 3)}, p = ${number(cap.normality.pValue, 3)}${cap.normality.pValue < 0.05 ? ': not normal at 5 %, read Cpk with care' : ''}`) : '',
     (c?.notes ?? []).map((n) => el('p', { class: 'muted' }, n)));

@@ -1,0 +1,85 @@
+using System.Globalization;
+using System.Net.Http.Json;
+using System.Text.Json;
+using FinWatch.Testing;
+using Microsoft.Playwright;
+
+namespace FinWatch.Browser.Tests;
+
+/// <summary>
+/// Every page in the invented demo fab's state renders its main content without a script error or a failed request,
+/// and is photographed. The screenshots go to FINWATCH_SCREENSHOTS (the README's pictures: seed-demo/screenshots,
+/// taken with FINWATCH_SCREENSHOT_DAYS=90) or else to the test's temporary folder. The suite loads 30 days to stay quick.
+/// </summary>
+public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser)
+{
+    private static readonly int Days = int.TryParse(Environment.GetEnvironmentVariable("FINWATCH_SCREENSHOT_DAYS"), CultureInfo.InvariantCulture, out var d) ? d : 30;
+
+    private string shots = "";
+
+    protected override void Configure(FinWatchAppFactory factory)
+    {
+        factory.With("FinWatch:Demo:Enabled", "true").With("FinWatch:Demo:Days", Days.ToString(CultureInfo.InvariantCulture));
+    }
+
+    public override async Task InitializeAsync()
+    {
+        await base.InitializeAsync();
+        shots = Environment.GetEnvironmentVariable("FINWATCH_SCREENSHOTS") is { Length: > 0 } dir ? Path.GetFullPath(dir) : Path.Combine(Factory.Folder, "screenshots");
+        Directory.CreateDirectory(shots);
+        var deadline = DateTime.UtcNow.AddMinutes(3);
+        while ((await Client.GetFromJsonAsync<JsonElement>("/api/about")).GetProperty("demo_data").GetString() != "loaded")
+        {
+            Assert.True(DateTime.UtcNow < deadline, "the demo did not finish loading within 3 minutes");
+            await Task.Delay(250);
+        }
+    }
+
+    private Task<byte[]> ShotAsync(string name) => Page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(shots, name + ".png"), FullPage = true });
+
+    [Fact]
+    public async Task EveryPage_RendersTheDemoState()
+    {
+        var contexts = (await Client.GetFromJsonAsync<JsonElement>("/api/contexts")).EnumerateArray().ToList();
+        var worst = contexts[0].GetProperty("code").GetString()!;
+
+        await OpenAsync("index.html");
+        await WaitLiveAsync();
+        await Assertions.Expect(Page.Locator(".tile")).ToHaveCountAsync(contexts.Count);
+        await Assertions.Expect(Page.Locator(".tile").First).ToHaveAttributeAsync("data-state", contexts[0].GetProperty("state").GetString()!);
+        await ShotAsync("floor");
+
+        await OpenAsync($"chart.html?context={worst}&range=all");
+        await WaitLiveAsync();
+        await Assertions.Expect(Page.Locator("#legend")).ToContainTextAsync("points shown");
+        await Assertions.Expect(Page.Locator("#capability-numbers")).ToContainTextAsync("Cpk");
+        await ShotAsync("chart");
+
+        await OpenAsync("alerts.html");
+        await WaitLiveAsync();
+        await Page.Locator(".alert-item button").First.ClickAsync();
+        await Assertions.Expect(Page.Locator("#detail h2")).ToContainTextAsync("Alert");
+        await ShotAsync("alerts");
+
+        await OpenAsync($"limits.html?context={worst}");
+        await Assertions.Expect(Page.Locator("#versions tr[data-status='approved']")).ToHaveCountAsync(1);
+        await ShotAsync("limits");
+
+        var lot = (await Client.GetFromJsonAsync<JsonElement>("/api/lots?page_size=1")).GetProperty("items")[0].GetProperty("lot_id").GetString()!;
+        await OpenAsync($"lot.html?lot={lot}");
+        await Assertions.Expect(Page.Locator("#maps figure.wafer-map")).Not.ToHaveCountAsync(0);
+        await Page.Locator("#sites tbody tr[data-site]").Nth(3).ClickAsync();
+        await Assertions.Expect(Page.Locator("#xsection > *")).Not.ToHaveCountAsync(0); // the drawing is built into the svg
+        await ShotAsync("lot");
+
+        await OpenAsync("whatif.html");
+        await Assertions.Expect(Page.Locator("#dvt-sat")).ToContainTextAsync("mV");
+        await Assertions.Expect(Page.Locator("#caution")).ToContainTextAsync("estimate");
+        await ShotAsync("whatif");
+
+        await OpenAsync("entry.html");
+        await Assertions.Expect(Page.Locator("#manual-form")).ToBeVisibleAsync();
+        await ShotAsync("entry");
+        AssertNoPageProblems();
+    }
+}
