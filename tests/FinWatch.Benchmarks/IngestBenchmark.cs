@@ -1,6 +1,4 @@
 using System.Diagnostics;
-using System.Globalization;
-using System.Net.Http.Json;
 using System.Text;
 using FinWatch.Data;
 using FinWatch.SeedDemo;
@@ -143,127 +141,36 @@ public static class IngestBenchmark
 
     private static async Task<(double Rate, double PeakMb)> FinWatchAsync(string work, string csvPath, int rows, bool predict, string database)
     {
-        var serverDll = Path.Combine(AppContext.BaseDirectory, "FinWatch.Server.dll");
-        var port = 5600 + Random.Shared.Next(300);
-        var start = new ProcessStartInfo("dotnet")
+        await using var server = await BenchServer.StartAsync(work, database, "--FinWatch:Ingest:PredictShifts", predict ? "true" : "false");
+        await server.CreateDemoProductsAsync();
+        var peak = 0L;
+        using var sampling = new CancellationTokenSource();
+        var sampler = Task.Run(async () =>
         {
-            ArgumentList =
+            while (!sampling.IsCancellationRequested)
             {
-                serverDll, "--urls", $"http://127.0.0.1:{port}",
-                "--FinWatch:Database:SqlitePath", Path.Combine(work, database),
-                "--FinWatch:Ingest:PredictShifts", predict ? "true" : "false",
-                "--FinWatch:Ingest:InboxEnabled", "false",
-                "--Logging:LogLevel:Default", "Warning",
-            },
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-            WorkingDirectory = work,
-        };
-        start.Environment["ASPNETCORE_ENVIRONMENT"] = "Production";
-        using var server = Process.Start(start)!;
-        server.OutputDataReceived += (_, _) => { };
-        server.ErrorDataReceived += (_, e) => { if (e.Data is not null) { Console.Error.WriteLine("server: " + e.Data); } };
-        server.BeginOutputReadLine();
-        server.BeginErrorReadLine();
-        try
+                peak = Math.Max(peak, server.RssBytes());
+                await Task.Delay(50);
+            }
+        });
+        var sw = Stopwatch.StartNew();
+        await using (var file = File.OpenRead(csvPath))
         {
-            using var http = new HttpClient { BaseAddress = new Uri($"http://127.0.0.1:{port}"), Timeout = TimeSpan.FromMinutes(30) };
-            await WaitUntilUpAsync(http);
-            foreach (var p in DemoFab.Products)
+            using var content = new StreamContent(file, 1 << 16);
+            content.Headers.ContentType = new("text/csv");
+            using var response = await server.Http.PostAsync("/api/measurements/csv", content);
+            var body = await response.Content.ReadAsStringAsync();
+            if (!response.IsSuccessStatusCode)
             {
-                var response = await http.PostAsJsonAsync("/api/products", new
-                {
-                    code = p.Code,
-                    name = p.Name,
-                    description = p.Description,
-                    gate_faces = p.GatedFaces,
-                    nominal = new
-                    {
-                        top_width_nm = p.Nominal.TopWidthNm,
-                        bottom_width_nm = p.Nominal.BottomWidthNm,
-                        fin_height_nm = p.Nominal.FinHeightNm,
-                        corner_radius_nm = p.Nominal.CornerRadiusNm,
-                        liner_thickness_nm = p.Nominal.LinerThicknessNm,
-                    },
-                });
-                response.EnsureSuccessStatusCode();
+                throw new InvalidOperationException($"ingest failed: {(int)response.StatusCode} {body[..Math.Min(body.Length, 2000)]}");
             }
 
-            var peak = 0L;
-            using var sampling = new CancellationTokenSource();
-            var sampler = Task.Run(async () =>
-            {
-                while (!sampling.IsCancellationRequested)
-                {
-                    peak = Math.Max(peak, RssBytes(server.Id));
-                    await Task.Delay(50);
-                }
-            });
-            var sw = Stopwatch.StartNew();
-            await using (var file = File.OpenRead(csvPath))
-            {
-                using var content = new StreamContent(file, 1 << 16);
-                content.Headers.ContentType = new("text/csv");
-                using var response = await http.PostAsync("/api/measurements/csv", content);
-                var body = await response.Content.ReadAsStringAsync();
-                if (!response.IsSuccessStatusCode)
-                {
-                    throw new InvalidOperationException($"ingest failed: {(int)response.StatusCode} {body[..Math.Min(body.Length, 2000)]}");
-                }
-
-                Console.WriteLine("server answered: " + body[..Math.Min(body.Length, 300)]);
-            }
-
-            var seconds = sw.Elapsed.TotalSeconds;
-            await sampling.CancelAsync();
-            await sampler;
-            return (rows / seconds, peak / 1048576.0);
-        }
-        finally
-        {
-            server.Kill(entireProcessTree: true);
-            await server.WaitForExitAsync();
-        }
-    }
-
-    private static async Task WaitUntilUpAsync(HttpClient http)
-    {
-        for (var i = 0; i < 300; i++)
-        {
-            try
-            {
-                if ((await http.GetAsync("/alive")).IsSuccessStatusCode)
-                {
-                    return;
-                }
-            }
-            catch (HttpRequestException)
-            {
-            }
-
-            await Task.Delay(100);
+            Console.WriteLine("server answered: " + body[..Math.Min(body.Length, 300)]);
         }
 
-        throw new TimeoutException("the server did not start");
-    }
-
-    // Resident set size from /proc (Linux): the memory the server really holds, managed and native.
-    private static long RssBytes(int pid)
-    {
-        try
-        {
-            foreach (var line in File.ReadLines($"/proc/{pid}/status"))
-            {
-                if (line.StartsWith("VmRSS:", StringComparison.Ordinal))
-                {
-                    return long.Parse(line.Split(' ', StringSplitOptions.RemoveEmptyEntries)[1], CultureInfo.InvariantCulture) * 1024;
-                }
-            }
-        }
-        catch (IOException)
-        {
-        }
-
-        return 0;
+        var seconds = sw.Elapsed.TotalSeconds;
+        await sampling.CancelAsync();
+        await sampler;
+        return (rows / seconds, peak / 1048576.0);
     }
 }

@@ -5,17 +5,21 @@ using FinWatch.Benchmarks;
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- rules
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- model
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- solver
+//   dotnet run -c Release --project tests/FinWatch.Benchmarks -- push [minutes] [clients] [lots-per-minute]
 return args.FirstOrDefault() switch
 {
     "ingest" => await IngestBenchmark.RunAsync(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 1_000_000),
     "rules" => RulesBenchmark.Run(),
     "model" => ModelBenchmark.Run(),
     "solver" => SolverBenchmark.Run(),
+    "push" => await PushBenchmark.RunAsync(Arg(1, 3.0), (int)Arg(2, 500), Arg(3, 50)),
     _ => Usage(),
 };
 
 static int Usage()
 {
-    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | rules | model | solver");
+    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | rules | model | solver | push [minutes] [clients] [lots-per-minute]");
     return 2;
 }
+
+double Arg(int i, double fallback) => args.Length > i ? double.Parse(args[i], System.Globalization.CultureInfo.InvariantCulture) : fallback;
