@@ -7,6 +7,7 @@ using FinWatch.SeedDemo;
 using FinWatch.Server.Features.Monitor;
 using Microsoft.AspNetCore.Http.Connections;
 using Microsoft.AspNetCore.SignalR.Client;
+using Microsoft.Extensions.DependencyInjection;
 
 namespace FinWatch.Benchmarks;
 
@@ -328,9 +329,18 @@ public static class PushBenchmark
                 string[]? watches = i % FloorScreenEvery == 0 ? null
                     : i % 3 == 0 ? [contexts[i % contexts.Count].Code, contexts[(i + 1) % contexts.Count].Code]
                     : [contexts[i % contexts.Count].Code];
-                var connection = new HubConnectionBuilder().WithUrl(hub, HttpTransportType.WebSockets).Build();
+                var connection = new HubConnectionBuilder().WithUrl(hub, HttpTransportType.WebSockets)
+                    .AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower)
+                    .Build();
                 var client = new Client(connection, watches);
-                connection.On<FeedMessage>(nameof(IMonitorClient.Feed), m => client.Receive(m, Stopwatch.GetTimestamp(), lots));
+                connection.On<List<FeedMessage>>(nameof(IMonitorClient.Feed), entries =>
+                {
+                    var at = Stopwatch.GetTimestamp();
+                    foreach (var m in entries)
+                    {
+                        client.Receive(m, at, lots);
+                    }
+                });
                 connection.Closed += _ =>
                 {
                     client.Closed = true;

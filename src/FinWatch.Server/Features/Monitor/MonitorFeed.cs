@@ -24,9 +24,12 @@ public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> 
         await order.WaitAsync();
         try
         {
-            foreach (var m in messages)
+            // One frame per group and publish (an ingest's points and alerts together), not one per entry: a lot
+            // brings dozens of entries for hundreds of screens, and frames, not bytes, are what cost.
+            await hub.Clients.Group(MonitorHub.AllGroup).Feed(messages);
+            foreach (var group in messages.GroupBy(m => m.Context, StringComparer.Ordinal))
             {
-                await hub.Clients.Groups(MonitorHub.AllGroup, MonitorHub.ContextGroup(m.Context)).Feed(m);
+                await hub.Clients.Group(MonitorHub.ContextGroup(group.Key)).Feed([.. group]);
             }
         }
         catch (Exception e) when (e is not OutOfMemoryException)

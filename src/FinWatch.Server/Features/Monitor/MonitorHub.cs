@@ -4,10 +4,13 @@ using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Monitor;
 
-/// <summary>What the server calls on a connected browser: one feed entry at a time (points and alert changes).</summary>
+/// <summary>
+/// What the server calls on a connected browser: the feed entries (points and alert changes) of one commit, in number
+/// order. A client that watches everything and some contexts too may get an entry twice; it keeps the first.
+/// </summary>
 public interface IMonitorClient
 {
-    Task Feed(FeedMessage message);
+    Task Feed(IReadOnlyList<FeedMessage> entries);
 }
 
 /// <summary>

@@ -20,7 +20,7 @@ public class MonitorHubTests : IntegrationTest
             })
             .AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.SnakeCaseLower)
             .Build();
-        connection.On<FeedMessage>(nameof(IMonitorClient.Feed), m => received.Writer.TryWrite(m));
+        connection.On<List<FeedMessage>>(nameof(IMonitorClient.Feed), entries => entries.ForEach(m => received.Writer.TryWrite(m)));
         return connection;
     }
 

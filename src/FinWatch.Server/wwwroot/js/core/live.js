@@ -29,7 +29,7 @@ export class LiveFeed {
       .withAutomaticReconnect({ nextRetryDelayInMilliseconds: (ctx) => Math.min(5000, 500 * (ctx.previousRetryCount + 1)) })
       .configureLogging(signalR.LogLevel.Warning)
       .build();
-    this.connection.on('Feed', (entry) => this.#receive(entry));
+    this.connection.on('Feed', (entries) => { for (const entry of entries) this.#receive(entry); });
     this.connection.onreconnecting(() => this.#show('reconnecting'));
     this.connection.onreconnected(() => this.#resume());
     this.connection.onclose(() => this.#retryLater());
