@@ -35,7 +35,8 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
         }
     }
 
-    private Task<byte[]> ShotAsync(string name) => Page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(shots, name + ".png"), FullPage = true });
+    private Task<byte[]> ShotAsync(string name, bool fullPage = true) =>
+        Page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(shots, name + ".png"), FullPage = fullPage });
 
     [Fact]
     public async Task EveryPage_RendersTheDemoState()
@@ -59,7 +60,7 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
         await WaitLiveAsync();
         await Page.Locator(".alert-item button").First.ClickAsync();
         await Assertions.Expect(Page.Locator("#detail h2")).ToContainTextAsync("Alert");
-        await ShotAsync("alerts");
+        await ShotAsync("alerts", fullPage: false); // the queue is long; the first screen shows the layout
 
         await OpenAsync($"limits.html?context={worst}");
         await Assertions.Expect(Page.Locator("#versions tr[data-status='approved']")).ToHaveCountAsync(1);
@@ -74,6 +75,12 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
 
         await OpenAsync("whatif.html");
         await Assertions.Expect(Page.Locator("#dvt-sat")).ToContainTextAsync("mV");
+        // A fin 0.8 nm narrower at the top than nominal: a narrower, more tapered fin must move the prediction.
+        var top = Page.Locator("#top-width-num");
+        var nominalTop = double.Parse(await top.InputValueAsync(), CultureInfo.InvariantCulture);
+        await top.FillAsync((nominalTop - 0.8).ToString("0.0", CultureInfo.InvariantCulture));
+        await top.PressAsync("Tab");
+        await Assertions.Expect(Page.Locator("#dvt-sat")).Not.ToContainTextAsync("±0.0 mV");
         await Assertions.Expect(Page.Locator("#caution")).ToContainTextAsync("estimate");
         await ShotAsync("whatif");
 

@@ -40,6 +40,23 @@ public partial class ReadmeExamplesTests : IntegrationTest
     }
 
     [Fact]
+    public async Task ReadmeExample_ChartContext_IsCreatedInItsBaselinePhase()
+    {
+        var blocks = Blocks();
+        var product = blocks.Single(b => b.Lang == "json" && b.Body.Contains("\"gate_faces\"", StringComparison.Ordinal)).Body;
+        Assert.Equal(HttpStatusCode.Created, (await Client.PostAsync("/api/products", new StringContent(product, Encoding.UTF8, "application/json"))).StatusCode);
+        await PostCsvAsync(blocks.Single(b => b.Lang == "csv" && b.Body.StartsWith("lot_id,wafer_slot,site_id", StringComparison.Ordinal)).Body);
+
+        var context = blocks.Single(b => b.Lang == "json" && b.Body.Contains("\"reaction_plan\"", StringComparison.Ordinal)).Body;
+        var created = await Client.PostAsync("/api/contexts", new StringContent(context, Encoding.UTF8, "application/json"));
+        var body = await ReadJsonAsync(created);
+        Assert.Equal(HttpStatusCode.Created, created.StatusCode);
+        Assert.Equal("baseline", body.GetProperty("phase").GetString());
+        Assert.Equal(2, body.GetProperty("reaction_plan").GetArrayLength());
+        Assert.Equal(1, body.GetProperty("points").GetInt64()); // the README CSV's two FX07-L sites of one lot at FIN-PROFILE
+    }
+
+    [Fact]
     public async Task ReadmeExample_ElectricalTestCsv_IsReadAndJoinedToMetrology()
     {
         // The calibration example parses cell by cell; with no metrology of its wafer stored, the one error left is the join.

@@ -11,6 +11,7 @@ const filters = $('#filters');
 const queue = $('#queue');
 const detail = $('#detail');
 let selected = param('alert') ? Number(param('alert')) : null;
+let shown = {}; // what the detail pane shows, so a live entry re-renders it only when the alert changed
 
 const contexts = await getJson('/api/contexts');
 const units = Object.fromEntries(contexts.map((c) => [c.code, c.unit]));
@@ -54,9 +55,13 @@ async function select(id) {
   history.replaceState(null, '', `?${q}`);
   const d = await getJson(`/api/alerts/${id}`);
   const a = d.alert;
+  const typed = $('#action-comment')?.value ?? '';
+  const previous = shown.id;
+  shown = { id: a.id, state: a.state, points: a.point_count, escalated: a.escalated };
   const unit = units[a.context] ?? '';
   const message = el('div', { role: 'status', 'aria-live': 'polite' });
   const comment = el('textarea', { id: 'action-comment', 'aria-label': 'comment' });
+  if (previous === a.id) comment.value = typed; // a live refresh keeps what the user was typing
   const checklist = el('fieldset', { class: 'checklist' }, el('legend', {}, 'Reaction plan: mark each step done or not, with a note'),
     d.reaction_plan.length === 0 ? el('p', { class: 'muted' }, 'This chart has no reaction plan; describe what was done in the comment.') : '',
     d.reaction_plan.map((step, i) => el('div', {},
@@ -76,6 +81,7 @@ async function select(id) {
     }
     try {
       await sendJson('POST', `/api/alerts/${id}/${actions[0]}`, body);
+      comment.value = ''; // done: the next step starts with an empty comment
       await select(id);
       await loadQueue();
     } catch (e) {
@@ -141,7 +147,9 @@ function onEntry(entry) {
   timer ??= setTimeout(async () => {
     timer = null;
     await loadQueue();
-    if (selected && entry.alert?.id === selected && !detail.contains(document.activeElement)) await select(selected);
+    const a = entry.alert;
+    const changed = a && a.id === selected && (a.state !== shown.state || a.point_count !== shown.points || a.escalated !== shown.escalated);
+    if (changed) await select(selected);
   }, 300);
 }
 

@@ -189,7 +189,7 @@ function show(r) {
     ? el('div', { class: 'problem', id: 'validity-warnings' }, el('strong', {}, 'Outside the model’s validity:'), el('ul', {}, r.warnings.map((w) => el('li', {}, w))))
     : el('p', { class: 'muted', id: 'validity-warnings' }, 'No validity warnings for this profile.'));
   fill($('#caution'), el('strong', {}, 'Engineering estimate, not an electrical test result. '), r.note);
-  fill($('#model-version'), `Model parameter set ${r.parameterSet} v${r.parameterSetVersion}, code ${r.codeVersion}. Dashed: the nominal profile of ${r.product}; filled: the chosen profile with the nominal liner.`);
+  fill($('#model-version'), `Model parameter set ${r.parameterSet}, ${r.parameterSetVersion}; code ${r.codeVersion}. Dashed: the nominal profile of ${r.product}; filled: the chosen profile with the nominal liner.`);
   contributions(r);
 }
 
