@@ -69,7 +69,8 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
                 && m.ProductId == context.ProductId && m.Step == context.Step && EF.Property<double?>(m, column) != null);
             if (context.Chamber is { } chamber)
             {
-                q = q.Where(m => m.EtchChamber == chamber || m.LinerChamber == chamber);
+                // One chamber or one whole tool: the name is matched against the etch and liner chambers and tools.
+                q = q.Where(m => m.EtchChamber == chamber || m.LinerChamber == chamber || m.EtchTool == chamber || m.LinerTool == chamber);
             }
 
             var sites = await q.Select(m => new SiteValue(m.LotId, m.WaferSlot, m.MeasuredAtMs, m.EtchChamber, m.LinerChamber,

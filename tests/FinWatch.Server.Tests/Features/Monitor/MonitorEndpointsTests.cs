@@ -164,4 +164,23 @@ public class MonitorEndpointsTests : IntegrationTest
         Assert.Equal("draft", history[0].GetProperty("status").GetString());
         Assert.Contains(history[0].GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("common practice", StringComparison.Ordinal));
     }
+    [Fact]
+    public async Task Context_ForAChamberOrATool_TakesOnlyTheirSites()
+    {
+        // The fixture's sites are etched on tool ETA, chamber ETA-1 (SiteRow's defaults).
+        await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
+        foreach (var (code, chamber) in new[] { ("BY-CHAMBER", "ETA-1"), ("BY-TOOL", "ETA"), ("OTHER-CHAMBER", "ETA-2") })
+        {
+            var created = await Client.PostAsJsonAsync("/api/contexts", new
+            {
+                code, product = FinWatch.Testing.TestProducts.TriGate, step = "FIN-PROFILE", parameter = "top_width_nm", chamber, chart_type = "xbar",
+            });
+            Assert.Equal(HttpStatusCode.Created, created.StatusCode);
+        }
+
+        async Task<long> PointsAsync(string code) => (await Client.GetFromJsonAsync<JsonElement>($"/api/contexts/{code}")).GetProperty("points").GetInt64();
+        Assert.Equal(20, await PointsAsync("BY-CHAMBER"));
+        Assert.Equal(20, await PointsAsync("BY-TOOL"));
+        Assert.Equal(0, await PointsAsync("OTHER-CHAMBER"));
+    }
 }
