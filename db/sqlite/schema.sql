@@ -348,3 +348,98 @@ VALUES ('20261202143009_MonitorBatchIndex', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+CREATE TABLE "api_keys" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_api_keys" PRIMARY KEY AUTOINCREMENT,
+    "name" TEXT NOT NULL,
+    "prefix" TEXT NOT NULL,
+    "hash" TEXT NOT NULL,
+    "scope" TEXT NOT NULL,
+    "created_by" TEXT NOT NULL,
+    "created_at_ms" INTEGER NOT NULL,
+    "revoked_by" TEXT NULL,
+    "revoked_at_ms" INTEGER NULL,
+    "last_used_at_ms" INTEGER NULL
+);
+
+CREATE TABLE "audit_entries" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_audit_entries" PRIMARY KEY AUTOINCREMENT,
+    "at_ms" INTEGER NOT NULL,
+    "by" TEXT NOT NULL,
+    "entity" TEXT NOT NULL,
+    "key" TEXT NOT NULL,
+    "action" TEXT NOT NULL,
+    "before_json" TEXT NULL,
+    "after_json" TEXT NULL
+);
+
+CREATE TABLE "users" (
+    "id" TEXT NOT NULL CONSTRAINT "PK_users" PRIMARY KEY,
+    "role" TEXT NOT NULL,
+    "created_at_ms" INTEGER NOT NULL,
+    "disabled_at_ms" INTEGER NULL,
+    "user_name" TEXT NULL,
+    "normalized_user_name" TEXT NULL,
+    "email" TEXT NULL,
+    "normalized_email" TEXT NULL,
+    "email_confirmed" INTEGER NOT NULL,
+    "password_hash" TEXT NULL,
+    "security_stamp" TEXT NULL,
+    "concurrency_stamp" TEXT NULL,
+    "phone_number" TEXT NULL,
+    "phone_number_confirmed" INTEGER NOT NULL,
+    "two_factor_enabled" INTEGER NOT NULL,
+    "lockout_end" TEXT NULL,
+    "lockout_enabled" INTEGER NOT NULL,
+    "access_failed_count" INTEGER NOT NULL
+);
+
+CREATE TABLE "user_claims" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_user_claims" PRIMARY KEY AUTOINCREMENT,
+    "user_id" TEXT NOT NULL,
+    "claim_type" TEXT NULL,
+    "claim_value" TEXT NULL,
+    CONSTRAINT "FK_user_claims_users_user_id" FOREIGN KEY ("user_id") REFERENCES "users" ("id") ON DELETE CASCADE
+);
+
+CREATE TABLE "user_logins" (
+    "login_provider" TEXT NOT NULL,
+    "provider_key" TEXT NOT NULL,
+    "provider_display_name" TEXT NULL,
+    "user_id" TEXT NOT NULL,
+    CONSTRAINT "PK_user_logins" PRIMARY KEY ("login_provider", "provider_key"),
+    CONSTRAINT "FK_user_logins_users_user_id" FOREIGN KEY ("user_id") REFERENCES "users" ("id") ON DELETE CASCADE
+);
+
+CREATE TABLE "user_tokens" (
+    "user_id" TEXT NOT NULL,
+    "login_provider" TEXT NOT NULL,
+    "name" TEXT NOT NULL,
+    "value" TEXT NULL,
+    CONSTRAINT "PK_user_tokens" PRIMARY KEY ("user_id", "login_provider", "name"),
+    CONSTRAINT "FK_user_tokens_users_user_id" FOREIGN KEY ("user_id") REFERENCES "users" ("id") ON DELETE CASCADE
+);
+
+CREATE UNIQUE INDEX "IX_api_keys_prefix" ON "api_keys" ("prefix");
+
+CREATE INDEX "IX_audit_entries_at_ms" ON "audit_entries" ("at_ms");
+
+CREATE INDEX "IX_audit_entries_entity_key" ON "audit_entries" ("entity", "key");
+
+CREATE INDEX "IX_user_claims_user_id" ON "user_claims" ("user_id");
+
+CREATE INDEX "IX_user_logins_user_id" ON "user_logins" ("user_id");
+
+CREATE INDEX "EmailIndex" ON "users" ("normalized_email");
+
+CREATE UNIQUE INDEX "UserNameIndex" ON "users" ("normalized_user_name");
+
+CREATE TRIGGER audit_entries_no_update BEFORE UPDATE ON audit_entries BEGIN SELECT RAISE(ABORT, 'the audit trail is append-only'); END;
+
+CREATE TRIGGER audit_entries_no_delete BEFORE DELETE ON audit_entries BEGIN SELECT RAISE(ABORT, 'the audit trail is append-only'); END;
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202150905_Access', '10.0.15');
+
+COMMIT;
+

@@ -1,5 +1,7 @@
 using System.Text;
 using FinWatch.Data.Entities;
+using Microsoft.AspNetCore.Identity;
+using Microsoft.AspNetCore.Identity.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Data;
@@ -8,7 +10,7 @@ namespace FinWatch.Data;
 /// The one model of FinWatch's database. Each provider has a derived context with its own migration set
 /// (<see cref="SqliteFinWatchDbContext"/>); handlers depend on this base type only.
 /// </summary>
-public abstract class FinWatchDbContext(DbContextOptions options) : DbContext(options)
+public abstract class FinWatchDbContext(DbContextOptions options) : IdentityUserContext<FinWatchUser>(options)
 {
     public DbSet<Product> Products => Set<Product>();
     public DbSet<SpecLimit> SpecLimits => Set<SpecLimit>();
@@ -25,13 +27,20 @@ public abstract class FinWatchDbContext(DbContextOptions options) : DbContext(op
     public DbSet<Alert> Alerts => Set<Alert>();
     public DbSet<AlertEvent> AlertEvents => Set<AlertEvent>();
     public DbSet<FeedEvent> FeedEvents => Set<FeedEvent>();
+    public DbSet<ApiKey> ApiKeys => Set<ApiKey>();
+    public DbSet<AuditEntry> AuditEntries => Set<AuditEntry>();
 
-    protected override void OnModelCreating(ModelBuilder modelBuilder)
+    protected override void OnModelCreating(ModelBuilder builder)
     {
-        modelBuilder.ApplyConfigurationsFromAssembly(typeof(FinWatchDbContext).Assembly);
+        base.OnModelCreating(builder); // Identity's user tables (the role is a column of the user: one role each)
+        builder.Entity<FinWatchUser>().ToTable("users");
+        builder.Entity<IdentityUserClaim<string>>().ToTable("user_claims");
+        builder.Entity<IdentityUserLogin<string>>().ToTable("user_logins");
+        builder.Entity<IdentityUserToken<string>>().ToTable("user_tokens");
+        builder.ApplyConfigurationsFromAssembly(typeof(FinWatchDbContext).Assembly);
 
         // snake_case columns: the ingest's bulk insert and operators reading the database use these names.
-        foreach (var entity in modelBuilder.Model.GetEntityTypes())
+        foreach (var entity in builder.Model.GetEntityTypes())
         {
             foreach (var property in entity.GetProperties())
             {

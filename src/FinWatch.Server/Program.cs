@@ -1,3 +1,5 @@
+using FinWatch.Server.Features.Access;
+using FinWatch.Server.Features.Audit;
 using FinWatch.Server.Features.Model.Calibrations;
 using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Features.About;
@@ -15,6 +17,7 @@ var builder = WebApplication.CreateBuilder(args);
 builder.AddFinWatchApiDefaults();
 builder.AddFinWatchData();
 builder.AddDemo(args);
+builder.AddAccess();
 builder.Services.AddMeasurements();
 builder.Services.AddModel();
 builder.Services.AddCalibrations();
@@ -22,9 +25,20 @@ builder.Services.AddMonitor();
 
 var app = builder.Build();
 await app.MigrateFinWatchDatabaseAsync();
+if (await AccessCommands.TryRunAsync(app, args) is { } exitCode)
+{
+    return exitCode;
+}
+
+await AccessCommands.BootstrapAdministratorAsync(app);
 app.UseFinWatchApiDefaults();
+app.UseSecurityHeaders();
 app.UseFinWatchPages();
+app.UseAccess();
 app.MapAbout();
+app.MapAuth();
+app.MapPeople();
+app.MapAudit();
 app.MapParameters();
 app.MapProducts();
 app.MapMeasurements();
@@ -39,6 +53,7 @@ app.MapPredict();
 app.MapCalibrations();
 app.MapMonitor();
 await app.RunAsync();
+return 0;
 
 /// <summary>Entry point; public so the integration tests' WebApplicationFactory can boot the real app.</summary>
 public partial class Program;

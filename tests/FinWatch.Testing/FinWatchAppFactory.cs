@@ -1,4 +1,5 @@
 using FinWatch.Data;
+using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.EntityFrameworkCore;
@@ -36,6 +37,9 @@ public class FinWatchAppFactory : WebApplicationFactory<Program>
     public string InboxPath { get; }
     public FakeTimeProvider Clock { get; } = new(Now);
 
+    /// <summary>Who a request without the <see cref="TestAuthHandler.Header"/> header is (see <see cref="TestAuthHandler"/>).</summary>
+    public string DefaultIdentity { get; set; } = "administrator";
+
     /// <summary>Sets a configuration value before the host starts (for example to enable the inbox or the demo).</summary>
     public FinWatchAppFactory With(string key, string? value)
     {
@@ -55,6 +59,15 @@ public class FinWatchAppFactory : WebApplicationFactory<Program>
         {
             services.RemoveAll<TimeProvider>();
             services.AddSingleton<TimeProvider>(Clock);
+            services.AddSingleton(this);
+            services.AddAuthentication().AddScheme<AuthenticationSchemeOptions, TestAuthHandler>(TestAuthHandler.SchemeName, null);
+            services.PostConfigure<AuthenticationOptions>(o =>
+            {
+                o.DefaultScheme = TestAuthHandler.SchemeName;
+                o.DefaultAuthenticateScheme = TestAuthHandler.SchemeName;
+                o.DefaultChallengeScheme = TestAuthHandler.SchemeName;
+                o.DefaultForbidScheme = TestAuthHandler.SchemeName;
+            });
         });
     }
 

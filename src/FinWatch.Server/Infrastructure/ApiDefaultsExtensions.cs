@@ -45,10 +45,10 @@ public static class ApiDefaultsExtensions
             SuppressDiagnosticsCallback = c => c.Exception is BadHttpRequestException,
         });
         app.UseStatusCodePages();
-        app.MapOpenApi();
-        app.MapHealthChecks("/health");
+        app.MapOpenApi().AllowAnonymous();
+        app.MapHealthChecks("/health").AllowAnonymous();
         // Liveness: the process answers; it does not touch the database.
-        app.MapHealthChecks("/alive", new HealthCheckOptions { Predicate = _ => false });
+        app.MapHealthChecks("/alive", new HealthCheckOptions { Predicate = _ => false }).AllowAnonymous();
         return app;
     }
 }

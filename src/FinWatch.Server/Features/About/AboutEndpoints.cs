@@ -29,7 +29,7 @@ public static class AboutEndpoints
                 ["alerts"] = "/api/alerts?state=active",
                 ["live_hub"] = "/hubs/monitor",
                 ["floor_pages"] = "/",
-            }))).WithTags("About").WithSummary("What this service is, and links to its API");
+            }))).AllowAnonymous().WithTags("About").WithSummary("What this service is, and links to its API");
         return app;
     }
 }

@@ -1,3 +1,4 @@
+using FinWatch.Server.Features.Access;
 using Microsoft.AspNetCore.Http.Features;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Mvc;
@@ -22,7 +23,8 @@ public static class MeasurementsEndpoints
 
     public static IEndpointRouteBuilder MapMeasurements(this IEndpointRouteBuilder app)
     {
-        var group = app.MapGroup("/api/measurements").WithTags("Measurements");
+        var group = app.MapGroup("/api/measurements").WithTags("Measurements")
+            .RequireAuthorization(Permissions.Ingest).RequireRateLimiting(AccessExtensions.IngestLimiter);
         group.MapPost("/", IngestJsonAsync)
             .Accepts<IngestRowExample[]>("application/json")
             .WithSummary("Ingest a JSON batch: an array of site rows (all or nothing)");

@@ -1,3 +1,5 @@
+using FinWatch.Server.Features.Audit;
+using FinWatch.Server.Features.Access;
 using System.Text.Json;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
@@ -17,11 +19,11 @@ public static class AlertEndpoints
         group.MapGet("/", ListAsync).WithSummary("Alerts, most severe and newest first; filter by state, context, severity, escalated");
         group.MapGet("/{id:long}", GetAsync).WithSummary("One alert with its reaction plan, history and points");
         group.MapPost("/{id:long}/acknowledge", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
-            ActAsync(id, r, AlertStates.Open, AlertStates.Acknowledged, http, db, clock, feed, ct)).WithSummary("Acknowledge an open alert");
+            ActAsync(id, r, AlertStates.Open, AlertStates.Acknowledged, http, db, clock, feed, ct)).RequireAuthorization(Permissions.Acknowledge).WithSummary("Acknowledge an open alert");
         group.MapPost("/{id:long}/disposition", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
-            ActAsync(id, r, AlertStates.Acknowledged, AlertStates.Dispositioned, http, db, clock, feed, ct)).WithSummary("Record the reaction-plan steps taken");
+            ActAsync(id, r, AlertStates.Acknowledged, AlertStates.Dispositioned, http, db, clock, feed, ct)).RequireAuthorization(Permissions.Disposition).WithSummary("Record the reaction-plan steps taken");
         group.MapPost("/{id:long}/close", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
-            ActAsync(id, r, AlertStates.Dispositioned, AlertStates.Closed, http, db, clock, feed, ct)).WithSummary("Close a dispositioned alert");
+            ActAsync(id, r, AlertStates.Dispositioned, AlertStates.Closed, http, db, clock, feed, ct)).RequireAuthorization(Permissions.Disposition).WithSummary("Close a dispositioned alert");
     }
 
     private static async Task<Results<Ok<List<AlertMessage>>, ValidationProblem>> ListAsync(
@@ -148,7 +150,8 @@ public static class AlertEndpoints
         }
 
         var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
-        var who = http.User.Identity?.Name ?? "not signed in";
+        var who = http.User.Who();
+        var before = new { alert.State, alert.AcknowledgedBy, alert.ClosedBy };
         alert.State = to;
         alert.UpdatedAtMs = now;
         if (to == AlertStates.Acknowledged)
@@ -167,6 +170,8 @@ public static class AlertEndpoints
             AlertId = alert.Id, Kind = to, AtMs = now, By = who, Comment = r.Comment?.Trim() ?? "",
             StepsJson = steps is null ? null : JsonSerializer.Serialize(steps, FeedLog.Json),
         });
+        AuditLog.Add(db, who, "alert", id.ToString(System.Globalization.CultureInfo.InvariantCulture), to, before,
+            new { alert.State, alert.AcknowledgedBy, alert.ClosedBy, Comment = r.Comment?.Trim(), Steps = steps }, clock);
         await db.SaveChangesAsync(cancellationToken);
         var detail = await DetailAsync(db, alert, cancellationToken);
         var message = await FeedLog.AddAsync(db, "alert", context, null, detail.Alert, now, cancellationToken);

@@ -1,3 +1,5 @@
+using FinWatch.Server.Features.Audit;
+using FinWatch.Server.Features.Access;
 using System.Text.Json;
 using System.Text.RegularExpressions;
 using FinWatch.Data;
@@ -30,16 +32,16 @@ public static partial class ContextEndpoints
     public static IEndpointRouteBuilder MapMonitor(this IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/contexts").WithTags("Monitor");
-        group.MapGet("/", ListAsync).WithSummary("Every chart context with its state, worst first");
-        group.MapPost("/", CreateAsync).WithSummary("Create a chart context (it starts in its baseline phase)");
-        group.MapGet("/{code}", GetAsync).WithSummary("One chart context with its limits in force and its state");
-        group.MapPut("/{code}", UpdateAsync).WithSummary("Change a context's title, rules, reaction plan or electrical concern");
-        group.MapGet("/{code}/points", PointsAsync).WithSummary("The context's points in order, each with the limits it was judged by");
+        group.MapGet("/", ListAsync).RequireAuthorization(Permissions.Floor).WithSummary("Every chart context with its state, worst first");
+        group.MapPost("/", CreateAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Create a chart context (it starts in its baseline phase)");
+        group.MapGet("/{code}", GetAsync).RequireAuthorization(Permissions.Floor).WithSummary("One chart context with its limits in force and its state");
+        group.MapPut("/{code}", UpdateAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Change a context's title, rules, reaction plan or electrical concern");
+        group.MapGet("/{code}/points", PointsAsync).RequireAuthorization(Permissions.Floor).WithSummary("The context's points in order, each with the limits it was judged by");
         group.MapGet("/{code}/limits", LimitsAsync).WithSummary("Every limit version of the context, newest first");
-        group.MapPost("/{code}/limits", ComputeLimitsAsync).WithSummary("Compute a draft limit version from chosen points");
-        group.MapPost("/{code}/limits/{version:int}/approve", ApproveAsync).WithSummary("Approve (freeze) a draft limit version");
-        app.MapGet("/api/feed", FeedAsync).WithTags("Monitor").WithSummary("Live-feed entries after a number (what a reconnecting client missed)");
-        app.MapHub<MonitorHub>(MonitorHub.Path);
+        group.MapPost("/{code}/limits", ComputeLimitsAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Compute a draft limit version from chosen points");
+        group.MapPost("/{code}/limits/{version:int}/approve", ApproveAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Approve (freeze) a draft limit version");
+        app.MapGet("/api/feed", FeedAsync).RequireAuthorization(Permissions.Floor).WithTags("Monitor").WithSummary("Live-feed entries after a number (what a reconnecting client missed)");
+        app.MapHub<MonitorHub>(MonitorHub.Path).RequireAuthorization(Permissions.Floor);
         AlertEndpoints.Map(app);
         return app;
     }
@@ -66,7 +68,7 @@ public static partial class ContextEndpoints
             : NotFound(code);
 
     private static async Task<Results<Created<ContextResponse>, ValidationProblem>> CreateAsync(
-        ContextRequest r, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator, CancellationToken cancellationToken)
+        ContextRequest r, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator, HttpContext http, CancellationToken cancellationToken)
     {
         var errors = new Dictionary<string, string[]>();
         if (r.Code is null || !CodePattern().IsMatch(r.Code))
@@ -116,13 +118,15 @@ public static partial class ContextEndpoints
         };
         db.ChartContexts.Add(context);
         await db.SaveChangesAsync(cancellationToken);
+        AuditLog.Add(db, http.User.Who(), "context", context.Code, "created", null, await DescribeAsync(db, context, cancellationToken), clock);
+        await db.SaveChangesAsync(cancellationToken);
         await evaluator.EvaluatePendingAsync(cancellationToken); // the stored history becomes its baseline points
         var saved = await db.ChartContexts.AsNoTracking().SingleAsync(c => c.Id == context.Id, cancellationToken);
         return TypedResults.Created($"/api/contexts/{Uri.EscapeDataString(context.Code)}", await DescribeAsync(db, saved, cancellationToken));
     }
 
     private static async Task<Results<Ok<ContextResponse>, ValidationProblem, ProblemHttpResult>> UpdateAsync(
-        string code, ContextRequest r, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
+        string code, ContextRequest r, FinWatchDbContext db, TimeProvider clock, HttpContext http, CancellationToken cancellationToken)
     {
         var context = await db.ChartContexts.SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
         if (context is null)
@@ -146,13 +150,16 @@ public static partial class ContextEndpoints
             return TypedResults.ValidationProblem(errors);
         }
 
+        var before = await DescribeAsync(db, context, cancellationToken);
         context.Title = string.IsNullOrWhiteSpace(r.Title) ? context.Title : r.Title.Trim();
         context.Rules = r.Rules is null ? context.Rules : NormaliseRules(r.Rules);
         context.ReactionPlan = r.ReactionPlan is null ? context.ReactionPlan : string.Join('\n', r.ReactionPlan.Select(s => s.Trim()).Where(s => s.Length > 0));
         context.ElectricalConcernMv = r.ElectricalConcernMv ?? context.ElectricalConcernMv;
         context.UpdatedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        var after = await DescribeAsync(db, context, cancellationToken);
+        AuditLog.Add(db, http.User.Who(), "context", context.Code, "changed", before, after, clock); // title, rules, reaction plan, concern
         await db.SaveChangesAsync(cancellationToken);
-        return TypedResults.Ok(await DescribeAsync(db, context, cancellationToken));
+        return TypedResults.Ok(after);
     }
 
     private static void CheckCommon(ContextRequest r, Dictionary<string, string[]> errors, bool creating)
@@ -281,9 +288,11 @@ public static partial class ContextEndpoints
         }
 
         var version = 1 + (await db.LimitVersions.Where(l => l.ContextId == context.Id).MaxAsync(l => (int?)l.Version, cancellationToken) ?? 0);
-        var limit = Draft(context, version, centre, sigma!.Value, used, exclude, http.User.Identity?.Name ?? "not signed in",
+        var limit = Draft(context, version, centre, sigma!.Value, used, exclude, http.User.Who(),
             clock.GetUtcNow().ToUnixTimeMilliseconds(), r.Reason!.Trim());
         db.LimitVersions.Add(limit);
+        await db.SaveChangesAsync(cancellationToken);
+        AuditLog.Add(db, http.User.Who(), "limits", $"{code} v{version}", "computed", null, Describe(context, limit), clock);
         await db.SaveChangesAsync(cancellationToken);
         return TypedResults.Created($"/api/contexts/{Uri.EscapeDataString(code)}/limits", Describe(context, limit));
     }
@@ -330,11 +339,13 @@ public static partial class ContextEndpoints
             });
         }
 
+        var before = Describe(context, limit);
         limit.Status = "approved";
-        limit.ApprovedBy = http.User.Identity?.Name ?? "not signed in";
+        limit.ApprovedBy = http.User.Who();
         limit.ApprovedAtMs = now.ToUnixTimeMilliseconds();
         limit.ApprovalComment = r.Comment?.Trim();
         limit.EffectiveFromMs = effective.ToUnixTimeMilliseconds();
+        AuditLog.Add(db, http.User.Who(), "limits", $"{code} v{version}", "approved", before, Describe(context, limit), clock);
         await db.SaveChangesAsync(cancellationToken);
         await evaluator.EvaluatePendingAsync(cancellationToken);
         return TypedResults.Ok(Describe(context, limit));

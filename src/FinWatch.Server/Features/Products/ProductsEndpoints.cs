@@ -1,3 +1,5 @@
+using FinWatch.Server.Features.Audit;
+using FinWatch.Server.Features.Access;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Parameters;
@@ -13,10 +15,10 @@ public static class ProductsEndpoints
     public static IEndpointRouteBuilder MapProducts(this IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/products").WithTags("Products");
-        group.MapGet("/", ListAsync).WithSummary("All products with nominal profile and specification limits");
-        group.MapGet("/{code}", GetAsync).WithSummary("One product");
-        group.MapPost("/", CreateAsync).WithSummary("Create a product");
-        group.MapPut("/{code}", UpdateAsync).WithSummary("Replace a product's name, description, gate faces, nominal profile and specifications");
+        group.MapGet("/", ListAsync).RequireAuthorization(Permissions.Floor).WithSummary("All products with nominal profile and specification limits");
+        group.MapGet("/{code}", GetAsync).RequireAuthorization(Permissions.Floor).WithSummary("One product");
+        group.MapPost("/", CreateAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Create a product");
+        group.MapPut("/{code}", UpdateAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Replace a product's name, description, gate faces, nominal profile and specifications");
         return app;
     }
 
@@ -34,7 +36,7 @@ public static class ProductsEndpoints
     }
 
     private static async Task<Results<Created<ProductResponse>, ValidationProblem, ProblemHttpResult>> CreateAsync(
-        ProductRequest request, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
+        ProductRequest request, FinWatchDbContext db, TimeProvider clock, HttpContext http, CancellationToken cancellationToken)
     {
         if (ProductRules.Check(request) is { Count: > 0 } errors)
         {
@@ -56,12 +58,13 @@ public static class ProductsEndpoints
         var product = new Product { Code = request.Code, Name = request.Name, CreatedAtMs = now };
         Apply(product, request, now);
         db.Products.Add(product);
+        AuditLog.Add(db, http.User.Who(), "product", product.Code, "created", null, ToResponse(product), clock);
         await db.SaveChangesAsync(cancellationToken);
         return TypedResults.Created($"/api/products/{product.Code}", ToResponse(product));
     }
 
     private static async Task<Results<Ok<ProductResponse>, ValidationProblem, ProblemHttpResult>> UpdateAsync(
-        string code, ProductRequest request, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
+        string code, ProductRequest request, FinWatchDbContext db, TimeProvider clock, HttpContext http, CancellationToken cancellationToken)
     {
         if (ProductRules.Check(request) is { Count: > 0 } errors)
         {
@@ -82,7 +85,9 @@ public static class ProductsEndpoints
             return NotFound(code);
         }
 
+        var before = ToResponse(product);
         Apply(product, request, clock.GetUtcNow().ToUnixTimeMilliseconds());
+        AuditLog.Add(db, http.User.Who(), "product", product.Code, "changed", before, ToResponse(product), clock); // specifications included
         await db.SaveChangesAsync(cancellationToken);
         return TypedResults.Ok(ToResponse(product));
     }

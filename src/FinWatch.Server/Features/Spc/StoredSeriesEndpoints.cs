@@ -1,3 +1,4 @@
+using FinWatch.Server.Features.Access;
 using System.Text.Json.Serialization;
 using FinWatch.Data;
 using FinWatch.Server.Features.Series;
@@ -46,7 +47,7 @@ public static class StoredSeriesEndpoints
     {
         var group = app.MapGroup("/api/series").WithTags("Series");
         group.MapGet("/chart", ChartAsync).WithSummary("Control chart, run rules, EWMA and CUSUM of a stored series");
-        group.MapGet("/capability", CapabilityAsync).WithSummary("Capability, normality and percentile capability of a stored series");
+        group.MapGet("/capability", CapabilityAsync).RequireAuthorization(Permissions.Floor).WithSummary("Capability, normality and percentile capability of a stored series");
         return app;
     }
 

@@ -127,7 +127,7 @@ public class CalibrationEndpointsTests : IntegrationTest
         var list = h.GetProperty("calibrations").EnumerateArray().ToList();
         Assert.Equal([2, 1], list.Select(c => c.GetProperty("version").GetInt32()));
         Assert.Equal("more lots", list[0].GetProperty("reason").GetString());
-        Assert.Equal("not signed in", list[0].GetProperty("createdBy").GetString());
+        Assert.Equal("test administrator", list[0].GetProperty("createdBy").GetString()); // the test identity that made the request (TestAuthHandler)
     }
 
     [Fact]

@@ -128,6 +128,8 @@ public sealed class CalibrateModel(FinWatchDbContext db, TimeProvider clock, ILo
             await db.SaveChangesAsync(cancellationToken);
             tests.ForEach(t => t.ParameterSetId = set.Id);
             db.ElectricalTests.AddRange(tests);
+            Audit.AuditLog.Add(db, request.CreatedBy, "model-parameters", $"{product.Code} v{set.Version}", "calibrated", null,
+                Describe(product, set, prior, ProductModels.ParametersOf(product, set), set.Version, null, now), clock);
             await db.SaveChangesAsync(cancellationToken);
             await transaction.CommitAsync(cancellationToken);
             logger.LogInformation("Calibrated {Product} v{Version} on {Wafers} wafers: rms {Before:0.0} → {After:0.0} mV",

@@ -1,3 +1,4 @@
+using FinWatch.Server.Features.Access;
 using System.Globalization;
 using FinWatch.Data;
 using FinWatch.Server.Features.Measurements;
@@ -16,7 +17,7 @@ public static class CalibrationEndpoints
     public static IEndpointRouteBuilder MapCalibrations(this IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/model/calibrations").WithTags("Model");
-        group.MapPost("/", CalibrateAsync)
+        group.MapPost("/", CalibrateAsync).RequireAuthorization(Permissions.Engineer)
             .Accepts<IFormFile>("text/csv", "multipart/form-data")
             .WithSummary("Fit the product's calibration (fin-model.md G.3) to an electrical-test CSV; stores the next parameter-set version unless preview=true");
         group.MapGet("/", HistoryAsync).WithSummary("A product's calibrations, newest (current) first");
@@ -39,7 +40,7 @@ public static class CalibrationEndpoints
                 [RowError.For(1, null, null, "the multipart form has no file part; send the CSV as a form file or as the request body")])));
         }
 
-        var who = http.User.Identity?.Name ?? "not signed in";
+        var who = http.User.Who();
         var outcome = await calibrate.RunAsync(stream, new CalibrateModel.Request(reason, who, name, preview ?? false,
             measurementSdMv ?? CalibrateModel.DefaultMeasurementSdMv), cancellationToken);
         if (outcome.Rejected is { } rejected)

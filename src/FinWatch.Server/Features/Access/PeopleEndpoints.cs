@@ -1,0 +1,214 @@
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Audit;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Identity;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.EntityFrameworkCore;
+
+namespace FinWatch.Server.Features.Access;
+
+public sealed record PersonRequest(string? Name, string? Role, string? Password, bool? Disabled);
+
+public sealed record PasswordRequest(string? Password);
+
+public sealed record PersonResponse(string Name, string Role, DateTimeOffset CreatedAt, DateTimeOffset? DisabledAt, DateTimeOffset? LockedUntil);
+
+public sealed record KeyRequest(string? Name, string? Scope);
+
+public sealed record KeyResponse(int Id, string Name, string Scope, string Prefix, string CreatedBy, DateTimeOffset CreatedAt,
+    string? RevokedBy, DateTimeOffset? RevokedAt, DateTimeOffset? LastUsedAt);
+
+/// <summary>The key itself appears here once, when it is created; FinWatch keeps only its hash.</summary>
+public sealed record CreatedKeyResponse(string Key, KeyResponse Details, string Use);
+
+/// <summary>People and keys: administrators only. People are disabled, never deleted (the audit trail names them).</summary>
+public static class PeopleEndpoints
+{
+    public static IEndpointRouteBuilder MapPeople(this IEndpointRouteBuilder app)
+    {
+        var people = app.MapGroup("/api/people").WithTags("Access").RequireAuthorization(Permissions.Administer);
+        people.MapGet("/", ListAsync).WithSummary("People who can sign in, with role and lock state");
+        people.MapPost("/", CreateAsync).WithSummary("Add a person with a role and a first password");
+        people.MapPut("/{name}", UpdateAsync).WithSummary("Change a person's role or disable/enable the account");
+        people.MapPost("/{name}/password", SetPasswordAsync).WithSummary("Set a new password (and unlock)");
+        var keys = app.MapGroup("/api/keys").WithTags("Access").RequireAuthorization(Permissions.Administer);
+        keys.MapGet("/", KeysAsync).WithSummary("Tool keys and display tokens (never the keys themselves)");
+        keys.MapPost("/", CreateKeyAsync).WithSummary("Create a tool key (scope ingest) or display token (scope display); shown once");
+        keys.MapPost("/{id:int}/revoke", RevokeAsync).WithSummary("Revoke a key or display token");
+        return app;
+    }
+
+    internal static PersonResponse Describe(FinWatchUser u) => new(u.UserName!, u.Role, DateTimeOffset.FromUnixTimeMilliseconds(u.CreatedAtMs),
+        u.DisabledAtMs is { } d ? DateTimeOffset.FromUnixTimeMilliseconds(d) : null, u.LockoutEnd > DateTimeOffset.UtcNow ? u.LockoutEnd : null);
+
+    internal static KeyResponse Describe(ApiKey k) => new(k.Id, k.Name, k.Scope, k.Prefix, k.CreatedBy, DateTimeOffset.FromUnixTimeMilliseconds(k.CreatedAtMs),
+        k.RevokedBy, k.RevokedAtMs is { } r ? DateTimeOffset.FromUnixTimeMilliseconds(r) : null, k.LastUsedAtMs is { } l ? DateTimeOffset.FromUnixTimeMilliseconds(l) : null);
+
+    private static async Task<Ok<List<PersonResponse>>> ListAsync(UserManager<FinWatchUser> users) =>
+        TypedResults.Ok((await users.Users.OrderBy(u => u.UserName).ToListAsync()).Select(Describe).ToList());
+
+    /// <summary>Creates a person (also used by the <c>admin add</c> command); the errors are keyed by field.</summary>
+    public static async Task<(FinWatchUser? User, Dictionary<string, string[]> Errors)> AddPersonAsync(
+        UserManager<FinWatchUser> users, FinWatchDbContext db, string? name, string? role, string? password, string by, TimeProvider clock)
+    {
+        var errors = new Dictionary<string, string[]>();
+        if (string.IsNullOrWhiteSpace(name) || name.Trim().Length > 100)
+        {
+            errors["name"] = ["name is 1 to 100 letters, digits, spaces, '.', '-' or '_'"];
+        }
+        else if (await users.FindByNameAsync(name.Trim()) is not null)
+        {
+            errors["name"] = [$"'{name.Trim()}' exists already"];
+        }
+
+        if (role is null || !Roles.IsPersonRole(role))
+        {
+            errors["role"] = [$"role is one of {string.Join(", ", Roles.Ladder)}"];
+        }
+
+        if (errors.Count > 0)
+        {
+            return (null, errors);
+        }
+
+        var user = new FinWatchUser { UserName = name!.Trim(), Role = role!, CreatedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds() };
+        var created = await users.CreateAsync(user, password ?? "");
+        if (!created.Succeeded)
+        {
+            return (null, new Dictionary<string, string[]> { [created.Errors.Any(e => e.Code.StartsWith("Password", StringComparison.Ordinal)) ? "password" : "name"] = [.. created.Errors.Select(e => e.Description)] });
+        }
+
+        AuditLog.Add(db, by, "person", user.UserName, "created", null, Describe(user), clock);
+        await db.SaveChangesAsync();
+        return (user, errors);
+    }
+
+    private static async Task<Results<Created<PersonResponse>, ValidationProblem>> CreateAsync(
+        PersonRequest r, UserManager<FinWatchUser> users, FinWatchDbContext db, TimeProvider clock, HttpContext http)
+    {
+        var (user, errors) = await AddPersonAsync(users, db, r.Name, r.Role, r.Password, http.User.Who(), clock);
+        return user is null ? TypedResults.ValidationProblem(errors) : TypedResults.Created($"/api/people/{Uri.EscapeDataString(user.UserName!)}", Describe(user));
+    }
+
+    private static async Task<Results<Ok<PersonResponse>, ValidationProblem, ProblemHttpResult>> UpdateAsync(
+        string name, PersonRequest r, UserManager<FinWatchUser> users, FinWatchDbContext db, TimeProvider clock, HttpContext http)
+    {
+        var user = await users.FindByNameAsync(name);
+        if (user is null)
+        {
+            return NotFound(name);
+        }
+
+        if (r.Role is not null && !Roles.IsPersonRole(r.Role))
+        {
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["role"] = [$"role is one of {string.Join(", ", Roles.Ladder)}"] });
+        }
+
+        if (user.UserName == http.User.Who() && (r.Disabled == true || (r.Role is not null && r.Role != Roles.Administrator)))
+        {
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["name"] = ["you cannot disable yourself or take away your own administration"] });
+        }
+
+        var before = Describe(user);
+        user.Role = r.Role ?? user.Role;
+        if (r.Disabled is { } disabled)
+        {
+            user.DisabledAtMs = disabled ? user.DisabledAtMs ?? clock.GetUtcNow().ToUnixTimeMilliseconds() : null;
+        }
+
+        await users.UpdateAsync(user);
+        await users.UpdateSecurityStampAsync(user); // signed-in sessions pick up the change within a minute
+        AuditLog.Add(db, http.User.Who(), "person", user.UserName!, "changed", before, Describe(user), clock);
+        await db.SaveChangesAsync();
+        return TypedResults.Ok(Describe(user));
+    }
+
+    private static async Task<Results<Ok<PersonResponse>, ValidationProblem, ProblemHttpResult>> SetPasswordAsync(
+        string name, PasswordRequest r, UserManager<FinWatchUser> users, FinWatchDbContext db, TimeProvider clock, HttpContext http)
+    {
+        var user = await users.FindByNameAsync(name);
+        if (user is null)
+        {
+            return NotFound(name);
+        }
+
+        var token = await users.GeneratePasswordResetTokenAsync(user);
+        var reset = await users.ResetPasswordAsync(user, token, r.Password ?? "");
+        if (!reset.Succeeded)
+        {
+            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["password"] = [.. reset.Errors.Select(e => e.Description)] });
+        }
+
+        await users.SetLockoutEndDateAsync(user, null);
+        await users.ResetAccessFailedCountAsync(user);
+        AuditLog.Add(db, http.User.Who(), "person", user.UserName!, "password-set", null, null, clock); // never the password
+        await db.SaveChangesAsync();
+        return TypedResults.Ok(Describe(user));
+    }
+
+    private static async Task<Ok<List<KeyResponse>>> KeysAsync(FinWatchDbContext db) =>
+        TypedResults.Ok((await db.ApiKeys.AsNoTracking().OrderBy(k => k.Id).ToListAsync()).Select(Describe).ToList());
+
+    /// <summary>Creates a key (also used by the <c>keys add</c> command).</summary>
+    public static async Task<(CreatedKeyResponse? Created, Dictionary<string, string[]> Errors)> AddKeyAsync(
+        FinWatchDbContext db, string? name, string? scope, string by, TimeProvider clock)
+    {
+        var errors = new Dictionary<string, string[]>();
+        if (string.IsNullOrWhiteSpace(name) || name.Length > 100)
+        {
+            errors["name"] = ["name says which tool, script or screen holds the key (1 to 100 characters)"];
+        }
+
+        if (scope is null || !ApiKeys.Scopes.Contains(scope))
+        {
+            errors["scope"] = [$"scope is {string.Join(" or ", ApiKeys.Scopes)}"];
+        }
+
+        if (errors.Count > 0)
+        {
+            return (null, errors);
+        }
+
+        var (row, key) = ApiKeys.Create(name!.Trim(), scope!, by, clock.GetUtcNow().ToUnixTimeMilliseconds());
+        db.ApiKeys.Add(row);
+        await db.SaveChangesAsync();
+        AuditLog.Add(db, by, "key", $"{row.Id} {row.Name}", "created", null, Describe(row), clock);
+        await db.SaveChangesAsync();
+        var use = scope == ApiKeys.IngestScope
+            ? $"send it as the header {KeyAuthenticationHandler.Header} with POST /api/measurements or /api/measurements/csv"
+            : $"open /display/{key} on the wall screen once; it stays signed in as a display until the token is revoked";
+        return (new CreatedKeyResponse(key, Describe(row), use), errors);
+    }
+
+    private static async Task<Results<Created<CreatedKeyResponse>, ValidationProblem>> CreateKeyAsync(KeyRequest r, FinWatchDbContext db, TimeProvider clock, HttpContext http)
+    {
+        var (created, errors) = await AddKeyAsync(db, r.Name, r.Scope, http.User.Who(), clock);
+        return created is null ? TypedResults.ValidationProblem(errors) : TypedResults.Created($"/api/keys/{created.Details.Id}", created);
+    }
+
+    private static async Task<Results<Ok<KeyResponse>, ProblemHttpResult>> RevokeAsync(int id, FinWatchDbContext db, TimeProvider clock, HttpContext http)
+    {
+        var key = await db.ApiKeys.SingleOrDefaultAsync(k => k.Id == id);
+        if (key is null)
+        {
+            return NotFound($"key {id}");
+        }
+
+        var before = Describe(key);
+        if (key.RevokedAtMs is null)
+        {
+            key.RevokedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds();
+            key.RevokedBy = http.User.Who();
+            AuditLog.Add(db, http.User.Who(), "key", $"{key.Id} {key.Name}", "revoked", before, Describe(key), clock);
+            await db.SaveChangesAsync();
+        }
+
+        return TypedResults.Ok(Describe(key));
+    }
+
+    private static ProblemHttpResult NotFound(string what) => TypedResults.Problem(new ProblemDetails
+    {
+        Type = "/problems/not-found", Status = StatusCodes.Status404NotFound, Title = "Not found.", Detail = $"There is no person or key '{what}'.",
+    });
+}
