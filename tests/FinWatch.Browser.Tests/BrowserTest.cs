@@ -1,8 +1,9 @@
 using Microsoft.AspNetCore.Hosting.Server;
 using Microsoft.AspNetCore.Hosting.Server.Features;
 using Microsoft.Extensions.DependencyInjection;
-using Microsoft.Playwright;
+using System.Net.Http.Json;
 using FinWatch.Testing;
+using Microsoft.Playwright;
 
 namespace FinWatch.Browser.Tests;
 
@@ -26,13 +27,23 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
     {
     }
 
+    /// <summary>The person the browser signs in as (an invented engineer), unless the test runs the demo.</summary>
+    protected const string Person = "floor engineer 7"; // invented
+    protected const string PersonPassword = "an invented long password";
+
+    /// <summary>Whether the browser signs in through the sign-in page first (off for the demo, which signs in by itself).</summary>
+    protected virtual bool SignIn => true;
+
     public virtual async Task InitializeAsync()
     {
+        // The browser uses the product's real sign-in (cookie, antiforgery); the test's own HTTP client is an administrator.
+        Factory.DefaultIdentity = "none";
         Configure(Factory);
         Factory.UseKestrel(0);
         Factory.StartServer();
         BaseUrl = Factory.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()!.Addresses.First().Replace("[::]", "127.0.0.1", StringComparison.Ordinal);
         Client = new HttpClient { BaseAddress = new Uri(BaseUrl) };
+        Client.DefaultRequestHeaders.Add(TestAuthHandler.Header, "administrator");
         context = await browser.Browser.NewContextAsync(new BrowserNewContextOptions { ViewportSize = new ViewportSize { Width = 1400, Height = 1000 }, Locale = "en-GB", TimezoneId = "UTC" });
         Page = await context.NewPageAsync();
         Page.SetDefaultTimeout(15_000);
@@ -45,6 +56,7 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
             }
         };
         Page.PageError += (_, e) => problems.Add($"script error: {e}");
+        Page.Dialog += (_, d) => problems.Add($"a dialog opened: {d.Message}"); // an injected alert() would land here
         Page.RequestFailed += (_, r) => problems.Add($"request failed: {r.Url} {r.Failure}");
         Page.Response += (_, r) =>
         {
@@ -65,6 +77,24 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
                 }, TaskScheduler.Default);
             }
         };
+
+        if (SignIn)
+        {
+            await SignInAsync();
+        }
+    }
+
+    /// <summary>Adds the person and signs in through the sign-in page, as someone on the floor would.</summary>
+    protected async Task SignInAsync()
+    {
+        var added = await Client.PostAsJsonAsync("/api/people", new { name = Person, role = "engineer", password = PersonPassword });
+        Assert.True(added.IsSuccessStatusCode, await added.Content.ReadAsStringAsync());
+        await OpenAsync("signin.html?next=index.html");
+        await Page.Locator("#name").FillAsync(Person);
+        await Page.Locator("#password").FillAsync(PersonPassword);
+        await Page.Locator("#password").PressAsync("Enter");
+        await Page.WaitForURLAsync("**/index.html");
+        await Assertions.Expect(Page.Locator(".strip .who")).ToContainTextAsync(Person);
     }
 
     public async Task DisposeAsync()

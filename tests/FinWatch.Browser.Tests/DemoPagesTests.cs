@@ -17,6 +17,8 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
 
     private string shots = "";
 
+    protected override bool SignIn => false; // the demo signs everyone in as its invented engineer
+
     protected override void Configure(FinWatchAppFactory factory)
     {
         factory.With("FinWatch:Demo:Enabled", "true").With("FinWatch:Demo:Days", Days.ToString(CultureInfo.InvariantCulture));
@@ -87,6 +89,11 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
         await OpenAsync("entry.html");
         await Assertions.Expect(Page.Locator("#manual-form")).ToBeVisibleAsync();
         await ShotAsync("entry");
+
+        await OpenAsync("audit.html");
+        await Assertions.Expect(Page.Locator("#audit tbody tr[data-entry]")).Not.ToHaveCountAsync(0);
+        await ShotAsync("audit");
+        await Assertions.Expect(Page.Locator(".strip .demo-mark")).ToContainTextAsync("Demo mode");
         AssertNoPageProblems();
     }
 }

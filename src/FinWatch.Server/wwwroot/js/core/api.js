@@ -1,4 +1,5 @@
-// JSON over HTTP with the server's problem details turned into readable messages.
+// JSON over HTTP with the server's problem details turned into readable messages. Writes carry the antiforgery token
+// (header X-FinWatch-Antiforgery) that the server asks of browser sessions; a stale token is fetched again once.
 
 export class ApiError extends Error {
   constructor(status, problem) {
@@ -14,15 +15,48 @@ export function describeProblem(status, problem) {
   const lines = [problem.title ?? `The server answered ${status}.`];
   if (problem.detail) lines.push(problem.detail);
   for (const [field, messages] of Object.entries(problem.errors ?? {})) {
-    for (const m of [].concat(messages)) lines.push(`${field}: ${m}`);
+    for (const m of [].concat(messages)) lines.push(`${field}: ${typeof m === 'string' ? m : JSON.stringify(m)}`);
   }
   return lines.join('\n');
+}
+
+let token = null;
+
+async function antiforgery(refresh = false) {
+  if (refresh || !token) {
+    const r = await fetch('/api/auth/antiforgery', { headers: { accept: 'application/json' } });
+    token = (await r.json()).token;
+  }
+  return token;
+}
+
+/** Forget the token (after signing in or out the server binds a new one to the new identity). */
+export function resetAntiforgery() { token = null; }
+
+/** A write with the antiforgery header; retried once with a fresh token when the server says the token is stale. */
+async function write(url, init) {
+  for (let attempt = 0; ; attempt++) {
+    const headers = { ...init.headers, 'X-FinWatch-Antiforgery': await antiforgery(attempt > 0) };
+    const response = await fetch(url, { ...init, headers });
+    if (response.status !== 400 || attempt > 0) return response;
+    const problem = await response.clone().json().catch(() => null);
+    if (problem?.type !== '/problems/antiforgery') return response;
+  }
+}
+
+function signInFirst(response) {
+  if (response.status === 401 && !location.pathname.endsWith('signin.html')) {
+    location.href = `signin.html?next=${encodeURIComponent(location.pathname.slice(1) + location.search)}`;
+  }
 }
 
 async function parse(response) {
   const type = response.headers.get('content-type') ?? '';
   const body = type.includes('json') ? await response.json() : null;
-  if (!response.ok) throw new ApiError(response.status, body);
+  if (!response.ok) {
+    signInFirst(response);
+    throw new ApiError(response.status, body);
+  }
   return body;
 }
 
@@ -31,7 +65,7 @@ export async function getJson(url) {
 }
 
 export async function sendJson(method, url, body) {
-  return parse(await fetch(url, {
+  return parse(await write(url, {
     method,
     headers: { 'content-type': 'application/json', accept: 'application/json' },
     body: body === undefined ? undefined : JSON.stringify(body),
@@ -40,7 +74,8 @@ export async function sendJson(method, url, body) {
 
 /** Sends a text body (CSV upload) and returns { status, body } without throwing, so callers can show row errors. */
 export async function sendText(url, text, contentType = 'text/csv') {
-  const response = await fetch(url, { method: 'POST', headers: { 'content-type': contentType, accept: 'application/json' }, body: text });
+  const response = await write(url, { method: 'POST', headers: { 'content-type': contentType, accept: 'application/json' }, body: text });
+  signInFirst(response);
   const type = response.headers.get('content-type') ?? '';
   return { status: response.status, ok: response.ok, body: type.includes('json') ? await response.json() : null };
 }
