@@ -1,25 +1,27 @@
+using System.Globalization;
 using System.Net;
 using System.Net.Http.Json;
 using System.Text;
 using System.Text.Json;
+using System.Text.RegularExpressions;
 using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Features.Reports;
 using FinWatch.Statistics.Shewhart;
 using FinWatch.Testing;
+using Microsoft.Extensions.Configuration;
 using static FinWatch.Testing.MonitorFixture;
+using static FinWatch.Testing.ShiftFixture;
 
 namespace FinWatch.Server.Tests.Features.Reports;
 
 /// <summary>
 /// The shift report over a hand-built history (default pattern, zone UTC; the fake clock starts 2026-12-01 08:00Z):
-/// baseline B0001 (20 wafers at 6.0 nm, limits approved at 08:00), lot P0001 on 2026-11-30 (5 wafers at 6.0 nm), lot
-/// L0001 in the late shift of 2026-12-01 (wafer means 6.02, 5.98, 6.02, 5.98 and 7.5 nm: the last fires WE1 only),
-/// acknowledged in the late shift, dispositioned and closed after midnight in the night shift, and lot N0001 after
+/// ShiftFixture's late shift (baseline B0001 and P0001 at 6.0 nm, lot L0001 with wafer means 6.02, 5.98, 6.02, 5.98 and
+/// 7.5 nm firing WE1 only, acknowledged at 16:00), dispositioned and closed after midnight in the night shift, and lot N0001 after
 /// midnight (6.0, 6.0, 7.6 nm: a new WE1 alert that belongs to the night shift of 2026-12-01).
 /// </summary>
 public class ShiftReportTests : IntegrationTest
 {
-    private static readonly DateTimeOffset Day = new(2026, 12, 1, 0, 0, 0, TimeSpan.Zero);
-
     // σ_within = s̄/c4(5): every wafer has the sites 5.9…6.1 nm + offset, s = 0.0790569 nm (MonitorFixture), c4(5) from
     // the project's constants (0.9400, Montgomery, Appendix VI).
     private static readonly double SigmaWithin = 0.0790569415 / SummaryLimits.C4(5);
@@ -29,17 +31,7 @@ public class ShiftReportTests : IntegrationTest
 
     private async Task HistoryAsync()
     {
-        (await Client.PutAsJsonAsync($"/api/products/{TestProducts.TriGate}", TestProducts.Request(TestProducts.TriGate,
-            specs: new[] { new { parameter = "top_width_nm", lower = (double?)5.5, target = (double?)null, upper = (double?)6.5 } }))).EnsureSuccessStatusCode();
-        await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
-        await ApprovedContextAsync(Client, "TRI-TOP");
-        await IngestAsync(Client, Wafers("P0001", new DateTimeOffset(2026, 11, 30, 10, 0, 0, TimeSpan.Zero), new double[5]));
-
-        Factory.Clock.SetUtcNow(Day.AddHours(15));
-        await IngestAsync(Client, Wafers("L0001", Day.AddHours(14.5), 0.02, -0.02, 0.02, -0.02, 1.5));
-        lateAlert = (await ReadJsonAsync(await Client.GetAsync("/api/alerts?state=open"))).EnumerateArray().Single().GetProperty("id").GetInt64();
-        Factory.Clock.SetUtcNow(Day.AddHours(16));
-        (await Client.PostAsJsonAsync($"/api/alerts/{lateAlert}/acknowledge", new { comment = "seen at the tool" })).EnsureSuccessStatusCode();
+        lateAlert = await ShiftFixture.LateShiftAsync(Client, Factory.Clock, "seen at the tool");
 
         Factory.Clock.SetUtcNow(Day.AddHours(25.5)); // 2026-12-02 01:30, still the night shift of 2026-12-01
         (await Client.PostAsJsonAsync($"/api/alerts/{lateAlert}/disposition", new
@@ -263,18 +255,18 @@ public class ShiftReportTests : IntegrationTest
         Assert.Equal("15", sections["lots_measured"][0]["site_count"]);
         Assert.Equal("ETA-1; LNA-1", sections["lots_measured"][0]["chambers"]);
         var raised = Assert.Single(sections["alerts_raised"]);
-        Assert.Equal(json.GetProperty("alerts_raised")[0].GetProperty("predicted_dvt_sat_mv").GetDouble(), double.Parse(raised["predicted_dvt_sat_mv"], System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(json.GetProperty("alerts_raised")[0].GetProperty("predicted_dvt_sat_mv").GetDouble(), double.Parse(raised["predicted_dvt_sat_mv"], CultureInfo.InvariantCulture));
         var actions = sections["alert_actions"];
         Assert.Equal(["dispositioned", "closed"], actions.Select(a => a["action"]));
         Assert.Equal("Hold the lot: done | Check the etch chamber log: not done (log unavailable)", actions[0]["steps"]);
         Assert.Equal("chamber \"B\" recovered, re-measured", actions[1]["comment"]); // quotes and comma survive the quoting
-        Assert.Equal(nightAlert.ToString(System.Globalization.CultureInfo.InvariantCulture), Assert.Single(sections["alerts_open_at_end"])["alert_id"]);
+        Assert.Equal(nightAlert.ToString(CultureInfo.InvariantCulture), Assert.Single(sections["alerts_open_at_end"])["alert_id"]);
         Assert.Equal("TRI-TOP", Assert.Single(sections["contexts_out_of_control"])["context"]);
         Assert.Equal(3, sections["dvt_risks"].Count);
         var cap = Assert.Single(sections["capability_changes"]);
         Assert.Equal("", cap["shift_cpk"]);
         Assert.Contains("3 points", cap["shift_reason"], StringComparison.Ordinal);
-        Assert.Equal(0.35 / (3 * SigmaWithin), double.Parse(cap["previous_7_days_cpk"], System.Globalization.CultureInfo.InvariantCulture), 1e-9);
+        Assert.Equal(0.35 / (3 * SigmaWithin), double.Parse(cap["previous_7_days_cpk"], CultureInfo.InvariantCulture), 1e-9);
         Assert.Equal(Encoding.UTF8.GetString(bytes).Split("\r\n").Length - 1, records.Count); // CRLF after every record, no bare LF inside
     }
 }
@@ -329,5 +321,18 @@ public class ShiftOptionsTests
 
         var e = Assert.ThrowsAny<Exception>(() => factory.CreateClient());
         Assert.Contains(message, e.ToString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ReadmeExample_IsAValidPatternThatReplacesTheDefault()
+    {
+        var readme = File.ReadAllText(Path.Combine(TestPaths.RepositoryRoot(), "README.md"));
+        var block = Regex.Matches(readme, "```json\n(?<body>.*?)```", RegexOptions.Singleline)
+            .Select(m => m.Groups["body"].Value).Single(b => b.Contains("\"Shifts\"", StringComparison.Ordinal));
+        var configuration = new ConfigurationBuilder().AddJsonStream(new MemoryStream(Encoding.UTF8.GetBytes(block))).Build();
+        var options = new ShiftOptions();
+        configuration.GetSection(ShiftOptions.Section).Bind(options);
+        Assert.True(new ShiftOptionsValidator().Validate(null, options).Succeeded);
+        Assert.Equal(["day", "night"], options.EffectivePattern.Select(s => s.Name));
     }
 }

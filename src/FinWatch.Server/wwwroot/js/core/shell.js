@@ -10,6 +10,7 @@ const pages = [
   ['lot.html', 'Lot'],
   ['whatif.html', 'What-if'],
   ['entry.html', 'Log data'],
+  ['shift.html', 'Shift report'],
 ];
 
 /** Adds the top strip before <main>; returns the element that shows the live-connection state. */
