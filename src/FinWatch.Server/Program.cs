@@ -9,6 +9,7 @@ using FinWatch.Server.Features.Measurements;
 using FinWatch.Server.Features.Model;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Features.Products;
+using FinWatch.Server.Features.Reports;
 using FinWatch.Server.Features.Series;
 using FinWatch.Server.Features.Spc;
 using FinWatch.Server.Infrastructure;
@@ -22,6 +23,7 @@ builder.Services.AddMeasurements();
 builder.Services.AddModel();
 builder.Services.AddCalibrations();
 builder.Services.AddMonitor();
+builder.Services.AddReports();
 
 var app = builder.Build();
 await app.MigrateFinWatchDatabaseAsync();
@@ -52,6 +54,7 @@ app.MapModel();
 app.MapPredict();
 app.MapCalibrations();
 app.MapMonitor();
+app.MapReports();
 await app.RunAsync();
 return 0;
 

@@ -75,6 +75,8 @@ public sealed class AuthorizationMatrixTests : IntegrationTest
         ["POST /api/keys/{id:int}/revoke"] = "administer",
         ["GET /api/audit/"] = "read",
         ["GET /api/audit/csv"] = "read",
+        ["GET /api/reports/shift"] = "read",
+        ["GET /api/reports/shift.csv"] = "read",
     };
 
     private static readonly Dictionary<string, string[]> Rights = new(StringComparer.Ordinal)

@@ -1,0 +1,150 @@
+using System.Text.Json;
+using FinWatch.Data;
+using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Model;
+using FinWatch.Server.Features.Monitor;
+using FinWatch.Server.Features.Parameters;
+using FinWatch.Statistics.Capability;
+using FinWatch.Statistics.Rules;
+using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.Options;
+
+namespace FinWatch.Server.Features.Reports;
+
+/// <summary>
+/// Builds the report of one shift from the stored history: measurements and points by their measured-at time, alerts
+/// and their actions by the time they were recorded, and every state "at the shift's end" from the append-only alert
+/// history, so a report of a past shift reads the same whenever it is asked for.
+/// </summary>
+public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptions<ShiftOptions> options)
+{
+    private static readonly string[] ActionKinds = [AlertStates.Acknowledged, AlertStates.Dispositioned, AlertStates.Closed];
+
+    public async Task<ShiftReportResponse> BuildAsync(ShiftWindow w, CancellationToken cancellationToken)
+    {
+        var o = options.Value;
+        var now = clock.GetUtcNow();
+        var products = await db.Products.AsNoTracking().Include(p => p.Specs).ToDictionaryAsync(p => p.Id, cancellationToken);
+        var contexts = await db.ChartContexts.AsNoTracking().OrderBy(c => c.Code).ToListAsync(cancellationToken);
+        var contextById = contexts.ToDictionary(c => c.Id);
+
+        // Alerts alive at some time in the shift or raised in it; their history decides their state at the end.
+        var alerts = await db.Alerts.AsNoTracking().Where(a => a.RaisedAtMs < w.EndMs && (a.ClosedAtMs == null || a.ClosedAtMs >= w.StartMs))
+            .OrderBy(a => a.RaisedAtMs).ThenBy(a => a.Id).ToListAsync(cancellationToken);
+        var alertIds = alerts.Select(a => a.Id).ToList();
+        var events = await db.AlertEvents.AsNoTracking().Where(e => alertIds.Contains(e.AlertId) && ActionKinds.Contains(e.Kind) && e.AtMs < w.EndMs)
+            .OrderBy(e => e.AtMs).ThenBy(e => e.Id).ToListAsync(cancellationToken);
+        var stateAtEnd = alerts.ToDictionary(a => a.Id, a => events.LastOrDefault(e => e.AlertId == a.Id)?.Kind ?? AlertStates.Open);
+        var alertById = alerts.ToDictionary(a => a.Id);
+
+        ShiftAlertRow Row(Alert a) => new(a.Id, contextById[a.ContextId].Code, contextById[a.ContextId].Title, a.Rule, RuleText(a.Rule), a.Severity,
+            stateAtEnd[a.Id], DateTimeOffset.FromUnixTimeMilliseconds(a.RaisedAtMs), a.LotId, a.WaferSlot, a.Chamber, a.PredictedDvtSatMv,
+            a.EscalatedAtMs is { } esc && esc < w.EndMs);
+
+        var raised = alerts.Where(a => a.RaisedAtMs >= w.StartMs).Select(Row).ToList();
+        var notClosed = alerts.Where(a => stateAtEnd[a.Id] != AlertStates.Closed).OrderByDescending(a => a.SeverityRank).ThenBy(a => a.RaisedAtMs).ToList();
+        var actions = events.Where(e => e.AtMs >= w.StartMs).Select(e =>
+        {
+            var a = alertById[e.AlertId];
+            return new AlertActionRow(a.Id, contextById[a.ContextId].Code, a.Rule, a.Severity, a.LotId, e.Kind, DateTimeOffset.FromUnixTimeMilliseconds(e.AtMs),
+                e.By, e.Comment, e.StepsJson is null ? null : JsonSerializer.Deserialize<List<StepTaken>>(e.StepsJson, FeedLog.Json));
+        }).ToList();
+
+        var approved = await db.LimitVersions.AsNoTracking().Where(l => l.Status == "approved" && l.ApprovedAtMs < w.EndMs)
+            .Select(l => l.ContextId).Distinct().ToListAsync(cancellationToken);
+        var outOfControl = notClosed.Where(a => approved.Contains(a.ContextId)).GroupBy(a => a.ContextId).Select(g =>
+        {
+            var c = contextById[g.Key];
+            return new OutOfControlRow(c.Code, c.Title, products[c.ProductId].Code, c.Step, c.Parameter, c.Chamber, g.Count(),
+                Severity.Name(g.Max(a => a.SeverityRank)), [.. g.Select(a => a.Rule).Distinct().Order(StringComparer.Ordinal)]);
+        }).OrderByDescending(r => Array.IndexOf(Severity.Names, r.WorstSeverity)).ThenBy(r => r.Context, StringComparer.Ordinal).ToList();
+
+        var points = new Dictionary<int, List<ChartPoint>>();
+        var previousStartMs = w.Start.AddDays(-7).ToUnixTimeMilliseconds();
+        foreach (var c in contexts)
+        {
+            // The (context, measured-at) index serves this; the previous week is needed for the capability comparison.
+            points[c.Id] = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == c.Id && p.MeasuredAtMs >= previousStartMs && p.MeasuredAtMs < w.EndMs)
+                .OrderBy(p => p.Seq).ToListAsync(cancellationToken);
+        }
+
+        return new ShiftReportResponse(w.Name, w.Date, o.TimeZone, w.Start, w.End, (w.End - w.Start).TotalHours,
+            now >= w.End ? "finished" : now >= w.Start ? "in_progress" : "not_started", now, [.. o.EffectivePattern.Select(s => s.Name)],
+            await LotsAsync(w, products, cancellationToken), raised, actions, [.. notClosed.Select(Row)], outOfControl,
+            Risks(w, contexts, points, o.TopRisks), Capability(w, contexts, products, points, o.CapabilityMinPoints), EvaluateModel.PredictionCaution);
+    }
+
+    private static string RuleText(string rule) => RunRules.TryParse(rule, out var r) && r.Count == 1 ? Severity.Describe(r[0]) : rule;
+
+    private async Task<List<LotMeasuredRow>> LotsAsync(ShiftWindow w, Dictionary<int, Product> products, CancellationToken cancellationToken)
+    {
+        // The lot summaries (indexed by last measured time) say which product and step had sites in the shift; the
+        // sites themselves are then read through the (product, step, measured-at) index, one wafer and chamber per row.
+        var steps = await db.LotSteps.AsNoTracking().Where(l => l.LastMeasuredAtMs >= w.StartMs && l.FirstMeasuredAtMs < w.EndMs)
+            .Select(l => new { l.ProductId, l.Step }).Distinct().ToListAsync(cancellationToken);
+        var rows = new List<LotMeasuredRow>();
+        foreach (var s in steps)
+        {
+            var wafers = await db.Measurements.AsNoTracking()
+                .Where(m => m.ProductId == s.ProductId && m.Step == s.Step && m.MeasuredAtMs >= w.StartMs && m.MeasuredAtMs < w.EndMs)
+                .GroupBy(m => new { m.LotId, m.WaferSlot, m.EtchChamber, m.LinerChamber })
+                .Select(g => new { g.Key.LotId, g.Key.WaferSlot, g.Key.EtchChamber, g.Key.LinerChamber, Sites = g.Count(), First = g.Min(m => m.MeasuredAtMs), Last = g.Max(m => m.MeasuredAtMs) })
+                .ToListAsync(cancellationToken);
+            rows.AddRange(wafers.GroupBy(x => x.LotId).Select(g => new LotMeasuredRow(g.Key, products[s.ProductId].Code, s.Step,
+                g.Select(x => x.WaferSlot).Distinct().Count(), g.Sum(x => x.Sites),
+                [.. g.SelectMany(x => new[] { x.EtchChamber, x.LinerChamber }).OfType<string>().Distinct().Order(StringComparer.Ordinal)],
+                DateTimeOffset.FromUnixTimeMilliseconds(g.Min(x => x.First)), DateTimeOffset.FromUnixTimeMilliseconds(g.Max(x => x.Last)))));
+        }
+
+        return [.. rows.OrderBy(r => r.FirstMeasuredAt).ThenBy(r => r.LotId, StringComparer.Ordinal).ThenBy(r => r.Step, StringComparer.Ordinal)];
+    }
+
+    private static List<DvtRiskRow> Risks(ShiftWindow w, List<ChartContext> contexts, Dictionary<int, List<ChartPoint>> points, int top)
+    {
+        // A wafer watched by several contexts is listed once, by its largest |ΔVT sat| among them, with the others named.
+        var inShift = contexts.SelectMany(c => points[c.Id].Where(p => p.MeasuredAtMs >= w.StartMs && p.PredictedDvtSatMv is not null).Select(p => (c, p)));
+        return [.. inShift.GroupBy(x => (x.p.LotId, x.p.WaferSlot)).Select(g =>
+            {
+                var (c, p) = g.OrderByDescending(x => Math.Abs(x.p.PredictedDvtSatMv!.Value)).ThenBy(x => x.c.Code, StringComparer.Ordinal).First();
+                return new DvtRiskRow(p.LotId, p.WaferSlot, p.Chamber, DateTimeOffset.FromUnixTimeMilliseconds(p.MeasuredAtMs), p.PredictedDvtSatMv!.Value,
+                    c.Code, c.ElectricalConcernMv, [.. g.Select(x => x.c.Code).Where(code => code != c.Code).Distinct().Order(StringComparer.Ordinal)]);
+            })
+            .OrderByDescending(r => Math.Abs(r.PredictedDvtSatMv)).ThenBy(r => r.LotId, StringComparer.Ordinal).ThenBy(r => r.WaferSlot).Take(top)];
+    }
+
+    private static List<CapabilityChangeRow> Capability(ShiftWindow w, List<ChartContext> contexts, Dictionary<int, Product> products,
+        Dictionary<int, List<ChartPoint>> points, int minPoints)
+    {
+        var rows = new List<CapabilityChangeRow>();
+        foreach (var c in contexts)
+        {
+            var spec = products[c.ProductId].Specs.FirstOrDefault(s => s.Parameter == c.Parameter);
+            if (spec is null || (spec.Lower is null && spec.Upper is null))
+            {
+                continue;
+            }
+
+            var limits = new SpecLimits(spec.Lower, spec.Upper, spec.Target);
+            var shift = Window(c, limits, points[c.Id].Where(p => p.MeasuredAtMs >= w.StartMs).ToList(), w.Start, w.End, minPoints);
+            var previous = Window(c, limits, points[c.Id].Where(p => p.MeasuredAtMs < w.StartMs).ToList(), w.Start.AddDays(-7), w.Start, minPoints);
+            rows.Add(new CapabilityChangeRow(c.Code, c.Parameter, FinParameters.TryGet(c.Parameter, out var p) ? p.Unit : "", spec.Lower, spec.Upper,
+                shift, previous, shift.Cpk - previous.Cpk));
+        }
+
+        return rows;
+    }
+
+    private static CapabilityWindowRow Window(ChartContext c, SpecLimits spec, List<ChartPoint> used, DateTimeOffset from, DateTimeOffset to, int minPoints)
+    {
+        if (used.Count < minPoints)
+        {
+            return new CapabilityWindowRow(from, to, used.Count, null, null, null,
+                $"{used.Count} point{(used.Count == 1 ? "" : "s")}; Cpk needs at least {minPoints} ({ShiftOptions.Section}:CapabilityMinPoints)");
+        }
+
+        var (_, sigma) = ContextEndpoints.Estimate(c, used);
+        var r = ProcessCapability.Compute([.. used.Select(p => p.Value)], sigma ?? double.NaN, spec);
+        return new CapabilityWindowRow(from, to, used.Count, r.Mean, r.SigmaWithin, r.Cpk,
+            r.Cpk is null ? r.Reasons.GetValueOrDefault(CapabilityIndexNames.Cpk) ?? r.Reasons.GetValueOrDefault("SigmaWithin") ?? "not computable" : null);
+    }
+}

@@ -1,0 +1,47 @@
+using System.Text.Json.Serialization;
+using FinWatch.Server.Features.Monitor;
+
+namespace FinWatch.Server.Features.Reports;
+
+/// <summary>The shift report: what was measured, raised, handled and left open in one shift. Times are UTC.</summary>
+public sealed record ShiftReportResponse(
+    string Shift, DateOnly Date, string TimeZone, DateTimeOffset Start, DateTimeOffset End, double LengthHours, string Status,
+    DateTimeOffset GeneratedAt, IReadOnlyList<string> Shifts,
+    IReadOnlyList<LotMeasuredRow> LotsMeasured,
+    IReadOnlyList<ShiftAlertRow> AlertsRaised,
+    IReadOnlyList<AlertActionRow> AlertActions,
+    IReadOnlyList<ShiftAlertRow> AlertsOpenAtEnd,
+    IReadOnlyList<OutOfControlRow> ContextsOutOfControl,
+    IReadOnlyList<DvtRiskRow> DvtRisks,
+    IReadOnlyList<CapabilityChangeRow> CapabilityChanges,
+    string PredictionCaution);
+
+/// <summary>A lot at a step with sites measured in the shift (counts of those sites only).</summary>
+public sealed record LotMeasuredRow(string LotId, string Product, string Step, int WaferCount, int SiteCount, IReadOnlyList<string> Chambers,
+    DateTimeOffset FirstMeasuredAt, DateTimeOffset LastMeasuredAt);
+
+/// <summary>An alert with its state at the shift's end (derived from its history).</summary>
+public sealed record ShiftAlertRow(long Id, string Context, string ContextTitle, string Rule, string RuleText, string Severity, string StateAtShiftEnd,
+    DateTimeOffset RaisedAt, string LotId, int? WaferSlot, string? Chamber, double? PredictedDvtSatMv, bool EscalatedByShiftEnd);
+
+/// <summary>An acknowledgement, disposition (with the reaction-plan steps) or close recorded during the shift.</summary>
+public sealed record AlertActionRow(long AlertId, string Context, string Rule, string Severity, string LotId, string Action, DateTimeOffset At,
+    string By, string Comment, IReadOnlyList<StepTaken>? Steps);
+
+/// <summary>A context with approved limits and at least one alert not closed at the shift's end.</summary>
+public sealed record OutOfControlRow(string Context, string Title, string Product, string Step, string Parameter, string? Chamber,
+    int AlertsNotClosed, string WorstSeverity, IReadOnlyList<string> Rules);
+
+/// <summary>A wafer (or lot, for lot subgroups) measured in the shift, by its mean predicted ΔVT sat (engineering estimate).</summary>
+public sealed record DvtRiskRow(string LotId, int? WaferSlot, string? Chamber, DateTimeOffset MeasuredAt, double PredictedDvtSatMv,
+    string Context, double ElectricalConcernMv, IReadOnlyList<string> AlsoInContexts);
+
+/// <summary>Cpk over the shift's points against the seven days before the shift, for a context whose parameter has a spec.</summary>
+public sealed record CapabilityChangeRow(string Context, string Parameter, string Unit, double? Lsl, double? Usl,
+    CapabilityWindowRow Shift, [property: JsonPropertyName("previous_7_days")] CapabilityWindowRow Previous7Days, double? CpkChange);
+
+/// <summary>
+/// Cpk = min(USL − x̄, x̄ − LSL)/(3σ_within) of the context's points in a window: x̄ the mean of the points, σ_within as
+/// the chart estimates it (s̄/c4 of the sites for xbar, MR̄/d2 for individuals). Null with a reason when not computable.
+/// </summary>
+public sealed record CapabilityWindowRow(DateTimeOffset From, DateTimeOffset To, int Points, double? Mean, double? SigmaWithin, double? Cpk, string? Reason);
