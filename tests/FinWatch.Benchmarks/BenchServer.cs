@@ -13,16 +13,26 @@ public sealed class BenchServer : IAsyncDisposable
 {
     private readonly Process process;
 
+    private const string Admin = "bench admin";
+    private const string AdminPassword = "an invented benchmark password";
+
     private BenchServer(Process process, int port)
     {
         this.process = process;
         BaseAddress = new Uri($"http://127.0.0.1:{port}");
-        Http = new HttpClient { BaseAddress = BaseAddress, Timeout = TimeSpan.FromMinutes(30) };
+        Http = new HttpClient(new AntiforgeryHandler(new HttpClientHandler { CookieContainer = Cookies }, BaseAddress))
+        {
+            BaseAddress = BaseAddress, Timeout = TimeSpan.FromMinutes(30),
+        };
     }
 
     public Uri BaseAddress { get; }
 
+    /// <summary>A client signed in as the benchmark's administrator (created at start-up from the bootstrap settings).</summary>
     public HttpClient Http { get; }
+
+    /// <summary>The signed-in session's cookies, for the SignalR clients.</summary>
+    public System.Net.CookieContainer Cookies { get; } = new();
 
     public int ProcessId => process.Id;
 
@@ -38,7 +48,8 @@ public sealed class BenchServer : IAsyncDisposable
             WorkingDirectory = work,
         };
         foreach (var a in new[] { serverDll, "--urls", $"http://127.0.0.1:{port}", "--FinWatch:Database:SqlitePath", Path.Combine(work, database),
-            "--FinWatch:Ingest:InboxEnabled", "false", "--Logging:LogLevel:Default", "Warning" }.Concat(settings))
+            "--FinWatch:Ingest:InboxEnabled", "false", "--Logging:LogLevel:Default", "Warning",
+            "--FinWatch:Auth:BootstrapAdminName", Admin, "--FinWatch:Auth:BootstrapAdminPassword", AdminPassword }.Concat(settings))
         {
             start.ArgumentList.Add(a);
         }
@@ -53,6 +64,7 @@ public sealed class BenchServer : IAsyncDisposable
         try
         {
             await server.WaitUntilUpAsync();
+            (await server.Http.PostAsJsonAsync("/api/auth/sign-in", new { name = Admin, password = AdminPassword })).EnsureSuccessStatusCode();
             return server;
         }
         catch
@@ -144,5 +156,34 @@ public sealed class BenchServer : IAsyncDisposable
         }
 
         throw new TimeoutException("the server did not start");
+    }
+}
+
+/// <summary>Adds the antiforgery header to writes, as the pages do; fetches a token again after signing in.</summary>
+internal sealed class AntiforgeryHandler(HttpMessageHandler inner, Uri baseAddress) : DelegatingHandler(inner)
+{
+    private string? token;
+
+    protected override async Task<HttpResponseMessage> SendAsync(HttpRequestMessage request, CancellationToken cancellationToken)
+    {
+        if (request.Method != HttpMethod.Get)
+        {
+            if (token is null)
+            {
+                using var get = new HttpRequestMessage(HttpMethod.Get, new Uri(baseAddress, "/api/auth/antiforgery"));
+                using var answer = await base.SendAsync(get, cancellationToken);
+                token = (await answer.Content.ReadFromJsonAsync<System.Text.Json.JsonElement>(cancellationToken)).GetProperty("token").GetString();
+            }
+
+            request.Headers.Add("X-FinWatch-Antiforgery", token);
+        }
+
+        var response = await base.SendAsync(request, cancellationToken);
+        if (request.RequestUri?.AbsolutePath == "/api/auth/sign-in")
+        {
+            token = null; // the token is bound to who is signed in
+        }
+
+        return response;
     }
 }

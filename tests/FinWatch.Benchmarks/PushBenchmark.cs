@@ -121,7 +121,7 @@ public static class PushBenchmark
                 $"({baseline.Sum(l => l.Rows.Count(ch => ch == '\n'))} site rows)");
             var rssBefore = server.RssBytes();
 
-            var (all, connectMs, connectWall) = await ConnectAsync(server.BaseAddress, clients, contexts, lotIndex);
+            var (all, connectMs, connectWall) = await ConnectAsync(server, clients, contexts, lotIndex);
             var rssConnected = server.RssBytes();
             Console.WriteLine($"Connected {all.Count} clients (WebSockets, {all.Count(c => c.Watches is null)} watching everything) in {connectWall.TotalSeconds:0.00} s, " +
                 $"{ConnectConcurrency} at a time; per client (negotiate + connect + Watch): p50 {Percentile(connectMs, 0.50):0} ms, " +
@@ -313,9 +313,9 @@ public static class PushBenchmark
     }
 
     private static async Task<(List<Client> Clients, List<double> ConnectMs, TimeSpan Wall)> ConnectAsync(
-        Uri server, int count, List<ContextSpec> contexts, IReadOnlyDictionary<string, int> lots)
+        BenchServer server, int count, List<ContextSpec> contexts, IReadOnlyDictionary<string, int> lots)
     {
-        var hub = new Uri(server, MonitorHub.Path);
+        var hub = new Uri(server.BaseAddress, MonitorHub.Path);
         var clients = new Client[count];
         var connectMs = new double[count];
         using var gate = new SemaphoreSlim(ConnectConcurrency);
@@ -329,7 +329,7 @@ public static class PushBenchmark
                 string[]? watches = i % FloorScreenEvery == 0 ? null
                     : i % 3 == 0 ? [contexts[i % contexts.Count].Code, contexts[(i + 1) % contexts.Count].Code]
                     : [contexts[i % contexts.Count].Code];
-                var connection = new HubConnectionBuilder().WithUrl(hub, HttpTransportType.WebSockets)
+                var connection = new HubConnectionBuilder().WithUrl(hub, HttpTransportType.WebSockets, o => o.Cookies = server.Cookies)
                     .AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower)
                     .Build();
                 var client = new Client(connection, watches);

@@ -46,7 +46,7 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
         Client.DefaultRequestHeaders.Add(TestAuthHandler.Header, "administrator");
         context = await browser.Browser.NewContextAsync(new BrowserNewContextOptions { ViewportSize = new ViewportSize { Width = 1400, Height = 1000 }, Locale = "en-GB", TimezoneId = "UTC" });
         Page = await context.NewPageAsync();
-        Page.SetDefaultTimeout(15_000);
+        Page.SetDefaultTimeout(30_000); // generous: the suite runs the test projects side by side on two cores
         Page.Console += (_, m) =>
         {
             // A failed response is recorded below with its address; the console's copy of it says less.

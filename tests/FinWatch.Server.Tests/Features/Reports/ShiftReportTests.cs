@@ -91,7 +91,7 @@ public class ShiftReportTests : IntegrationTest
         Assert.True(raised.GetProperty("predicted_dvt_sat_mv").GetDouble() < -10, "a 1.5 nm wider top lowers VT,sat by well over 10 mV (G.4)");
 
         var action = Assert.Single(Items(r, "alert_actions"));
-        Assert.Equal(("acknowledged", "seen at the tool", "not signed in"),
+        Assert.Equal(("acknowledged", "seen at the tool", "test administrator"),
             (action.GetProperty("action").GetString(), action.GetProperty("comment").GetString(), action.GetProperty("by").GetString()));
         Assert.Equal(Day.AddHours(16), action.GetProperty("at").GetDateTimeOffset());
 

@@ -55,7 +55,10 @@ function show(node, text) {
 }
 
 async function signOut() {
-  await sendJson('POST', '/api/auth/sign-out');
-  resetAntiforgery();
-  location.href = 'signin.html';
+  try {
+    await sendJson('POST', '/api/auth/sign-out');
+  } finally {
+    resetAntiforgery();
+    location.href = 'signin.html';
+  }
 }
