@@ -19,6 +19,7 @@ public sealed class BrowserFixture : IAsyncLifetime
         }
 
         playwright = await Playwright.CreateAsync();
+        Assertions.SetDefaultExpectTimeout(15_000); // the suite runs the test projects side by side on two cores
         Browser = await playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
         {
             ExecutablePath = ChromiumPath,
