@@ -90,6 +90,10 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
         await Assertions.Expect(Page.Locator("#manual-form")).ToBeVisibleAsync();
         await ShotAsync("entry");
 
+        await OpenAsync("shift.html?date=2026-11-29&shift=late"); // a late shift of the demo's last full day
+        await Assertions.Expect(Page.Locator("#lots-table tbody tr")).Not.ToHaveCountAsync(0);
+        await ShotAsync("shift");
+
         await OpenAsync("audit.html");
         await Assertions.Expect(Page.Locator("#audit tbody tr[data-entry]")).Not.ToHaveCountAsync(0);
         await ShotAsync("audit");

@@ -17,7 +17,8 @@ public sealed partial class HardeningTests : IntegrationTest
         Factory.With("FinWatch:Auth:SignInPerMinute", "3")
             .With("FinWatch:Auth:BootstrapAdminName", "chief")
             .With("FinWatch:Auth:BootstrapAdminPassword", "a long invented password")
-            .With("FinWatch:Auth:MaxJsonBodyBytes", "20000");
+            .With("FinWatch:Auth:MaxJsonBodyBytes", "20000")
+            .With("FinWatch:Auth:IngestPerMinute", "2");
     }
 
     [Fact]
@@ -90,6 +91,20 @@ public sealed partial class HardeningTests : IntegrationTest
         }
 
         Assert.Equal([HttpStatusCode.Unauthorized, HttpStatusCode.Unauthorized, HttpStatusCode.Unauthorized, HttpStatusCode.TooManyRequests], statuses);
+    }
+
+    [Fact]
+    public async Task Ingest_MoreThanTheLimitPerMinute_Is429_AndStoresNothing()
+    {
+        var statuses = new List<HttpStatusCode>();
+        for (var i = 0; i < 3; i++)
+        {
+            var csv = SiteRow.Csv([new SiteRow { LotId = $"R000{i}" }]);
+            statuses.Add((await Client.PostAsync("/api/measurements/csv", new StringContent(csv, Encoding.UTF8, "text/csv"))).StatusCode);
+        }
+
+        Assert.Equal([HttpStatusCode.OK, HttpStatusCode.OK, HttpStatusCode.TooManyRequests], statuses);
+        Assert.Equal(2, await Factory.QueryAsync(db => db.IngestBatches.CountAsync()));
     }
 
     [Fact]
