@@ -11,6 +11,13 @@ using FinWatch.Server.Features.Series;
 using FinWatch.Server.Features.Spc;
 using FinWatch.Server.Infrastructure;
 
+// A command of the executable (`backup <file>`, `help`) runs instead of the web server.
+if (await ServerCommands.TryRunAsync(args) is { } exitCode)
+{
+    Environment.ExitCode = exitCode;
+    return;
+}
+
 var builder = WebApplication.CreateBuilder(args);
 builder.AddFinWatchApiDefaults();
 builder.AddFinWatchData();
