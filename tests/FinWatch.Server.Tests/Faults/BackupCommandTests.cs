@@ -61,6 +61,9 @@ public sealed class BackupCommandTests : IDisposable
         var copied = FaultSupport.LotCounts(target);
         Assert.Equal(accepted, copied); // every batch accepted before, none of the one still open (a snapshot)
 
+        var early = Path.Combine(work, "finwatch-early.db");
+        File.Copy(target, early);
+
         // The target exists now: refused without --force and left as it was; replaced with it, now with the large batch.
         var (again, _, refusal) = await ServerProcess.RunCommandAsync(work, "backup", target, dbSetting);
         Assert.Equal(ServerCommands.Refused, again);
@@ -72,6 +75,18 @@ public sealed class BackupCommandTests : IDisposable
         var replaced = FaultSupport.LotCounts(target);
         Assert.Equal(accepted.Values.Sum() + largeLots.Values.Sum(), replaced.Values.Sum());
         Assert.DoesNotContain(Directory.EnumerateFiles(work), f => f.EndsWith(".partial", StringComparison.Ordinal));
+
+        // Restore as the README says: stop the server, replace the file, remove its -wal and -shm, start.
+        Assert.Equal(0, await server.StopAsync(TimeSpan.FromSeconds(60)));
+        File.Copy(early, database, overwrite: true);
+        File.Delete(database + "-wal");
+        File.Delete(database + "-shm");
+        await using var restored = await ServerProcess.StartAsync(database, "--FinWatch:Ingest:InboxEnabled", "false");
+        using var restoredHttp = restored.CreateClient();
+        using var health = await restoredHttp.GetAsync(new Uri("/health", UriKind.Relative));
+        Assert.Equal(HttpStatusCode.OK, health.StatusCode);
+        Assert.Equal(accepted, FaultSupport.LotCounts(database));
+        Assert.Equal("ok", FaultSupport.IntegrityCheck(database));
     }
 
     [Fact]

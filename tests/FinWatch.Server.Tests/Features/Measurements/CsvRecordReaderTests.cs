@@ -89,8 +89,9 @@ public class CsvRecordReaderTests
         Assert.All(records, r => Assert.Equal(2, r.Count));
     }
 
-    // Found by IngestFuzzTests: a CRLF split between two reads of a request body made the reader refill synchronously,
-    // which ASP.NET Core refuses (a 500). The stream here hands out a few bytes per read and throws on a synchronous read,
+    // Found by IngestFuzzTests (a body ending in CR answered 500): after a CR that was the last character read so far,
+    // the reader refilled synchronously, which ASP.NET Core refuses for a request body; a CRLF split between two reads
+    // of an upload took the same path. The stream here hands out a few bytes per read and throws on a synchronous read,
     // as Kestrel's request body does; RFC 4180 §2.1 gives the records.
     [Theory]
     [InlineData(1)]

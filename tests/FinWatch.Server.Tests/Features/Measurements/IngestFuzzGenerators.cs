@@ -47,6 +47,9 @@ public static class IngestFuzzGenerators
         new string('x', 70_000),
     ];
 
+    // Edges of the measured values' ranges and spellings of zero (a "-0" radius once answered 500).
+    private static readonly string[] EdgeValues = ["-0", "0", "0.0", "+0", "-0.0", "0e0", "-0e-5", "1e-300", "5e-324", "20", "50", "100", "300", "20.000000000000004"];
+
     private static readonly string[] LineEnds = ["\n", "\r\n", "\r", "\n\r", ""];
 
     private static readonly string[] HostileJsonValues =
@@ -59,8 +62,8 @@ public static class IngestFuzzGenerators
 
     // Kinds of mutation that keep a batch valid (swap data lines, quote a cell, blank lines; reorder JSON properties,
     // send a measured value as text), so that some generated batches are accepted and the accepted branch is checked.
-    private static readonly int[] HarmlessCsv = [5, 10, 11];
-    private static readonly int[] HarmlessJson = [12, 13];
+    private static readonly int[] HarmlessCsv = [5, 10, 11, 12, 12];
+    private static readonly int[] HarmlessJson = [12, 13, 14, 14];
 
     public static Arbitrary<CsvFuzz> Csv() => Gen.Frequency(
             (2, RandomBytes()), (5, MutatedCsv(AnyMutation)), (2, FlippedBytes(ValidCsv())), (3, MutatedCsv(Harmless(HarmlessCsv))))
@@ -213,6 +216,11 @@ public static class IngestFuzzGenerators
                     lines.Insert(m.A % lines.Count, []);
                     recipe.Append(CultureInfo.InvariantCulture, $", empty line at {m.A % lines.Count}");
                     break;
+                case 12 when line.Count == SiteRow.Columns.Length && m.A % lines.Count > 0:
+                    var measured = 14 + (m.B % 5);
+                    line[measured] = EdgeValues[m.C % EdgeValues.Length];
+                    recipe.Append(CultureInfo.InvariantCulture, $", cell {measured} of line {m.A % lines.Count} = {line[measured]}");
+                    break;
             }
         }
 
@@ -314,6 +322,10 @@ public static class IngestFuzzGenerators
                 case 13 when props.Count > 0 && props[p].Value.Length > 0 && props[p].Value[0] is '-' or (>= '0' and <= '9'):
                     props[p] = (props[p].Name, "\"" + props[p].Value + "\"");
                     recipe.Append(CultureInfo.InvariantCulture, $", {props[p].Name} of element {m.A % elements.Count} as text");
+                    break;
+                case 14 when props.Count > 0 && props[p].Name.EndsWith("_nm", StringComparison.Ordinal):
+                    props[p] = (props[p].Name, EdgeValues[m.C % EdgeValues.Length].TrimStart('+'));
+                    recipe.Append(CultureInfo.InvariantCulture, $", {props[p].Name} of element {m.A % elements.Count} = {props[p].Value}");
                     break;
             }
         }
