@@ -172,6 +172,25 @@ public class IngestCsvTests : IntegrationTest
         Assert.NotNull(stored.AreaNm2); // the geometry was derived with r = 0
     }
 
+    // Found by IngestFuzzTests: a form cut before the file part's closing boundary, or with a part header longer than
+    // the multipart reader's line limit, answered 500. The upload is the sender's problem: a 400 problem, nothing stored.
+    [Theory]
+    [InlineData("cut short", "the multipart form ends before the file part's closing boundary")]
+    [InlineData("huge part header", "the multipart form is broken")]
+    public async Task PostCsv_BrokenMultipartForm_IsRejectedAndStoresNothing(string broken, string reason)
+    {
+        var csv = SiteRow.Csv(SiteRow.Wafers("M0001", 1, 3, Start));
+        var body = broken == "cut short"
+            ? "--b0\r\nContent-Disposition: form-data; name=\"file\"; filename=\"lots.csv\"\r\n\r\n" + csv
+            : "--b0\r\nContent-Disposition: form-data; name=\"file\"; filename=\"lots.csv\"\r\nX-Note: " + new string('h', 20_000) + "\r\n\r\n" + csv + "\r\n--b0--\r\n";
+        using var content = new StringContent(body, Encoding.UTF8);
+        content.Headers.ContentType = MediaTypeHeaderValue.Parse("multipart/form-data; boundary=b0");
+        var response = await Client.PostAsync("/api/measurements/csv", content);
+        var errors = await AssertRejectedAsync(response);
+        Assert.Contains(reason, errors[0].GetProperty("reason").GetString(), StringComparison.Ordinal);
+        await AssertNothingStoredAsync();
+    }
+
     [Theory]
     [InlineData("\r")]
     [InlineData("\r\n")]

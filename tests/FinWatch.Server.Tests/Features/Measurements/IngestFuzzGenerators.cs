@@ -29,6 +29,12 @@ public sealed record JsonFuzz(FuzzBody Body)
     public override string ToString() => Body.ToString();
 }
 
+/// <summary>Marks a generated multipart form body with the Content-Type it is sent under.</summary>
+public sealed record MultipartFuzz(string ContentType, FuzzBody Body)
+{
+    public override string ToString() => $"Content-Type: {ContentType}; {Body}";
+}
+
 /// <summary>
 /// FsCheck generators of ingest bodies: random bytes; a valid CSV of a random invented lot, mutated (cells and lines
 /// deleted, duplicated or swapped, cells replaced by hostile values, quotes broken, line ends mixed, BOMs, bytes
@@ -72,6 +78,42 @@ public static class IngestFuzzGenerators
     public static Arbitrary<JsonFuzz> Json() => Gen.Frequency(
             (2, RandomBytes()), (5, MutatedJson(AnyMutation)), (2, FlippedBytes(ValidJson())), (3, MutatedJson(Harmless(HarmlessJson))))
         .Select(b => new JsonFuzz(b)).ToArbitrary();
+
+    // A form with the CSV as a file part, with the framing broken in one of several ways, or bytes under a form type.
+    public static Arbitrary<MultipartFuzz> Multipart() =>
+        (from csv in Gen.OneOf(ValidCsv(), MutatedCsv(Harmless(HarmlessCsv)), RandomBytes())
+         from boundary in Gen.Elements("b0undary", "\"quoted b\"", "", "a-very-long-boundary-" + new string('x', 80), "é")
+         from framing in Gen.Choose(0, 9)
+         from cut in Gen.Choose(0, 100_000)
+         select Form(csv, boundary, framing, cut)).ToArbitrary();
+
+    private static MultipartFuzz Form(FuzzBody csv, string boundary, int framing, int cut)
+    {
+        var b = boundary.Trim('"');
+        var head = $"--{b}\r\nContent-Disposition: form-data; name=\"file\"; filename=\"lots.csv\"\r\nContent-Type: text/csv\r\n\r\n";
+        var tail = $"\r\n--{b}--\r\n";
+        var (prefix, suffix, recipe) = framing switch
+        {
+            0 => (head, tail, "form"),
+            1 => (head, "", "form without closing boundary"),
+            2 => ("", tail, "form without part header"),
+            3 => ($"--{b}\r\nContent-Disposition: form-data; name=\"note\"\r\n\r\n", tail, "form with a field and no file part"),
+            4 => (head.Replace("\r\n\r\n", "\r\n", StringComparison.Ordinal), tail, "form with part headers not ended"),
+            5 => ($"--{b}\r\nContent-Disposition: form-data; name=\"file\"; filename=\"\u0000../x.csv\"\r\n\r\n", tail, "form with an odd file name"),
+            6 => ($"--{b}\r\nContent-Disposition: garbage\r\n\r\n", tail, "form with a bad disposition"),
+            7 => ($"--{b}\r\n" + new string('h', 20_000) + "\r\n\r\n", tail, "form with a huge part header"),
+            8 => (head, tail, "form cut short"),
+            _ => ("", "", "bytes sent as a form"),
+        };
+        var bytes = Encoding.UTF8.GetBytes(prefix).Concat(csv.Bytes).Concat(Encoding.UTF8.GetBytes(suffix)).ToArray();
+        if (framing == 8)
+        {
+            bytes = bytes[..(cut % (bytes.Length + 1))];
+        }
+
+        var type = boundary.Length == 0 ? "multipart/form-data" : $"multipart/form-data; boundary={boundary}";
+        return new MultipartFuzz(type, new FuzzBody($"{recipe} around {csv.Recipe}", bytes));
+    }
 
     // Mostly fresh lots; sometimes one of four, so that a later case re-sends rows an earlier one stored.
     private static Gen<string> Lot { get; } = Gen.Frequency(
