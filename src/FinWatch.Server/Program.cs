@@ -14,6 +14,12 @@ using FinWatch.Server.Features.Series;
 using FinWatch.Server.Features.Spc;
 using FinWatch.Server.Infrastructure;
 
+// A command of the executable (`backup <file>`, `help`) runs instead of the web server.
+if (await ServerCommands.TryRunAsync(args) is { } exitCode)
+{
+    return exitCode;
+}
+
 var builder = WebApplication.CreateBuilder(args);
 builder.AddFinWatchApiDefaults();
 builder.AddFinWatchData();
@@ -27,9 +33,10 @@ builder.Services.AddReports();
 
 var app = builder.Build();
 await app.MigrateFinWatchDatabaseAsync();
-if (await AccessCommands.TryRunAsync(app, args) is { } exitCode)
+// The access commands (`admin add`, `keys add`) need the app's services and the migrated database.
+if (await AccessCommands.TryRunAsync(app, args) is { } accessExit)
 {
-    return exitCode;
+    return accessExit;
 }
 
 await AccessCommands.BootstrapAdministratorAsync(app);

@@ -53,7 +53,7 @@ public sealed class CsvRecordReader : IDisposable
             var c = buffer[pos];
             if (c is '\n' or '\r')
             {
-                ConsumeLineEnd(c);
+                await ConsumeLineEndAsync(c, cancellationToken);
                 continue;
             }
 
@@ -117,7 +117,7 @@ public sealed class CsvRecordReader : IDisposable
 
                     if (next is '\n' or '\r')
                     {
-                        ConsumeLineEnd(next);
+                        await ConsumeLineEndAsync(next, cancellationToken);
                         return true;
                     }
 
@@ -149,7 +149,7 @@ public sealed class CsvRecordReader : IDisposable
 
             if (c is '\n' or '\r')
             {
-                ConsumeLineEnd(c);
+                await ConsumeLineEndAsync(c, cancellationToken);
                 return true;
             }
 
@@ -178,10 +178,12 @@ public sealed class CsvRecordReader : IDisposable
         return c;
     }
 
-    private void ConsumeLineEnd(char c)
+    // A CR may be the last character read so far (a CRLF split between two reads of a request body arriving in pieces),
+    // so the LF is looked for with an asynchronous read: ASP.NET Core refuses synchronous reads of a request body.
+    private async ValueTask ConsumeLineEndAsync(char c, CancellationToken cancellationToken)
     {
         pos++;
-        if (c == '\r' && (pos < len || FillSync()) && buffer[pos] == '\n')
+        if (c == '\r' && await PeekIsAsync('\n', cancellationToken))
         {
             pos++;
         }
@@ -191,21 +193,6 @@ public sealed class CsvRecordReader : IDisposable
 
     private async ValueTask<bool> PeekIsAsync(char expected, CancellationToken cancellationToken) =>
         await EnsureAsync(cancellationToken) && buffer[pos] == expected;
-
-    // CR at a buffer boundary is rare; a synchronous refill keeps ConsumeLineEnd simple.
-    private bool FillSync()
-    {
-        if (eof)
-        {
-            return false;
-        }
-
-        len = reader.Read(buffer, 0, buffer.Length);
-
-        pos = 0;
-        eof = len == 0;
-        return !eof;
-    }
 
     private async ValueTask<bool> EnsureAsync(CancellationToken cancellationToken)
     {

@@ -54,6 +54,11 @@ public static class CsvRowSource
         {
             throw new IngestFormatException(RowError.For(e.Row, null, null, $"{e.Message} (line {e.Line})"));
         }
+        catch (InvalidDataException e)
+        {
+            // The upload around the file is broken (MultipartFileStream): reported at the record being read.
+            throw new IngestFormatException(RowError.For(Math.Max(csv.Records, 1), null, null, e.Message));
+        }
     }
 
     private static IngestColumn[] MapHeader(List<string> header)

@@ -45,7 +45,17 @@ public static class MeasurementsEndpoints
     private static async Task<Results<Ok<IngestAccepted>, ProblemHttpResult>> IngestCsvAsync(
         HttpContext http, IngestMeasurements ingest, IOptions<IngestOptions> options, CancellationToken cancellationToken)
     {
-        var (stream, name) = await OpenCsvAsync(http, options.Value.MaxBodyBytes, cancellationToken);
+        Stream? stream;
+        string? name;
+        try
+        {
+            (stream, name) = await OpenCsvAsync(http, options.Value.MaxBodyBytes, cancellationToken);
+        }
+        catch (InvalidDataException e)
+        {
+            return TypedResults.Problem(Rejection(new IngestRejected(0, 1, [RowError.For(1, null, null, "the multipart form is broken: " + e.Message)])));
+        }
+
         if (stream is null)
         {
             return TypedResults.Problem(Rejection(new IngestRejected(0, 1,
@@ -57,6 +67,7 @@ public static class MeasurementsEndpoints
     }
 
     /// <summary>The request body, or the first file part of a multipart form, read as it arrives, with the body limit raised to <paramref name="maxBodyBytes"/>.</summary>
+    /// <exception cref="InvalidDataException">The multipart form is broken (here or, for the file part, while it is read).</exception>
     public static async Task<(Stream? Stream, string? Name)> OpenCsvAsync(HttpContext http, long maxBodyBytes, CancellationToken cancellationToken)
     {
         AllowLargeBody(http, maxBodyBytes);
@@ -74,15 +85,28 @@ public static class MeasurementsEndpoints
         }
 
         var reader = new MultipartReader(boundary, request.Body);
-        while (await reader.ReadNextSectionAsync(cancellationToken) is { } section)
+        while (await NextSectionAsync(reader, cancellationToken) is { } section)
         {
             if (ContentDispositionHeaderValue.TryParse(section.ContentDisposition, out var disposition) && disposition.IsFileDisposition())
             {
-                return (section.Body, Path.GetFileName(HeaderUtilities.RemoveQuotes(disposition.FileName).Value));
+                return (new MultipartFileStream(section.Body), Path.GetFileName(HeaderUtilities.RemoveQuotes(disposition.FileName).Value));
             }
         }
 
         return (null, null);
+    }
+
+    // A broken form (cut short, a header line over the reader's limit) is the sender's fault: InvalidDataException.
+    private static async Task<MultipartSection?> NextSectionAsync(MultipartReader reader, CancellationToken cancellationToken)
+    {
+        try
+        {
+            return await reader.ReadNextSectionAsync(cancellationToken);
+        }
+        catch (IOException e) when (e.GetType() == typeof(IOException))
+        {
+            throw new InvalidDataException(MultipartFileStream.CutShort, e);
+        }
     }
 
     private static void AllowLargeBody(HttpContext http, long maxBodyBytes)

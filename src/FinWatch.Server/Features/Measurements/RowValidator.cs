@@ -320,6 +320,8 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
             return null;
         }
 
-        return number;
+        // "-0" is zero and passes the range check, but the geometry reads the sign bit (FinCrossSection refuses a
+        // negative radius, and -0 counts as one), so a negative zero is stored and used as +0.
+        return number == 0 ? 0.0 : number;
     }
 }

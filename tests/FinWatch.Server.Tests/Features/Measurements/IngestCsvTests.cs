@@ -158,6 +158,53 @@ public class IngestCsvTests : IntegrationTest
         Assert.Equal(200, await Factory.QueryAsync(db => db.LotSteps.CountAsync()));
     }
 
+    [Fact]
+    public async Task PostCsv_NegativeZeroRadiusAndLiner_IsStoredAsZero()
+    {
+        // Found by IngestFuzzTests: "-0" is within 0 ≤ r ≤ 50 (README), but the geometry refused it as negative: a 500.
+        var csv = SiteRow.Csv([new SiteRow { LotId = "Z0001", CornerRadiusNm = "-0", LinerThicknessNm = "-0.0" }]);
+        var response = await PostCsvAsync(csv);
+        Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+        var stored = await Factory.QueryAsync(db => db.Measurements.SingleAsync());
+        Assert.Equal(0.0, stored.CornerRadiusNm);
+        Assert.False(double.IsNegative(stored.CornerRadiusNm!.Value));
+        Assert.Equal(0.0, stored.LinerThicknessNm);
+        Assert.NotNull(stored.AreaNm2); // the geometry was derived with r = 0
+    }
+
+    // Found by IngestFuzzTests: a form cut before the file part's closing boundary, or with a part header longer than
+    // the multipart reader's line limit, answered 500. The upload is the sender's problem: a 400 problem, nothing stored.
+    [Theory]
+    [InlineData("cut short", "the multipart form ends before the file part's closing boundary")]
+    [InlineData("huge part header", "the multipart form is broken")]
+    public async Task PostCsv_BrokenMultipartForm_IsRejectedAndStoresNothing(string broken, string reason)
+    {
+        var csv = SiteRow.Csv(SiteRow.Wafers("M0001", 1, 3, Start));
+        var body = broken == "cut short"
+            ? "--b0\r\nContent-Disposition: form-data; name=\"file\"; filename=\"lots.csv\"\r\n\r\n" + csv
+            : "--b0\r\nContent-Disposition: form-data; name=\"file\"; filename=\"lots.csv\"\r\nX-Note: " + new string('h', 20_000) + "\r\n\r\n" + csv + "\r\n--b0--\r\n";
+        using var content = new StringContent(body, Encoding.UTF8);
+        content.Headers.ContentType = MediaTypeHeaderValue.Parse("multipart/form-data; boundary=b0");
+        var response = await Client.PostAsync("/api/measurements/csv", content);
+        var errors = await AssertRejectedAsync(response);
+        Assert.Contains(reason, errors[0].GetProperty("reason").GetString(), StringComparison.Ordinal);
+        await AssertNothingStoredAsync();
+    }
+
+    [Theory]
+    [InlineData("\r")]
+    [InlineData("\r\n")]
+    public async Task PostCsv_BodyEndingInCarriageReturn_IsAccepted(string newline)
+    {
+        // The reader takes CR, LF and CRLF line ends (CsvRecordReader). A body whose last character was a CR answered 500:
+        // looking for an LF after it, the reader read the request body synchronously, which ASP.NET Core refuses.
+        var csv = SiteRow.Csv(SiteRow.Wafers("E0001", 2, 3, Start), newline).TrimEnd('\n');
+        var response = await PostCsvAsync(csv);
+        var body = await ReadJsonAsync(response);
+        Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+        Assert.Equal(6, body.GetProperty("inserted").GetInt32());
+    }
+
     private sealed class PushStreamContentOfCsv(IEnumerable<SiteRow> rows) : HttpContent
     {
         protected override async Task SerializeToStreamAsync(Stream stream, System.Net.TransportContext? context)
