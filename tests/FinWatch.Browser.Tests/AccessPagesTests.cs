@@ -1,5 +1,6 @@
 using System.Net.Http.Json;
 using System.Text.Json;
+using System.Text.RegularExpressions;
 using FinWatch.Testing;
 using Microsoft.Playwright;
 using static FinWatch.Testing.MonitorFixture;
@@ -44,16 +45,16 @@ public sealed class AccessPagesTests(BrowserFixture browser) : BrowserTest(brows
         ExpectedFailures.Add("/api/auth/sign-in"); // the wrong password's 401 is part of the test,
         ExpectedFailures.Add("/api/contexts");     // and so is the signed-out alerts page's first data request
         await Page.Locator("#sign-out").ClickAsync();
-        await Page.WaitForURLAsync("**/signin.html");
+        await Assertions.Expect(Page).ToHaveURLAsync(new Regex(@"/signin\.html$"));
         await OpenAsync("alerts.html");
-        await Page.WaitForURLAsync("**/signin.html?next=alerts.html");
+        await Assertions.Expect(Page).ToHaveURLAsync(new Regex(@"/signin\.html\?next=alerts\.html$")); // polls the address, not load events
         await Page.Locator("#name").FillAsync(Person);
         await Page.Locator("#password").FillAsync("wrong password here");
         await Page.Locator("#signin-button").ClickAsync();
         await Assertions.Expect(Page.Locator("#signin-result")).ToContainTextAsync("wrong");
         await Page.Locator("#password").FillAsync(PersonPassword);
         await Page.Locator("#signin-button").ClickAsync();
-        await Page.WaitForURLAsync("**/alerts.html");
+        await Assertions.Expect(Page).ToHaveURLAsync(new Regex(@"/alerts\.html$"));
         AssertNoPageProblems();
     }
 
