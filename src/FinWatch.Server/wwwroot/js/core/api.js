@@ -44,17 +44,23 @@ async function write(url, init) {
   }
 }
 
+// Not signed in (or the session ended): go to the sign-in page and come back here afterwards. Returns whether the
+// page is leaving, in which case the caller's request never settles (the page has nothing left to do with it).
 function signInFirst(response) {
   if (response.status === 401 && !location.pathname.endsWith('signin.html')) {
     location.href = `signin.html?next=${encodeURIComponent(location.pathname.slice(1) + location.search)}`;
+    return true;
   }
+  return false;
 }
+
+const leaving = () => new Promise(() => {});
 
 async function parse(response) {
   const type = response.headers.get('content-type') ?? '';
   const body = type.includes('json') ? await response.json() : null;
   if (!response.ok) {
-    signInFirst(response);
+    if (signInFirst(response)) return leaving();
     throw new ApiError(response.status, body);
   }
   return body;
@@ -75,7 +81,7 @@ export async function sendJson(method, url, body) {
 /** Sends a text body (CSV upload) and returns { status, body } without throwing, so callers can show row errors. */
 export async function sendText(url, text, contentType = 'text/csv') {
   const response = await write(url, { method: 'POST', headers: { 'content-type': contentType, accept: 'application/json' }, body: text });
-  signInFirst(response);
+  if (signInFirst(response)) return leaving();
   const type = response.headers.get('content-type') ?? '';
   return { status: response.status, ok: response.ok, body: type.includes('json') ? await response.json() : null };
 }
