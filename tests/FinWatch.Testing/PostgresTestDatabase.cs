@@ -38,7 +38,8 @@ public sealed class PostgresTestDatabase : IAsyncDisposable
         await using (var admin = new NpgsqlConnection(server))
         {
             await admin.OpenAsync();
-            await using var cmd = new NpgsqlCommand($"CREATE DATABASE {name}", admin);
+            // Byte-order collation, as docker-compose.yml creates the database: strings sort as on SQLite.
+            await using var cmd = new NpgsqlCommand($"CREATE DATABASE {name} TEMPLATE template0 ENCODING 'UTF8' LC_COLLATE 'C' LC_CTYPE 'C'", admin);
             await cmd.ExecuteNonQueryAsync();
         }
 
