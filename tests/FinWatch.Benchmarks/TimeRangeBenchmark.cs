@@ -201,7 +201,7 @@ public static class TimeRangeBenchmark
         return (products, (int)Math.Ceiling(lot / (double)LotsPerDay));
     }
 
-    private static async Task ExecAsync(string cs, string sql)
+    internal static async Task ExecAsync(string cs, string sql)
     {
         await using var connection = new NpgsqlConnection(cs);
         await connection.OpenAsync();
