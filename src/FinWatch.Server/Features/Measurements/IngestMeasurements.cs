@@ -116,12 +116,18 @@ public sealed class IngestMeasurements(
 
                 answers.Clear();
                 writer.Insert(site, raw.Cells[(int)IngestColumn.MeasuredAt] ?? "", answers);
-                answers.ForEach(Take);
+                foreach (var answer in answers)
+                {
+                    Take(answer);
+                }
             }
 
             answers.Clear();
             writer.Flush(answers);
-            answers.ForEach(Take);
+            foreach (var answer in answers)
+            {
+                Take(answer);
+            }
         }
         catch (IngestFormatException e)
         {
