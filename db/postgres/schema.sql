@@ -417,3 +417,11 @@ VALUES ('20261202154228_PostgresInitial', '10.0.15');
 
 COMMIT;
 
+START TRANSACTION;
+ALTER TABLE model_parameter_sets ALTER COLUMN code_version TYPE character varying(200);
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202162307_CodeVersionLength', '10.0.15');
+
+COMMIT;
+

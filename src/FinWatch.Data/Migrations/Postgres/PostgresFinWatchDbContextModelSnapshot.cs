@@ -1053,8 +1053,8 @@ namespace FinWatch.Data.Migrations.Postgres
 
                     b.Property<string>("CodeVersion")
                         .IsRequired()
-                        .HasMaxLength(64)
-                        .HasColumnType("character varying(64)")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
                         .HasColumnName("code_version");
 
                     b.Property<long>("CreatedAtMs")

@@ -1,5 +1,7 @@
 using System.Net;
+using FinWatch.Physics.Analytic;
 using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Tests.Features.Model;
 using FinWatch.Testing;
 using Microsoft.EntityFrameworkCore;
 using Npgsql;
@@ -100,5 +102,19 @@ public class PostgresIngestTests : PostgresIntegrationTest
         Assert.Equal(23, alert.GetProperty("last_point_seq").GetInt64());
         var points = await Factory.QueryAsync(db => db.ChartPoints.OrderBy(p => p.Seq).Select(p => p.Seq).ToListAsync());
         Assert.Equal(Enumerable.Range(1, 23).Select(i => (long)i), points);
+    }
+
+    // PostgreSQL enforces text lengths where SQLite does not: the model's code version (72 characters) once exceeded
+    // model_parameter_sets.code_version (64) and every calibration failed on PostgreSQL only.
+    [PostgresFact]
+    public async Task Calibrate_OnPostgres_StoresTheParameterSetWithTheFullCodeVersion()
+    {
+        (await PostCsvAsync(CalibrationFixture.FinsCsv())).EnsureSuccessStatusCode();
+        var response = await Client.PostAsync("/api/model/calibrations?reason=first%20e-test%20lots",
+            new StringContent(CalibrationFixture.ElectricalCsv(CalibrationFixture.TruthTheta()), System.Text.Encoding.UTF8, "text/csv"));
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        Assert.Equal(1, (await ReadJsonAsync(response)).GetProperty("version").GetInt32());
+        var stored = await Factory.QueryAsync(db => db.ModelParameterSets.SingleAsync());
+        Assert.Equal(ThresholdModel.CodeVersion, stored.CodeVersion);
     }
 }
