@@ -87,6 +87,16 @@ public class CalibrationEndpointsTests : IntegrationTest
         Assert.Equal("test administrator", list[0].GetProperty("createdBy").GetString()); // the test identity that made the request (TestAuthHandler)
     }
 
+    // The reason is stored in 2000 characters (a limit PostgreSQL enforces and SQLite does not): longer is a row-0 error.
+    [Fact]
+    public async Task Calibrate_ReasonLongerThanItsColumn_IsRejected()
+    {
+        await IngestFinsAsync();
+        var errors = await AssertRejectedAsync(await PostCalibrationAsync(ElectricalCsv(TruthTheta()), "reason=" + new string('r', 2001)));
+        Assert.True(HasError(errors, 0, "reason"), Describe(errors));
+        Assert.Equal(0, await Factory.QueryAsync(db => db.ModelParameterSets.CountAsync()));
+    }
+
     [Fact]
     public async Task Calibrate_Preview_StoresNothing()
     {

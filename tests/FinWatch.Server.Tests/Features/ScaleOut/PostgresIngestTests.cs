@@ -117,4 +117,17 @@ public class PostgresIngestTests : PostgresIntegrationTest
         var stored = await Factory.QueryAsync(db => db.ModelParameterSets.SingleAsync());
         Assert.Equal(ThresholdModel.CodeVersion, stored.CodeVersion);
     }
+
+    // The file name becomes the batch label (260 characters): a longer one is cut there rather than refused by PostgreSQL.
+    [PostgresFact]
+    public async Task PostCsv_FileNameLongerThanTheLabel_IsIngestedWithTheNameCut()
+    {
+        using var form = new MultipartFormDataContent();
+        var file = new ByteArrayContent(System.Text.Encoding.UTF8.GetBytes(SiteRow.Csv(SiteRow.Wafers("L600", 1, 2, Start))));
+        file.Headers.ContentType = new System.Net.Http.Headers.MediaTypeHeaderValue("text/csv");
+        var name = new string('n', 300) + ".csv";
+        form.Add(file, "file", name);
+        Assert.Equal(HttpStatusCode.OK, (await Client.PostAsync("/api/measurements/csv", form)).StatusCode);
+        Assert.Equal(name[..MeasurementsEndpoints.MaxFileNameLength], await Factory.QueryAsync(db => db.IngestBatches.Select(b => b.Label).SingleAsync()));
+    }
 }
