@@ -443,3 +443,9 @@ VALUES ('20261202150905_Access', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202162301_CodeVersionLength', '10.0.15');
+
+COMMIT;
+

@@ -28,7 +28,7 @@ builder.AddAccess();
 builder.Services.AddMeasurements();
 builder.Services.AddModel();
 builder.Services.AddCalibrations();
-builder.Services.AddMonitor();
+builder.Services.AddMonitor(builder.Configuration);
 builder.Services.AddReports();
 
 var app = builder.Build();

@@ -35,6 +35,23 @@ public static class IngestBenchmark
             Console.WriteLine($"Ratio FinWatch / baseline: {rate / baseline:P0} (target ≥ 30 %); peak memory target < 400 MB");
             var (plain, _) = await FinWatchAsync(work, csvPath, rows, predict: false, "finwatch-no-prediction.db");
             Console.WriteLine($"FinWatch without the electrical prediction: {plain:N0} rows/s; the prediction adds {(plain / rate) - 1:P1} to ingest time (target < 10 %)");
+            if (Environment.GetEnvironmentVariable("FINWATCH_BENCH_POSTGRES") is { Length: > 0 } server)
+            {
+                // The same upload to a server on PostgreSQL (PostgresSiteWriter: binary COPY through a staging table).
+                var name = $"finwatch_ingest_{DateTime.UtcNow:yyyyMMddHHmmss}";
+                await TimeRangeBenchmark.ExecAsync(server, $"CREATE DATABASE {name} TEMPLATE template0 ENCODING 'UTF8' LC_COLLATE 'C' LC_CTYPE 'C'");
+                try
+                {
+                    var cs = new Npgsql.NpgsqlConnectionStringBuilder(server) { Database = name }.ToString();
+                    var (pg, pgPeak) = await FinWatchAsync(work, csvPath, rows, predict: true, "unused.db",
+                        "--FinWatch:Database:Provider", "PostgreSql", "--FinWatch:Database:ConnectionString", cs);
+                    Console.WriteLine($"FinWatch on PostgreSQL (same upload, with the prediction): {pg:N0} rows/s, server peak RSS {pgPeak:0} MB");
+                }
+                finally
+                {
+                    await TimeRangeBenchmark.ExecAsync(server, $"DROP DATABASE IF EXISTS {name} WITH (FORCE)");
+                }
+            }
             return 0;
         }
         finally
@@ -139,9 +156,9 @@ public static class IngestBenchmark
         db.SaveChanges();
     }
 
-    private static async Task<(double Rate, double PeakMb)> FinWatchAsync(string work, string csvPath, int rows, bool predict, string database)
+    private static async Task<(double Rate, double PeakMb)> FinWatchAsync(string work, string csvPath, int rows, bool predict, string database, params string[] settings)
     {
-        await using var server = await BenchServer.StartAsync(work, database, "--FinWatch:Ingest:PredictShifts", predict ? "true" : "false");
+        await using var server = await BenchServer.StartAsync(work, database, ["--FinWatch:Ingest:PredictShifts", predict ? "true" : "false", .. settings]);
         await server.CreateDemoProductsAsync();
         var peak = 0L;
         using var sampling = new CancellationTokenSource();

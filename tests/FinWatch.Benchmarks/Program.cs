@@ -6,6 +6,7 @@ using FinWatch.Benchmarks;
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- model
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- solver
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- push [minutes] [clients] [lots-per-minute]
+//   FINWATCH_BENCH_POSTGRES=... dotnet run -c Release --project tests/FinWatch.Benchmarks -- timerange [rows]
 return args.FirstOrDefault() switch
 {
     "ingest" => await IngestBenchmark.RunAsync(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 1_000_000),
@@ -13,12 +14,13 @@ return args.FirstOrDefault() switch
     "model" => ModelBenchmark.Run(),
     "solver" => SolverBenchmark.Run(),
     "push" => await PushBenchmark.RunAsync(Arg(1, 3.0), (int)Arg(2, 500), Arg(3, 50)),
+    "timerange" => await TimeRangeBenchmark.RunAsync((long)Arg(1, 10_000_000)),
     _ => Usage(),
 };
 
 static int Usage()
 {
-    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | rules | model | solver | push [minutes] [clients] [lots-per-minute]");
+    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | rules | model | solver | push [minutes] [clients] [lots-per-minute] | timerange [rows]");
     return 2;
 }
 

@@ -31,6 +31,42 @@ public sealed class FinWatchDbContextTests : IDisposable
         Assert.False(db.Database.HasPendingModelChanges(), "run: dotnet ef migrations add <Name> --project src/FinWatch.Data --context SqliteFinWatchDbContext --output-dir Migrations/Sqlite");
     }
 
+    // The PostgreSQL set is checked the same way; building its model needs no server.
+    [Fact]
+    public void PostgresMigrations_AreCurrentWithTheModel()
+    {
+        using var db = NewPostgresContext();
+        Assert.False(db.Database.HasPendingModelChanges(), "run: dotnet ef migrations add <Name> --project src/FinWatch.Data --context PostgresFinWatchDbContext --output-dir Migrations/Postgres");
+    }
+
+    // Both sets describe one model: the same tables with the same columns, only the column types differ by provider.
+    [Fact]
+    public void BothProviders_MapTheSameTablesAndColumns()
+    {
+        using var sqlite = NewContext();
+        using var postgres = NewPostgresContext();
+        Assert.Equal(Columns(sqlite), Columns(postgres));
+    }
+
+    [Fact]
+    public void PostgresSchemaScript_InDbFolder_MatchesTheMigrations()
+    {
+        using var db = NewPostgresContext();
+        var script = db.GetService<IMigrator>().GenerateScript();
+        var stored = File.ReadAllText(Path.Combine(TestPaths.RepositoryRoot(), "db", "postgres", "schema.sql"));
+        Assert.True(Normalise(script) == Normalise(stored),
+            "db/postgres/schema.sql is out of date; run: dotnet ef migrations script --project src/FinWatch.Data --context PostgresFinWatchDbContext -o db/postgres/schema.sql");
+        Assert.Contains("CREATE TRIGGER audit_entries_no_update", script, StringComparison.Ordinal); // the append-only audit trail, in PL/pgSQL
+    }
+
+    private static PostgresFinWatchDbContext NewPostgresContext() =>
+        new(new DbContextOptionsBuilder<PostgresFinWatchDbContext>().UseNpgsql("Host=localhost;Database=unused").Options);
+
+    private static List<string> Columns(FinWatchDbContext db) =>
+        [.. db.Model.GetRelationalModel().Tables
+            .SelectMany(t => t.Columns.Select(c => $"{t.Name}.{c.Name}"))
+            .Order(StringComparer.Ordinal)];
+
     [Fact]
     public void Migrate_CreatesTablesAndTheNaturalKeyIndex()
     {

@@ -20,8 +20,15 @@ public abstract class IntegrationTest : IAsyncLifetime
 
     protected virtual bool CreateProducts => true;
 
+    /// <summary>Runs before the app starts (the PostgreSQL tests create their database here).</summary>
+    protected virtual Task BeforeStartAsync() => Task.CompletedTask;
+
+    /// <summary>Runs after the app has stopped.</summary>
+    protected virtual Task AfterStopAsync() => Task.CompletedTask;
+
     public async Task InitializeAsync()
     {
+        await BeforeStartAsync();
         Client = Factory.CreateClient();
         if (CreateProducts)
         {
@@ -29,11 +36,11 @@ public abstract class IntegrationTest : IAsyncLifetime
         }
     }
 
-    public Task DisposeAsync()
+    public async Task DisposeAsync()
     {
-        Client.Dispose();
+        Client?.Dispose();
         Factory.Dispose();
-        return Task.CompletedTask;
+        await AfterStopAsync();
     }
 
     protected Task<HttpResponseMessage> PostCsvAsync(string csv) => PostCsvAsync(Encoding.UTF8.GetBytes(csv));

@@ -40,6 +40,10 @@ public class FinWatchAppFactory : WebApplicationFactory<Program>
     /// <summary>Who a request without the <see cref="TestAuthHandler.Header"/> header is (see <see cref="TestAuthHandler"/>).</summary>
     public string DefaultIdentity { get; set; } = "administrator";
 
+    /// <summary>Runs on PostgreSQL instead of the temporary SQLite file (the scale-out tests).</summary>
+    public FinWatchAppFactory UsePostgres(string connectionString) =>
+        With("FinWatch:Database:Provider", "PostgreSql").With("FinWatch:Database:ConnectionString", connectionString);
+
     /// <summary>Sets a configuration value before the host starts (for example to enable the inbox or the demo).</summary>
     public FinWatchAppFactory With(string key, string? value)
     {

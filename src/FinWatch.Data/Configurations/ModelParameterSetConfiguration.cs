@@ -10,7 +10,7 @@ internal sealed class ModelParameterSetConfiguration : IEntityTypeConfiguration<
     {
         builder.ToTable("model_parameter_sets");
         builder.HasIndex(s => new { s.ProductId, s.Version }).IsUnique();
-        builder.Property(s => s.CodeVersion).HasMaxLength(64);
+        builder.Property(s => s.CodeVersion).HasMaxLength(200); // as model_stamps.code_version: ThresholdModel.CodeVersion is 72 characters
         builder.Property(s => s.CreatedBy).HasMaxLength(200);
         builder.Property(s => s.Reason).HasMaxLength(2000);
         builder.Property(s => s.SourceName).HasMaxLength(260);

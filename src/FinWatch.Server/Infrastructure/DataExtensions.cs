@@ -7,7 +7,10 @@ namespace FinWatch.Server.Infrastructure;
 
 public static class DataExtensions
 {
-    /// <summary>Registers the database: the one place the provider is chosen (shared/STYLE.md 3.8).</summary>
+    /// <summary>
+    /// Registers the database: the one place the provider is chosen (shared/STYLE.md 3.8). Both providers' contexts are
+    /// registered; <see cref="FinWatchDbContext"/> and <see cref="IDatabaseDialect"/> resolve to the configured one.
+    /// </summary>
     public static WebApplicationBuilder AddFinWatchData(this WebApplicationBuilder builder)
     {
         builder.Services.AddOptions<DatabaseOptions>().BindConfiguration(DatabaseOptions.Section).ValidateDataAnnotations().ValidateOnStart();
@@ -18,10 +21,19 @@ public static class DataExtensions
             options.UseSqlite(SqliteConnectionString(db, sp.GetRequiredService<IHostEnvironment>().ContentRootPath))
                 .AddInterceptors(sp.GetRequiredService<SqliteConnectionSetup>());
         });
-        builder.Services.AddScoped<FinWatchDbContext>(sp => sp.GetRequiredService<SqliteFinWatchDbContext>());
+        builder.Services.AddDbContext<PostgresFinWatchDbContext>((sp, options) =>
+            options.UseNpgsql(sp.GetRequiredService<IOptions<DatabaseOptions>>().Value.ConnectionString));
+        builder.Services.AddScoped<FinWatchDbContext>(sp => IsPostgreSql(sp)
+            ? sp.GetRequiredService<PostgresFinWatchDbContext>()
+            : sp.GetRequiredService<SqliteFinWatchDbContext>());
+        builder.Services.AddSingleton<SqliteDialect>();
+        builder.Services.AddSingleton<PostgresDialect>();
+        builder.Services.AddSingleton<IDatabaseDialect>(sp => IsPostgreSql(sp) ? sp.GetRequiredService<PostgresDialect>() : sp.GetRequiredService<SqliteDialect>());
         builder.Services.AddHealthChecks().AddCheck<DatabaseHealthCheck>("database");
         return builder;
     }
+
+    private static bool IsPostgreSql(IServiceProvider sp) => sp.GetRequiredService<IOptions<DatabaseOptions>>().Value.IsPostgreSql;
 
     public static string SqliteConnectionString(DatabaseOptions options, string contentRoot)
     {
@@ -35,12 +47,16 @@ public static class DataExtensions
         return new SqliteConnectionStringBuilder { DataSource = path, Pooling = true }.ToString();
     }
 
-    /// <summary>Creates or upgrades the schema and switches the file to write-ahead logging (a persistent setting).</summary>
+    /// <summary>
+    /// Creates or upgrades the schema with the provider's migration set, then the provider's settings (SQLite switches
+    /// the file to write-ahead logging, a persistent setting). Instances starting together on PostgreSQL are safe: the
+    /// migrator takes a database lock while it runs.
+    /// </summary>
     public static async Task MigrateFinWatchDatabaseAsync(this WebApplication app)
     {
         await using var scope = app.Services.CreateAsyncScope();
         var db = scope.ServiceProvider.GetRequiredService<FinWatchDbContext>();
         await db.Database.MigrateAsync();
-        await db.Database.ExecuteSqlRawAsync("PRAGMA journal_mode=WAL;");
+        await scope.ServiceProvider.GetRequiredService<IDatabaseDialect>().AfterMigrateAsync(db, CancellationToken.None);
     }
 }

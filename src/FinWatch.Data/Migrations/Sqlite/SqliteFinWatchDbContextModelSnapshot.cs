@@ -1024,7 +1024,7 @@ namespace FinWatch.Data.Migrations.Sqlite
 
                     b.Property<string>("CodeVersion")
                         .IsRequired()
-                        .HasMaxLength(64)
+                        .HasMaxLength(200)
                         .HasColumnType("TEXT")
                         .HasColumnName("code_version");
 

@@ -6,6 +6,7 @@ using FinWatch.Server.Features.Demo;
 using Microsoft.AspNetCore.Antiforgery;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Authorization;
+using Microsoft.AspNetCore.DataProtection;
 using Microsoft.AspNetCore.Http.Features;
 using Microsoft.AspNetCore.Identity;
 using Microsoft.AspNetCore.Mvc;
@@ -28,6 +29,10 @@ public static class AccessExtensions
         var services = builder.Services;
         services.AddOptions<AccessOptions>().BindConfiguration(AccessOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         var access = builder.Configuration.GetSection(AccessOptions.Section).Get<AccessOptions>() ?? new AccessOptions();
+        if (access.DataProtectionKeysPath is { Length: > 0 } keys)
+        {
+            services.AddDataProtection().SetApplicationName("FinWatch").PersistKeysToFileSystem(Directory.CreateDirectory(keys));
+        }
 
         services.AddIdentityCore<FinWatchUser>(o =>
             {

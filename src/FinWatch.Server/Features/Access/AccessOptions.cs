@@ -33,4 +33,10 @@ public sealed class AccessOptions
 
     [Range(1, 10_080)]
     public int LockoutMinutes { get; set; } = 15;
+
+    /// <summary>
+    /// A folder every instance shares (README Scale-out): the key ring that protects session cookies and antiforgery
+    /// tokens, so a person signed in through one instance stays signed in on the others. Empty: the default per-machine ring.
+    /// </summary>
+    public string? DataProtectionKeysPath { get; set; }
 }

@@ -5,6 +5,7 @@ using FinWatch.Data.Entities;
 using FinWatch.Physics;
 using FinWatch.Server.Features.Model;
 using FinWatch.Server.Features.Monitor;
+using FinWatch.Server.Infrastructure;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
 
@@ -15,7 +16,7 @@ namespace FinWatch.Server.Features.Measurements;
 /// Every source (JSON, CSV, the inbox, the demo loader) comes through here, so they share one set of rules.
 /// </summary>
 public sealed class IngestMeasurements(
-    FinWatchDbContext db, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ProductModels models, MonitorEvaluator monitor,
+    FinWatchDbContext db, IDatabaseDialect dialect, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ProductModels models, MonitorEvaluator monitor,
     ILogger<IngestMeasurements> logger)
 {
     /// <summary>Ingests the rows as one batch. Nothing is stored unless every row is valid.</summary>
@@ -28,7 +29,7 @@ public sealed class IngestMeasurements(
         var productsById = products.Values.ToDictionary(p => p.Id);
 
         using var turn = await gate.EnterAsync(cancellationToken);
-        await using var writer = await SqliteSiteWriter.BeginAsync(db, source, label, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
+        await using var writer = await dialect.BeginSiteWriterAsync(db, source, label, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
 
         var errors = new List<RowError>();
         var errorCount = 0;
@@ -42,6 +43,7 @@ public sealed class IngestMeasurements(
         var lotSteps = new HashSet<(string, string)>();
         var chambers = new HashSet<(string, string, string)>();
         var rowErrors = new List<RowError>();
+        var answers = new List<SiteAnswer>();
 
         void Report(RowError e)
         {
@@ -50,6 +52,41 @@ public sealed class IngestMeasurements(
             {
                 errors.Add(e);
             }
+        }
+
+        // The writer answers each site at once (SQLite) or a chunk at a time (PostgreSQL's COPY); either way here.
+        void Take(SiteAnswer answer)
+        {
+            var site = answer.Site;
+            switch (answer.Result)
+            {
+                case InsertResult.Inserted:
+                    inserted++;
+                    break;
+                case InsertResult.AlreadyPresent:
+                    present++;
+                    if (presentRows.Count < o.MaxReportedErrors)
+                    {
+                        presentRows.Add(site.Row);
+                    }
+
+                    break;
+                case InsertResult.DuplicateInBatch:
+                    Report(RowError.For(site.Row, null, $"{site.LotId} / {site.WaferSlot} / {site.SiteId} / {site.Step} / {answer.MeasuredAtText}",
+                        "the same lot, wafer, site, step and measured-at time appear earlier in this batch"));
+                    return;
+            }
+
+            if (errorCount > 0)
+            {
+                return; // the batch is lost anyway; keep reading only to report every error
+            }
+
+            lotSteps.Add((site.LotId, site.Step));
+            AddChamber(chambers, site, site.EtchChamber);
+            AddChamber(chambers, site, site.LinerChamber);
+            reEntrant += (site.Derived.Flags & GeometryFlags.ReEntrant) != 0 ? 1 : 0;
+            radiusTooLarge += (site.Derived.Flags & GeometryFlags.RadiusExceedsMax) != 0 ? 1 : 0;
         }
 
         // Reading, validating, deriving and predicting run on one core while the inserts run on the other (with the
@@ -77,35 +114,19 @@ public sealed class IngestMeasurements(
                     continue;
                 }
 
-                switch (writer.Insert(site))
+                answers.Clear();
+                writer.Insert(site, raw.Cells[(int)IngestColumn.MeasuredAt] ?? "", answers);
+                foreach (var answer in answers)
                 {
-                    case InsertResult.Inserted:
-                        inserted++;
-                        break;
-                    case InsertResult.AlreadyPresent:
-                        present++;
-                        if (presentRows.Count < o.MaxReportedErrors)
-                        {
-                            presentRows.Add(site.Row);
-                        }
-
-                        break;
-                    case InsertResult.DuplicateInBatch:
-                        Report(RowError.For(site.Row, null, $"{site.LotId} / {site.WaferSlot} / {site.SiteId} / {site.Step} / {raw.Cells[(int)IngestColumn.MeasuredAt]}",
-                            "the same lot, wafer, site, step and measured-at time appear earlier in this batch"));
-                        continue;
+                    Take(answer);
                 }
+            }
 
-                if (errorCount > 0)
-                {
-                    continue; // the batch is lost anyway; keep reading only to report every error
-                }
-
-                lotSteps.Add((site.LotId, site.Step));
-                AddChamber(chambers, site, site.EtchChamber);
-                AddChamber(chambers, site, site.LinerChamber);
-                reEntrant += (site.Derived.Flags & GeometryFlags.ReEntrant) != 0 ? 1 : 0;
-                radiusTooLarge += (site.Derived.Flags & GeometryFlags.RadiusExceedsMax) != 0 ? 1 : 0;
+            answers.Clear();
+            writer.Flush(answers);
+            foreach (var answer in answers)
+            {
+                Take(answer);
             }
         }
         catch (IngestFormatException e)
@@ -179,7 +200,7 @@ public sealed class IngestMeasurements(
     }
 
     // A lot belongs to one product: within the batch and against what is stored.
-    private static bool LotProductMatches(SiteRecord site, SqliteSiteWriter writer, Dictionary<string, int> lotProducts,
+    private static bool LotProductMatches(SiteRecord site, ISiteWriter writer, Dictionary<string, int> lotProducts,
         IReadOnlyDictionary<string, ProductRef> products, List<RowError> errors)
     {
         if (!lotProducts.TryGetValue(site.LotId, out var productId))

@@ -66,6 +66,9 @@ public static class MeasurementsEndpoints
         return ToResult(await ingest.RunAsync(rows, "api-csv", name, cancellationToken));
     }
 
+    /// <summary>The stored length of an uploaded file's name (ingest_batches.label, model_parameter_sets.source_name).</summary>
+    public const int MaxFileNameLength = 260;
+
     /// <summary>The request body, or the first file part of a multipart form, read as it arrives, with the body limit raised to <paramref name="maxBodyBytes"/>.</summary>
     /// <exception cref="InvalidDataException">The multipart form is broken (here or, for the file part, while it is read).</exception>
     public static async Task<(Stream? Stream, string? Name)> OpenCsvAsync(HttpContext http, long maxBodyBytes, CancellationToken cancellationToken)
@@ -89,7 +92,9 @@ public static class MeasurementsEndpoints
         {
             if (ContentDispositionHeaderValue.TryParse(section.ContentDisposition, out var disposition) && disposition.IsFileDisposition())
             {
-                return (new MultipartFileStream(section.Body), Path.GetFileName(HeaderUtilities.RemoveQuotes(disposition.FileName).Value));
+                // Kept as the batch label or calibration source (260 characters): PostgreSQL refuses longer text, SQLite would not.
+                var file = Path.GetFileName(HeaderUtilities.RemoveQuotes(disposition.FileName).Value);
+                return (new MultipartFileStream(section.Body), file is { Length: > MaxFileNameLength } ? file[..MaxFileNameLength] : file);
             }
         }
 

@@ -9,7 +9,7 @@ namespace FinWatch.Server.Features.Measurements;
 /// EF Core owns the schema; this hot path binds parameters directly because change tracking a million rows would cost
 /// more than the whole insert (the ingest benchmark in the README measures both against a bare insert).
 /// </summary>
-public sealed class SqliteSiteWriter : IAsyncDisposable
+public sealed class SqliteSiteWriter : ISiteWriter
 {
     private const string InsertSql = """
         INSERT INTO measurements (batch_id, lot_id, wafer_slot, site_id, site_x_mm, site_y_mm, product_id, step,
@@ -87,8 +87,16 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
         return new SqliteSiteWriter(connection, transaction, wasClosed ? db : null, id);
     }
 
-    /// <summary>Inserts the site unless its natural key is stored already.</summary>
-    public InsertResult Insert(SiteRecord s)
+    /// <summary>Inserts the site unless its natural key is stored already; the answer comes at once.</summary>
+    public void Insert(SiteRecord site, string measuredAtText, List<SiteAnswer> answers) =>
+        answers.Add(new SiteAnswer(site, measuredAtText, Insert(site)));
+
+    /// <summary>Nothing is buffered: every site was answered when it was inserted.</summary>
+    public void Flush(List<SiteAnswer> answers)
+    {
+    }
+
+    private InsertResult Insert(SiteRecord s)
     {
         var d = s.Derived;
         p[1].Value = s.LotId;
@@ -140,8 +148,8 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
     /// <summary>The product a lot is stored under already, if any (a lot belongs to one product).</summary>
     public int? StoredProductOfLot(string lotId)
     {
-        using var cmd = Command("SELECT product_id FROM lot_steps WHERE lot_id = $lot LIMIT 1");
-        cmd.Parameters.AddWithValue("$lot", lotId);
+        using var cmd = Command(BatchCommitSql.StoredProductOfLot);
+        cmd.Parameters.AddWithValue("@lot", lotId);
         return cmd.ExecuteScalar() is long id ? (int)id : null;
     }
 
@@ -149,17 +157,10 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
     public async Task CommitAsync(IEnumerable<(string LotId, string Step)> lotSteps, IEnumerable<(string LotId, string Step, string Chamber)> chambers,
         int rowCount, int inserted, int alreadyPresent, long completedAtMs, CancellationToken cancellationToken)
     {
-        using (var summary = Command("""
-            INSERT INTO lot_steps (lot_id, step, product_id, first_measured_at_ms, last_measured_at_ms, wafer_count, site_count)
-            SELECT lot_id, step, MIN(product_id), MIN(measured_at_ms), MAX(measured_at_ms), COUNT(DISTINCT wafer_slot), COUNT(*)
-            FROM measurements WHERE lot_id = $lot AND step = $step GROUP BY lot_id, step
-            ON CONFLICT (lot_id, step) DO UPDATE SET
-                first_measured_at_ms = excluded.first_measured_at_ms, last_measured_at_ms = excluded.last_measured_at_ms,
-                wafer_count = excluded.wafer_count, site_count = excluded.site_count
-            """))
+        using (var summary = Command(BatchCommitSql.LotStep))
         {
-            var lot = summary.Parameters.Add("$lot", SqliteType.Text);
-            var step = summary.Parameters.Add("$step", SqliteType.Text);
+            var lot = summary.Parameters.Add("@lot", SqliteType.Text);
+            var step = summary.Parameters.Add("@step", SqliteType.Text);
             foreach (var (l, s) in lotSteps)
             {
                 lot.Value = l;
@@ -168,11 +169,11 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
             }
         }
 
-        using (var chamber = Command("INSERT INTO lot_chambers (lot_id, step, chamber) VALUES ($lot, $step, $chamber) ON CONFLICT DO NOTHING"))
+        using (var chamber = Command(BatchCommitSql.LotChamber))
         {
-            var lot = chamber.Parameters.Add("$lot", SqliteType.Text);
-            var step = chamber.Parameters.Add("$step", SqliteType.Text);
-            var name = chamber.Parameters.Add("$chamber", SqliteType.Text);
+            var lot = chamber.Parameters.Add("@lot", SqliteType.Text);
+            var step = chamber.Parameters.Add("@step", SqliteType.Text);
+            var name = chamber.Parameters.Add("@chamber", SqliteType.Text);
             foreach (var (l, s, c) in chambers)
             {
                 lot.Value = l;
@@ -182,16 +183,13 @@ public sealed class SqliteSiteWriter : IAsyncDisposable
             }
         }
 
-        using (var batch = Command("""
-            UPDATE ingest_batches SET row_count = $rows, inserted = $inserted, already_present = $present, completed_at_ms = $done
-            WHERE id = $id
-            """))
+        using (var batch = Command(BatchCommitSql.Batch))
         {
-            batch.Parameters.AddWithValue("$rows", rowCount);
-            batch.Parameters.AddWithValue("$inserted", inserted);
-            batch.Parameters.AddWithValue("$present", alreadyPresent);
-            batch.Parameters.AddWithValue("$done", completedAtMs);
-            batch.Parameters.AddWithValue("$id", BatchId);
+            batch.Parameters.AddWithValue("@rows", rowCount);
+            batch.Parameters.AddWithValue("@inserted", inserted);
+            batch.Parameters.AddWithValue("@present", alreadyPresent);
+            batch.Parameters.AddWithValue("@done", completedAtMs);
+            batch.Parameters.AddWithValue("@id", BatchId);
             await batch.ExecuteNonQueryAsync(cancellationToken);
         }
 

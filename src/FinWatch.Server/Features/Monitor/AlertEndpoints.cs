@@ -6,6 +6,7 @@ using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Model;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Mvc;
+using FinWatch.Server.Infrastructure;
 using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Monitor;
@@ -18,12 +19,15 @@ public static class AlertEndpoints
         var group = app.MapGroup("/api/alerts").WithTags("Monitor");
         group.MapGet("/", ListAsync).WithSummary("Alerts, most severe and newest first; filter by state, context, severity, escalated");
         group.MapGet("/{id:long}", GetAsync).WithSummary("One alert with its reaction plan, history and points");
-        group.MapPost("/{id:long}/acknowledge", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
-            ActAsync(id, r, AlertStates.Open, AlertStates.Acknowledged, http, db, clock, feed, ct)).RequireAuthorization(Permissions.Acknowledge).WithSummary("Acknowledge an open alert");
-        group.MapPost("/{id:long}/disposition", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
-            ActAsync(id, r, AlertStates.Acknowledged, AlertStates.Dispositioned, http, db, clock, feed, ct)).RequireAuthorization(Permissions.Disposition).WithSummary("Record the reaction-plan steps taken");
-        group.MapPost("/{id:long}/close", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken ct) =>
-            ActAsync(id, r, AlertStates.Dispositioned, AlertStates.Closed, http, db, clock, feed, ct)).RequireAuthorization(Permissions.Disposition).WithSummary("Close a dispositioned alert");
+        group.MapPost("/{id:long}/acknowledge", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, IDatabaseDialect dialect, TimeProvider clock,
+            MonitorFeed feed, CancellationToken ct) =>
+            ActAsync(id, r, AlertStates.Open, AlertStates.Acknowledged, http, db, dialect, clock, feed, ct)).RequireAuthorization(Permissions.Acknowledge).WithSummary("Acknowledge an open alert");
+        group.MapPost("/{id:long}/disposition", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, IDatabaseDialect dialect, TimeProvider clock,
+            MonitorFeed feed, CancellationToken ct) =>
+            ActAsync(id, r, AlertStates.Acknowledged, AlertStates.Dispositioned, http, db, dialect, clock, feed, ct)).RequireAuthorization(Permissions.Disposition).WithSummary("Record the reaction-plan steps taken");
+        group.MapPost("/{id:long}/close", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, IDatabaseDialect dialect, TimeProvider clock,
+            MonitorFeed feed, CancellationToken ct) =>
+            ActAsync(id, r, AlertStates.Dispositioned, AlertStates.Closed, http, db, dialect, clock, feed, ct)).RequireAuthorization(Permissions.Disposition).WithSummary("Close a dispositioned alert");
     }
 
     private static async Task<Results<Ok<List<AlertMessage>>, ValidationProblem>> ListAsync(
@@ -100,9 +104,11 @@ public static class AlertEndpoints
     }
 
     private static async Task<Results<Ok<AlertDetailResponse>, ValidationProblem, ProblemHttpResult>> ActAsync(
-        long id, AlertActionRequest r, string from, string to, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, CancellationToken cancellationToken)
+        long id, AlertActionRequest r, string from, string to, HttpContext http, FinWatchDbContext db, IDatabaseDialect dialect, TimeProvider clock, MonitorFeed feed,
+        CancellationToken cancellationToken)
     {
         await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
+        await dialect.LockMonitorAsync(db, cancellationToken); // the alert's state is read under it: one action wins
         var alert = await db.Alerts.SingleOrDefaultAsync(a => a.Id == id, cancellationToken);
         if (alert is null)
         {

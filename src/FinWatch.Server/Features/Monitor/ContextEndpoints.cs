@@ -17,12 +17,21 @@ public static partial class ContextEndpoints
     /// <summary>Fewer baseline points than this gives a warning (common practice, 20–25 subgroups; no single source).</summary>
     public const int RecommendedBaselinePoints = 20;
 
-    public static IServiceCollection AddMonitor(this IServiceCollection services)
+    public static IServiceCollection AddMonitor(this IServiceCollection services, IConfiguration configuration)
     {
         services.AddOptions<MonitorOptions>().BindConfiguration(MonitorOptions.Section).ValidateDataAnnotations().ValidateOnStart();
         // The hub speaks the same JSON as the HTTP API (snake_case), so a page handles a pushed point like a fetched one.
-        services.AddSignalR().AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.SnakeCaseLower);
+        var signalR = services.AddSignalR()
+            .AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.SnakeCaseLower);
+        if (configuration[SignalRScaleOut.RedisKey] is { Length: > 0 } redis)
+        {
+            // Several instances: each sends through Redis, so a screen on any instance gets points ingested on any other.
+            var prefix = configuration[SignalRScaleOut.ChannelPrefixKey] is { Length: > 0 } p ? p : SignalRScaleOut.DefaultChannelPrefix;
+            signalR.AddStackExchangeRedis(redis, o => o.Configuration.ChannelPrefix = StackExchange.Redis.RedisChannel.Literal(prefix));
+        }
+
         services.AddSingleton<MonitorFeed>();
+        services.AddSingleton<MonitorGate>();
         services.AddScoped<MonitorEvaluator>();
         services.AddSingleton<MonitorWorker>();
         services.AddHostedService(sp => sp.GetRequiredService<MonitorWorker>());

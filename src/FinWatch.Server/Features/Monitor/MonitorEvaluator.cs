@@ -1,6 +1,7 @@
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Parameters;
+using FinWatch.Server.Infrastructure;
 using FinWatch.Statistics.Rules;
 using Microsoft.EntityFrameworkCore;
 
@@ -11,19 +12,21 @@ namespace FinWatch.Server.Features.Monitor;
 /// concerns, judges them by the limits in force when they were measured, evaluates the context's run rules
 /// incrementally (the rule state is rebuilt from the context's last judged points), raises or extends alerts, and
 /// records all of it in the live feed, in one transaction per context and batch. Contexts resume after the last batch
-/// they evaluated, so a batch missed by a crash is evaluated at the next run and none twice.
+/// they evaluated, so a batch missed by a crash is evaluated at the next run and none twice. Several instances on one
+/// PostgreSQL database coordinate through the database: each context's transaction takes the monitor lock
+/// (<see cref="IDatabaseDialect.LockMonitorAsync"/>) and re-reads the context's <c>EvaluatedThroughBatchId</c> under it,
+/// so a batch another instance has evaluated meanwhile is not evaluated again, and batches commit in number order
+/// (the ingest lock), so none is skipped.
 /// </summary>
-public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, MonitorFeed feed, ILogger<MonitorEvaluator> logger)
+public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dialect, MonitorGate gate, TimeProvider clock, MonitorFeed feed, ILogger<MonitorEvaluator> logger)
 {
     /// <summary>More than the longest rule window (N7, 15 points), so the replayed state equals the full history's.</summary>
     private const int ReplayPoints = 20;
 
-    private static readonly SemaphoreSlim Gate = new(1, 1);
-
     /// <summary>Evaluates every batch not yet evaluated by every context, in batch order; returns the new feed entries.</summary>
     public async Task<IReadOnlyList<FeedMessage>> EvaluatePendingAsync(CancellationToken cancellationToken)
     {
-        await Gate.WaitAsync(cancellationToken);
+        await gate.Semaphore.WaitAsync(cancellationToken);
         var published = new List<FeedMessage>();
         try
         {
@@ -41,7 +44,7 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
         }
         finally
         {
-            Gate.Release();
+            gate.Semaphore.Release();
         }
 
         feed.Publish(published);
@@ -58,8 +61,50 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
             return [];
         }
 
-        var column = parameter.Property;
-        var batches = await db.IngestBatches.AsNoTracking().Where(b => b.Id > context.EvaluatedThroughBatchId && b.Id <= throughBatch)
+        var candidates = await CandidatesAsync(context, parameter.Property, context.EvaluatedThroughBatchId, throughBatch, cancellationToken);
+
+        // A batch can bring thousands of points per context and every signal saves once (its alert refers to the
+        // point by id): automatic change detection would rescan everything tracked at each save, quadratic in the
+        // batch. The only entities changed after being attached are the context and alerts; they are detected by hand.
+        db.ChangeTracker.AutoDetectChangesEnabled = false;
+        try
+        {
+            await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
+            await dialect.LockMonitorAsync(db, cancellationToken);
+            var tracked = await db.ChartContexts.SingleAsync(c => c.Id == context.Id, cancellationToken);
+            if (tracked.EvaluatedThroughBatchId >= throughBatch)
+            {
+                return []; // another instance evaluated these batches while this one read them
+            }
+
+            if (tracked.EvaluatedThroughBatchId != context.EvaluatedThroughBatchId)
+            {
+                candidates = await CandidatesAsync(tracked, parameter.Property, tracked.EvaluatedThroughBatchId, throughBatch, cancellationToken);
+            }
+
+            var messages = new List<FeedMessage>();
+            if (candidates.Count > 0)
+            {
+                messages = await JudgeAsync(tracked, candidates, cancellationToken);
+            }
+
+            tracked.EvaluatedThroughBatchId = throughBatch;
+            db.Entry(tracked).DetectChanges();
+            await db.SaveChangesAsync(cancellationToken);
+            await transaction.CommitAsync(cancellationToken);
+            return messages;
+        }
+        finally
+        {
+            db.ChangeTracker.Clear();
+            db.ChangeTracker.AutoDetectChangesEnabled = true;
+        }
+    }
+
+    // The points of the batches after fromBatch through throughBatch, read one batch at a time.
+    private async Task<List<ChartPoint>> CandidatesAsync(ChartContext context, string column, long fromBatch, long throughBatch, CancellationToken cancellationToken)
+    {
+        var batches = await db.IngestBatches.AsNoTracking().Where(b => b.Id > fromBatch && b.Id <= throughBatch)
             .OrderBy(b => b.Id).Select(b => b.Id).ToListAsync(cancellationToken);
         var candidates = new List<ChartPoint>();
         foreach (var batchId in batches)
@@ -79,31 +124,7 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
             candidates.AddRange(Subgroups(context, batchId, sites));
         }
 
-        // A batch can bring thousands of points per context and every signal saves once (its alert refers to the
-        // point by id): automatic change detection would rescan everything tracked at each save, quadratic in the
-        // batch. The only entities changed after being attached are the context and alerts; they are detected by hand.
-        db.ChangeTracker.AutoDetectChangesEnabled = false;
-        try
-        {
-            await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
-            var tracked = await db.ChartContexts.SingleAsync(c => c.Id == context.Id, cancellationToken);
-            var messages = new List<FeedMessage>();
-            if (candidates.Count > 0)
-            {
-                messages = await JudgeAsync(tracked, candidates, cancellationToken);
-            }
-
-            tracked.EvaluatedThroughBatchId = throughBatch;
-            db.Entry(tracked).DetectChanges();
-            await db.SaveChangesAsync(cancellationToken);
-            await transaction.CommitAsync(cancellationToken);
-            return messages;
-        }
-        finally
-        {
-            db.ChangeTracker.Clear();
-            db.ChangeTracker.AutoDetectChangesEnabled = true;
-        }
+        return candidates;
     }
 
     // One point per wafer (its sites) or per lot (its wafer means) of each batch, in measured-at order.
@@ -238,4 +259,15 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, TimeProvider clock, M
         await db.SaveChangesAsync(cancellationToken);
         return alert;
     }
+}
+
+/// <summary>
+/// One evaluation at a time within this server process (its instances of <see cref="MonitorEvaluator"/> are per request).
+/// Between server processes on one PostgreSQL database, the database's monitor lock does the same.
+/// </summary>
+public sealed class MonitorGate : IDisposable
+{
+    public SemaphoreSlim Semaphore { get; } = new(1, 1);
+
+    public void Dispose() => Semaphore.Dispose();
 }

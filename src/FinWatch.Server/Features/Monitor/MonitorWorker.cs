@@ -1,5 +1,6 @@
 using FinWatch.Data;
 using FinWatch.Data.Entities;
+using FinWatch.Server.Infrastructure;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
 
@@ -31,14 +32,17 @@ public sealed class MonitorWorker(IServiceScopeFactory scopes, IOptions<MonitorO
         var db = scope.ServiceProvider.GetRequiredService<FinWatchDbContext>();
         var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
         var due = now - (options.Value.EscalateAfterMinutes * 60_000L);
-        var alerts = await db.Alerts.Where(a => a.State == AlertStates.Open && a.EscalatedAtMs == null && a.RaisedAtMs <= due).ToListAsync(cancellationToken);
-        if (alerts.Count == 0)
+        var dueAlerts = db.Alerts.Where(a => a.State == AlertStates.Open && a.EscalatedAtMs == null && a.RaisedAtMs <= due);
+        if (!await dueAlerts.AnyAsync(cancellationToken))
         {
             return 0;
         }
 
         var messages = new List<FeedMessage>();
         await using var transaction = await db.Database.BeginTransactionAsync(cancellationToken);
+        // Read again under the monitor lock: with several instances, each escalates only what no other has.
+        await scope.ServiceProvider.GetRequiredService<IDatabaseDialect>().LockMonitorAsync(db, cancellationToken);
+        var alerts = await dueAlerts.ToListAsync(cancellationToken);
         foreach (var a in alerts)
         {
             a.EscalatedAtMs = now;

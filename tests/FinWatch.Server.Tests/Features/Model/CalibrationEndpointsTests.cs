@@ -1,8 +1,6 @@
-using System.Globalization;
 using System.Net;
 using System.Text;
 using System.Text.Json;
-using FinWatch.Physics;
 using FinWatch.Physics.Analytic;
 using FinWatch.Testing;
 using Microsoft.EntityFrameworkCore;
@@ -16,54 +14,13 @@ namespace FinWatch.Server.Tests.Features.Model;
 /// </summary>
 public class CalibrationEndpointsTests : IntegrationTest
 {
-    // Six wafers spanning width and height, so all three parameters are identified (G.3: L_eff moves the roll-off, which
-    // depends on the width; the offset moves every wafer alike).
-    private static readonly (string Lot, int Slot, double Top, double Bottom, double Height, double Radius)[] Wafers =
-    [
-        ("C0001", 1, 6.0, 10.0, 42.0, 2.0),
-        ("C0001", 2, 5.0, 9.0, 40.0, 1.5),
-        ("C0002", 1, 7.0, 11.0, 44.0, 2.5),
-        ("C0002", 2, 4.5, 8.5, 42.0, 1.2),
-        ("C0003", 1, 8.0, 11.0, 45.0, 2.0),
-        ("C0003", 2, 6.5, 9.5, 38.0, 1.8),
-    ];
+    private async Task IngestFinsAsync() => (await PostCsvAsync(CalibrationFixture.FinsCsv())).EnsureSuccessStatusCode();
 
-    // The truth: L_eff 22 nm (default 20), barrier height 15 mV above its default, offset +110 mV.
-    private static readonly double[] Truth = [22.0, 0.015, 0.11];
+    private static CalibrationParameters Defaults() => CalibrationFixture.Defaults();
 
-    private async Task IngestFinsAsync()
-    {
-        var rows = Wafers.SelectMany(w => new[] { "S01", "S02" }.Select(site => new SiteRow
-        {
-            LotId = w.Lot, WaferSlot = w.Slot.ToString(CultureInfo.InvariantCulture), SiteId = site,
-            TopWidthNm = F(w.Top), BottomWidthNm = F(w.Bottom), FinHeightNm = F(w.Height), CornerRadiusNm = F(w.Radius),
-        })).ToList();
-        (await PostCsvAsync(SiteRow.Csv(rows))).EnsureSuccessStatusCode();
-    }
+    private static string ElectricalCsv(double[] theta, string product = TestProducts.TriGate) => CalibrationFixture.ElectricalCsv(theta, product);
 
-    private static string F(double v) => v.ToString(CultureInfo.InvariantCulture);
-
-    private static CalibrationParameters Defaults() => new()
-    {
-        Name = "test",
-        Version = "test",
-        Nominal = new FinMeasurement(new FinProfile(6, 10, 42, 2), 0.9, 0.9, GatedFaces.TriGate),
-    };
-
-    private static string ElectricalCsv(double[] theta, string product = TestProducts.TriGate)
-    {
-        var start = Defaults();
-        var sb = new StringBuilder("lot_id,wafer_slot,product,vt_lin_v,vt_sat_v,tested_at\n");
-        foreach (var w in Wafers)
-        {
-            var (lin, sat) = Calibration.Predict(start, start.Nominal with { Profile = new FinProfile(w.Top, w.Bottom, w.Height, w.Radius) }, theta);
-            sb.Append(CultureInfo.InvariantCulture, $"{w.Lot},{w.Slot},{product},{lin:0.000000},{sat:0.000000},2026-11-28T09:00:00Z\n");
-        }
-
-        return sb.ToString();
-    }
-
-    private static double[] TruthTheta() => [Truth[0], Defaults().BarrierHeightV + Truth[1], Truth[2]];
+    private static double[] TruthTheta() => CalibrationFixture.TruthTheta();
 
     private Task<HttpResponseMessage> PostCalibrationAsync(string csv, string query = "reason=first%20e-test%20lots") =>
         Client.PostAsync($"/api/model/calibrations?{query}", new StringContent(csv, Encoding.UTF8, "text/csv"));
@@ -128,6 +85,16 @@ public class CalibrationEndpointsTests : IntegrationTest
         Assert.Equal([2, 1], list.Select(c => c.GetProperty("version").GetInt32()));
         Assert.Equal("more lots", list[0].GetProperty("reason").GetString());
         Assert.Equal("test administrator", list[0].GetProperty("createdBy").GetString()); // the test identity that made the request (TestAuthHandler)
+    }
+
+    // The reason is stored in 2000 characters (a limit PostgreSQL enforces and SQLite does not): longer is a row-0 error.
+    [Fact]
+    public async Task Calibrate_ReasonLongerThanItsColumn_IsRejected()
+    {
+        await IngestFinsAsync();
+        var errors = await AssertRejectedAsync(await PostCalibrationAsync(ElectricalCsv(TruthTheta()), "reason=" + new string('r', 2001)));
+        Assert.True(HasError(errors, 0, "reason"), Describe(errors));
+        Assert.Equal(0, await Factory.QueryAsync(db => db.ModelParameterSets.CountAsync()));
     }
 
     [Fact]

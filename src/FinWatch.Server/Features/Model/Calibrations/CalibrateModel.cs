@@ -26,6 +26,11 @@ public sealed class CalibrateModel(FinWatchDbContext db, TimeProvider clock, ILo
     {
         var now = clock.GetUtcNow();
         var (rows, errors) = await ElectricalTestCsv.ReadAsync(csv, now, cancellationToken);
+        if (request.Reason is { Length: > 2000 })
+        {
+            errors.Insert(0, RowError.For(0, "reason", null, "the reason is at most 2000 characters"));
+        }
+
         if (string.IsNullOrWhiteSpace(request.Reason) && !request.Preview)
         {
             errors.Insert(0, RowError.For(0, "reason", null, "say why this calibration is made (query parameter reason); it is kept with the parameter set"));

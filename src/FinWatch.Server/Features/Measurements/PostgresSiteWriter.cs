@@ -1,0 +1,364 @@
+using FinWatch.Data;
+using FinWatch.Server.Infrastructure;
+using Microsoft.EntityFrameworkCore;
+using Npgsql;
+using NpgsqlTypes;
+
+namespace FinWatch.Server.Features.Measurements;
+
+/// <summary>
+/// Writes one ingest batch to PostgreSQL in a single transaction: rows are buffered a chunk at a time, sent by binary
+/// COPY into a temporary staging table, checked against the stored natural keys in one join, and moved into
+/// <c>measurements</c> with <c>INSERT … SELECT … ON CONFLICT DO NOTHING</c>. The same contract as
+/// <see cref="SqliteSiteWriter"/>: all or nothing, "already present" told from "twice in this batch", lot summaries.
+/// The transaction holds the ingest advisory lock (<see cref="PostgresLocks.Ingest"/>) from the batch's number to its
+/// commit, so batches commit in number order across every instance: the monitor's "evaluated through batch N" then
+/// never skips a batch that commits late.
+/// </summary>
+public sealed class PostgresSiteWriter : ISiteWriter
+{
+    /// <summary>Rows per COPY: large enough that the round trips vanish, small enough to keep memory flat.</summary>
+    public const int ChunkRows = 8192;
+
+    private const string Columns = """
+        batch_id, lot_id, wafer_slot, site_id, site_x_mm, site_y_mm, product_id, step,
+        etch_tool, etch_chamber, liner_tool, liner_chamber, metrology_tool, operator, measured_at_ms,
+        top_width_nm, bottom_width_nm, fin_height_nm, corner_radius_nm, liner_thickness_nm,
+        taper_deg, mid_width_nm, area_nm2, gated_perimeter_nm, max_corner_radius_nm, flags,
+        delta_vt_lin_mv, delta_vt_sat_mv, delta_swing_lin_mv_per_dec, delta_dibl_mv_per_v, model_stamp_id
+        """;
+
+    private const string StagingSql = """
+        CREATE TEMP TABLE ingest_staging (
+            ord integer NOT NULL, batch_id bigint NOT NULL, lot_id varchar(64) NOT NULL, wafer_slot integer NOT NULL,
+            site_id varchar(64) NOT NULL, site_x_mm double precision NOT NULL, site_y_mm double precision NOT NULL,
+            product_id integer NOT NULL, step varchar(64) NOT NULL, etch_tool varchar(64), etch_chamber varchar(64),
+            liner_tool varchar(64), liner_chamber varchar(64), metrology_tool varchar(64), operator varchar(64),
+            measured_at_ms bigint NOT NULL, top_width_nm double precision, bottom_width_nm double precision,
+            fin_height_nm double precision, corner_radius_nm double precision, liner_thickness_nm double precision,
+            taper_deg double precision, mid_width_nm double precision, area_nm2 double precision,
+            gated_perimeter_nm double precision, max_corner_radius_nm double precision, flags integer NOT NULL,
+            delta_vt_lin_mv double precision, delta_vt_sat_mv double precision, delta_swing_lin_mv_per_dec double precision,
+            delta_dibl_mv_per_v double precision, model_stamp_id integer
+        ) ON COMMIT DROP
+        """;
+
+    private readonly NpgsqlConnection connection;
+    private readonly NpgsqlTransaction transaction;
+    private readonly FinWatchDbContext? closeOnDispose;
+    private readonly List<(SiteRecord Site, string MeasuredAtText, int? StampId)> chunk = new(ChunkRows);
+    private readonly HashSet<(string, int, string, string, long)> chunkKeys = [];
+    private readonly Dictionary<int, int> stamps = [];
+    private bool completed;
+
+    private PostgresSiteWriter(NpgsqlConnection connection, NpgsqlTransaction transaction, FinWatchDbContext? closeOnDispose, long batchId)
+    {
+        this.connection = connection;
+        this.transaction = transaction;
+        this.closeOnDispose = closeOnDispose;
+        BatchId = batchId;
+    }
+
+    public long BatchId { get; }
+
+    /// <summary>Opens the transaction, waits for the ingest lock and records the batch.</summary>
+    public static async Task<PostgresSiteWriter> BeginAsync(FinWatchDbContext db, string source, string? label, long receivedAtMs, CancellationToken cancellationToken)
+    {
+        var connection = (NpgsqlConnection)db.Database.GetDbConnection();
+        var wasClosed = connection.State != System.Data.ConnectionState.Open;
+        if (wasClosed)
+        {
+            await db.Database.OpenConnectionAsync(cancellationToken);
+        }
+
+        var transaction = await connection.BeginTransactionAsync(cancellationToken);
+        try
+        {
+            await using (var lockCmd = new NpgsqlCommand("SELECT pg_advisory_xact_lock(@class, @object)", connection, transaction))
+            {
+                lockCmd.Parameters.AddWithValue("class", PostgresLocks.ClassId);
+                lockCmd.Parameters.AddWithValue("object", PostgresLocks.Ingest);
+                await lockCmd.ExecuteNonQueryAsync(cancellationToken);
+            }
+
+            await using (var staging = new NpgsqlCommand(StagingSql, connection, transaction))
+            {
+                await staging.ExecuteNonQueryAsync(cancellationToken);
+            }
+
+            await using var cmd = new NpgsqlCommand("""
+                INSERT INTO ingest_batches (source, label, received_at_ms, completed_at_ms, row_count, inserted, already_present)
+                VALUES (@source, @label, @received, 0, 0, 0, 0) RETURNING id
+                """, connection, transaction);
+            cmd.Parameters.AddWithValue("source", source);
+            cmd.Parameters.AddWithValue("label", NpgsqlDbType.Varchar, (object?)label ?? DBNull.Value);
+            cmd.Parameters.AddWithValue("received", receivedAtMs);
+            var id = (long)(await cmd.ExecuteScalarAsync(cancellationToken))!;
+            return new PostgresSiteWriter(connection, transaction, wasClosed ? db : null, id);
+        }
+        catch
+        {
+            await transaction.RollbackAsync(CancellationToken.None);
+            await transaction.DisposeAsync();
+            if (wasClosed)
+            {
+                await db.Database.CloseConnectionAsync();
+            }
+
+            throw;
+        }
+    }
+
+    public void Insert(SiteRecord site, string measuredAtText, List<SiteAnswer> answers)
+    {
+        // Twice in this chunk is known at once; twice across chunks shows in the flush's join (batch_id is this batch).
+        if (!chunkKeys.Add(Key(site)))
+        {
+            answers.Add(new SiteAnswer(site, measuredAtText, InsertResult.DuplicateInBatch));
+            return;
+        }
+
+        chunk.Add((site, measuredAtText, site.Predicted is { } m ? StampId(site.ProductId, m) : null));
+        if (chunk.Count >= ChunkRows)
+        {
+            Flush(answers);
+        }
+    }
+
+    public void Flush(List<SiteAnswer> answers)
+    {
+        if (chunk.Count == 0)
+        {
+            return;
+        }
+
+        Execute("TRUNCATE ingest_staging");
+        using (var copy = connection.BeginBinaryImport($"COPY ingest_staging (ord, {Columns}) FROM STDIN (FORMAT BINARY)"))
+        {
+            for (var i = 0; i < chunk.Count; i++)
+            {
+                WriteRow(copy, i, chunk[i].Site, chunk[i].StampId);
+            }
+
+            copy.Complete();
+        }
+
+        // Under the ingest lock no other transaction writes measurements, so the keys found here are exactly the
+        // conflicts the insert below will skip.
+        var conflicts = new Dictionary<int, long>();
+        using (var cmd = new NpgsqlCommand("""
+            SELECT s.ord, m.batch_id FROM ingest_staging s
+            JOIN measurements m ON m.lot_id = s.lot_id AND m.wafer_slot = s.wafer_slot AND m.site_id = s.site_id
+                AND m.step = s.step AND m.measured_at_ms = s.measured_at_ms
+            """, connection, transaction))
+        using (var reader = cmd.ExecuteReader())
+        {
+            while (reader.Read())
+            {
+                conflicts[reader.GetInt32(0)] = reader.GetInt64(1);
+            }
+        }
+
+        var inserted = Execute($"""
+            INSERT INTO measurements ({Columns}) SELECT {Columns} FROM ingest_staging ORDER BY ord
+            ON CONFLICT (lot_id, wafer_slot, site_id, step, measured_at_ms) DO NOTHING
+            """);
+        if (inserted + conflicts.Count != chunk.Count)
+        {
+            throw new InvalidOperationException($"ingest: {chunk.Count} rows staged, {inserted} inserted and {conflicts.Count} conflicts; another writer ignored the ingest lock");
+        }
+
+        for (var i = 0; i < chunk.Count; i++)
+        {
+            var (site, text, _) = chunk[i];
+            var result = !conflicts.TryGetValue(i, out var batch) ? InsertResult.Inserted
+                : batch == BatchId ? InsertResult.DuplicateInBatch : InsertResult.AlreadyPresent;
+            answers.Add(new SiteAnswer(site, text, result));
+        }
+
+        chunk.Clear();
+        chunkKeys.Clear();
+    }
+
+    public int? StoredProductOfLot(string lotId)
+    {
+        using var cmd = new NpgsqlCommand(BatchCommitSql.StoredProductOfLot, connection, transaction);
+        cmd.Parameters.AddWithValue("lot", lotId);
+        return cmd.ExecuteScalar() is int id ? id : null;
+    }
+
+    public async Task CommitAsync(IEnumerable<(string LotId, string Step)> lotSteps, IEnumerable<(string LotId, string Step, string Chamber)> chambers,
+        int rowCount, int inserted, int alreadyPresent, long completedAtMs, CancellationToken cancellationToken)
+    {
+        if (chunk.Count > 0)
+        {
+            throw new InvalidOperationException("flush the writer before committing");
+        }
+
+        await using (var summary = new NpgsqlCommand(BatchCommitSql.LotStep, connection, transaction))
+        {
+            var lot = summary.Parameters.Add("lot", NpgsqlDbType.Varchar);
+            var step = summary.Parameters.Add("step", NpgsqlDbType.Varchar);
+            foreach (var (l, s) in lotSteps)
+            {
+                lot.Value = l;
+                step.Value = s;
+                await summary.ExecuteNonQueryAsync(cancellationToken);
+            }
+        }
+
+        await using (var chamber = new NpgsqlCommand(BatchCommitSql.LotChamber, connection, transaction))
+        {
+            var lot = chamber.Parameters.Add("lot", NpgsqlDbType.Varchar);
+            var step = chamber.Parameters.Add("step", NpgsqlDbType.Varchar);
+            var name = chamber.Parameters.Add("chamber", NpgsqlDbType.Varchar);
+            foreach (var (l, s, c) in chambers)
+            {
+                lot.Value = l;
+                step.Value = s;
+                name.Value = c;
+                await chamber.ExecuteNonQueryAsync(cancellationToken);
+            }
+        }
+
+        await using (var batch = new NpgsqlCommand(BatchCommitSql.Batch, connection, transaction))
+        {
+            batch.Parameters.AddWithValue("rows", rowCount);
+            batch.Parameters.AddWithValue("inserted", inserted);
+            batch.Parameters.AddWithValue("present", alreadyPresent);
+            batch.Parameters.AddWithValue("done", completedAtMs);
+            batch.Parameters.AddWithValue("id", BatchId);
+            await batch.ExecuteNonQueryAsync(cancellationToken);
+        }
+
+        await transaction.CommitAsync(cancellationToken);
+        completed = true;
+    }
+
+    private void WriteRow(NpgsqlBinaryImporter copy, int ord, SiteRecord s, int? stampId)
+    {
+        var d = s.Derived;
+        var m = s.Predicted;
+        copy.StartRow();
+        copy.Write(ord, NpgsqlDbType.Integer);
+        copy.Write(BatchId, NpgsqlDbType.Bigint);
+        copy.Write(s.LotId, NpgsqlDbType.Varchar);
+        copy.Write(s.WaferSlot, NpgsqlDbType.Integer);
+        copy.Write(s.SiteId, NpgsqlDbType.Varchar);
+        copy.Write(s.SiteXMm, NpgsqlDbType.Double);
+        copy.Write(s.SiteYMm, NpgsqlDbType.Double);
+        copy.Write(s.ProductId, NpgsqlDbType.Integer);
+        copy.Write(s.Step, NpgsqlDbType.Varchar);
+        Text(copy, s.EtchTool);
+        Text(copy, s.EtchChamber);
+        Text(copy, s.LinerTool);
+        Text(copy, s.LinerChamber);
+        Text(copy, s.MetrologyTool);
+        Text(copy, s.Operator);
+        copy.Write(s.MeasuredAtMs, NpgsqlDbType.Bigint);
+        Real(copy, s.TopWidthNm);
+        Real(copy, s.BottomWidthNm);
+        Real(copy, s.FinHeightNm);
+        Real(copy, s.CornerRadiusNm);
+        Real(copy, s.LinerThicknessNm);
+        Real(copy, d.TaperDeg);
+        Real(copy, d.MidWidthNm);
+        Real(copy, d.AreaNm2);
+        Real(copy, d.GatedPerimeterNm);
+        Real(copy, d.MaxCornerRadiusNm);
+        copy.Write((int)d.Flags, NpgsqlDbType.Integer);
+        Real(copy, m?.VtLinMv);
+        Real(copy, m?.VtSatMv);
+        Real(copy, m?.SwingLinMvPerDec);
+        Real(copy, m?.DiblMvPerV);
+        if (stampId is { } id)
+        {
+            copy.Write(id, NpgsqlDbType.Integer);
+        }
+        else
+        {
+            copy.WriteNull();
+        }
+    }
+
+    private static void Text(NpgsqlBinaryImporter copy, string? value)
+    {
+        if (value is null)
+        {
+            copy.WriteNull();
+        }
+        else
+        {
+            copy.Write(value, NpgsqlDbType.Varchar);
+        }
+    }
+
+    private static void Real(NpgsqlBinaryImporter copy, double? value)
+    {
+        if (value is { } v)
+        {
+            copy.Write(v, NpgsqlDbType.Double);
+        }
+        else
+        {
+            copy.WriteNull();
+        }
+    }
+
+    private static (string, int, string, string, long) Key(SiteRecord s) => (s.LotId, s.WaferSlot, s.SiteId, s.Step, s.MeasuredAtMs);
+
+    // One stamp row per product and model version, written inside the batch so a rejected batch leaves none behind.
+    private int StampId(int productId, PredictedShifts m)
+    {
+        if (stamps.TryGetValue(productId, out var id))
+        {
+            return id;
+        }
+
+        using (var insert = new NpgsqlCommand("""
+            INSERT INTO model_stamps (product_id, parameter_set, parameter_set_version, code_version) VALUES (@p, @s, @v, @c)
+            ON CONFLICT DO NOTHING
+            """, connection, transaction))
+        {
+            AddStampParameters(insert, productId, m);
+            insert.ExecuteNonQuery();
+        }
+
+        using var select = new NpgsqlCommand("""
+            SELECT id FROM model_stamps WHERE product_id = @p AND parameter_set = @s AND parameter_set_version = @v AND code_version = @c
+            """, connection, transaction);
+        AddStampParameters(select, productId, m);
+        id = (int)select.ExecuteScalar()!;
+        stamps[productId] = id;
+        return id;
+    }
+
+    private static void AddStampParameters(NpgsqlCommand cmd, int productId, PredictedShifts m)
+    {
+        cmd.Parameters.AddWithValue("p", productId);
+        cmd.Parameters.AddWithValue("s", m.ParameterSet);
+        cmd.Parameters.AddWithValue("v", m.ParameterSetVersion);
+        cmd.Parameters.AddWithValue("c", m.CodeVersion);
+    }
+
+    private int Execute(string sql)
+    {
+        using var cmd = new NpgsqlCommand(sql, connection, transaction);
+        return cmd.ExecuteNonQuery();
+    }
+
+    /// <summary>Rolls back unless committed, so an error or a dropped request leaves nothing behind.</summary>
+    public async ValueTask DisposeAsync()
+    {
+        if (!completed)
+        {
+            await transaction.RollbackAsync();
+        }
+
+        await transaction.DisposeAsync();
+        if (closeOnDispose is not null)
+        {
+            await closeOnDispose.Database.CloseConnectionAsync();
+        }
+    }
+}

@@ -1,0 +1,28 @@
+using FinWatch.Testing;
+
+namespace FinWatch.Server.Tests.Features.ScaleOut;
+
+/// <summary>
+/// The real app on its own fresh PostgreSQL database (migrated by the app at start, as in production). Use with
+/// <see cref="PostgresFactAttribute"/>, which skips the test when no server is configured.
+/// </summary>
+public abstract class PostgresIntegrationTest : IntegrationTest
+{
+    private PostgresTestDatabase? database;
+
+    protected PostgresTestDatabase Database => database ?? throw new InvalidOperationException("the database is created at initialisation");
+
+    protected override async Task BeforeStartAsync()
+    {
+        database = await PostgresTestDatabase.CreateAsync();
+        Factory.UsePostgres(database.ConnectionString);
+    }
+
+    protected override async Task AfterStopAsync()
+    {
+        if (database is not null)
+        {
+            await database.DisposeAsync();
+        }
+    }
+}
