@@ -2,6 +2,7 @@ using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Audit;
 using Microsoft.AspNetCore.Antiforgery;
+using Microsoft.AspNetCore.Authorization;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Identity;
 using Microsoft.AspNetCore.Mvc;
@@ -22,7 +23,7 @@ public static class AuthEndpoints
         var group = app.MapGroup("/api/auth").WithTags("Access").AllowAnonymous();
         group.MapPost("/sign-in", SignInAsync).RequireRateLimiting(AccessExtensions.SignInLimiter).WithSummary("Sign in with name and password (sets the session cookie)");
         group.MapPost("/sign-out", SignOutAsync).WithSummary("Sign out");
-        group.MapGet("/me", Me).WithSummary("Who the request is from and what it may do");
+        group.MapGet("/me", MeAsync).WithSummary("Who the request is from and what it may do");
         group.MapGet("/antiforgery", (HttpContext http, IAntiforgery antiforgery) =>
             TypedResults.Ok(new AntiforgeryResponse(antiforgery.GetAndStoreTokens(http).RequestToken!, AccessExtensions.AntiforgeryHeader)))
             .WithSummary("A token for the header that browser writes carry");
@@ -32,7 +33,7 @@ public static class AuthEndpoints
     }
 
     private static async Task<Results<Ok<MeResponse>, ProblemHttpResult>> SignInAsync(
-        SignInRequest r, SignInManager<FinWatchUser> signIn, FinWatchDbContext db, TimeProvider clock, HttpContext http)
+        SignInRequest r, SignInManager<FinWatchUser> signIn, FinWatchDbContext db, TimeProvider clock, HttpContext http, IAuthorizationService authorization)
     {
         var user = string.IsNullOrWhiteSpace(r.Name) ? null : await signIn.UserManager.FindByNameAsync(r.Name.Trim());
         if (user is null || string.IsNullOrEmpty(r.Password) || user.DisabledAtMs is not null)
@@ -60,7 +61,7 @@ public static class AuthEndpoints
         AuditLog.Add(db, user.UserName!, "person", user.UserName!, "signed-in", null, null, clock);
         await db.SaveChangesAsync(http.RequestAborted);
         var principal = await signIn.CreateUserPrincipalAsync(user);
-        return TypedResults.Ok(Describe(principal, demo: false));
+        return TypedResults.Ok(await DescribeAsync(principal, demo: false, authorization));
     }
 
     private static ProblemHttpResult Refused(string detail) => TypedResults.Problem(new ProblemDetails
@@ -74,10 +75,11 @@ public static class AuthEndpoints
         return TypedResults.NoContent();
     }
 
-    private static Ok<MeResponse> Me(HttpContext http, Microsoft.Extensions.Options.IOptions<Demo.DemoOptions> demo) =>
-        TypedResults.Ok(Describe(http.User, demo.Value.Enabled));
+    private static async Task<Ok<MeResponse>> MeAsync(HttpContext http, Microsoft.Extensions.Options.IOptions<Demo.DemoOptions> demo, IAuthorizationService authorization) =>
+        TypedResults.Ok(await DescribeAsync(http.User, demo.Value.Enabled, authorization));
 
-    internal static MeResponse Describe(System.Security.Claims.ClaimsPrincipal user, bool demo)
+    /// <summary>Who the caller is and which policies it passes, asked of the policies themselves (no second copy of the rules).</summary>
+    internal static async Task<MeResponse> DescribeAsync(System.Security.Claims.ClaimsPrincipal user, bool demo, IAuthorizationService authorization)
     {
         if (user.Identity?.IsAuthenticated != true)
         {
@@ -85,25 +87,16 @@ public static class AuthEndpoints
         }
 
         var roles = user.FindAll(System.Security.Claims.ClaimTypes.Role).Select(c => c.Value).ToHashSet();
-        var top = Roles.Ladder.LastOrDefault(roles.Contains) ?? roles.FirstOrDefault();
         var may = new List<string>();
-        void If(bool yes, string what)
+        foreach (var policy in Permissions.All)
         {
-            if (yes)
+            if ((await authorization.AuthorizeAsync(user, policy)).Succeeded)
             {
-                may.Add(what);
+                may.Add(policy);
             }
         }
 
-        var person = roles.Contains(Roles.Technician);
-        If(person, Permissions.Read);
-        If(person || roles.Contains(Roles.Display), Permissions.Floor);
-        If(person || roles.Contains(Roles.IngestKey), Permissions.Ingest);
-        If(person, Permissions.Acknowledge);
-        If(roles.Contains(Roles.Supervisor), Permissions.Disposition);
-        If(roles.Contains(Roles.Engineer), Permissions.Engineer);
-        If(roles.Contains(Roles.Administrator), Permissions.Administer);
-        return new MeResponse(true, user.Identity.Name, top, user.Via(), demo, may);
+        return new MeResponse(true, user.Identity.Name, Roles.Ladder.LastOrDefault(roles.Contains) ?? roles.FirstOrDefault(), user.Via(), demo, may);
     }
 
     private static async Task<Results<RedirectHttpResult, ProblemHttpResult>> OpenDisplayAsync(string token, FinWatchDbContext db, HttpContext http)

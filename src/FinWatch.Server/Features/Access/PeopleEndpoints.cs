@@ -39,14 +39,14 @@ public static class PeopleEndpoints
         return app;
     }
 
-    internal static PersonResponse Describe(FinWatchUser u) => new(u.UserName!, u.Role, DateTimeOffset.FromUnixTimeMilliseconds(u.CreatedAtMs),
-        u.DisabledAtMs is { } d ? DateTimeOffset.FromUnixTimeMilliseconds(d) : null, u.LockoutEnd > DateTimeOffset.UtcNow ? u.LockoutEnd : null);
+    internal static PersonResponse Describe(FinWatchUser u, TimeProvider clock) => new(u.UserName!, u.Role, DateTimeOffset.FromUnixTimeMilliseconds(u.CreatedAtMs),
+        u.DisabledAtMs is { } d ? DateTimeOffset.FromUnixTimeMilliseconds(d) : null, u.LockoutEnd > clock.GetUtcNow() ? u.LockoutEnd : null);
 
     internal static KeyResponse Describe(ApiKey k) => new(k.Id, k.Name, k.Scope, k.Prefix, k.CreatedBy, DateTimeOffset.FromUnixTimeMilliseconds(k.CreatedAtMs),
         k.RevokedBy, k.RevokedAtMs is { } r ? DateTimeOffset.FromUnixTimeMilliseconds(r) : null, k.LastUsedAtMs is { } l ? DateTimeOffset.FromUnixTimeMilliseconds(l) : null);
 
-    private static async Task<Ok<List<PersonResponse>>> ListAsync(UserManager<FinWatchUser> users) =>
-        TypedResults.Ok((await users.Users.OrderBy(u => u.UserName).ToListAsync()).Select(Describe).ToList());
+    private static async Task<Ok<List<PersonResponse>>> ListAsync(UserManager<FinWatchUser> users, TimeProvider clock) =>
+        TypedResults.Ok((await users.Users.OrderBy(u => u.UserName).ToListAsync()).Select(u => Describe(u, clock)).ToList());
 
     /// <summary>Creates a person (also used by the <c>admin add</c> command); the errors are keyed by field.</summary>
     public static async Task<(FinWatchUser? User, Dictionary<string, string[]> Errors)> AddPersonAsync(
@@ -79,7 +79,7 @@ public static class PeopleEndpoints
             return (null, new Dictionary<string, string[]> { [created.Errors.Any(e => e.Code.StartsWith("Password", StringComparison.Ordinal)) ? "password" : "name"] = [.. created.Errors.Select(e => e.Description)] });
         }
 
-        AuditLog.Add(db, by, "person", user.UserName, "created", null, Describe(user), clock);
+        AuditLog.Add(db, by, "person", user.UserName, "created", null, Describe(user, clock), clock);
         await db.SaveChangesAsync();
         return (user, errors);
     }
@@ -88,7 +88,7 @@ public static class PeopleEndpoints
         PersonRequest r, UserManager<FinWatchUser> users, FinWatchDbContext db, TimeProvider clock, HttpContext http)
     {
         var (user, errors) = await AddPersonAsync(users, db, r.Name, r.Role, r.Password, http.User.Who(), clock);
-        return user is null ? TypedResults.ValidationProblem(errors) : TypedResults.Created($"/api/people/{Uri.EscapeDataString(user.UserName!)}", Describe(user));
+        return user is null ? TypedResults.ValidationProblem(errors) : TypedResults.Created($"/api/people/{Uri.EscapeDataString(user.UserName!)}", Describe(user, clock));
     }
 
     private static async Task<Results<Ok<PersonResponse>, ValidationProblem, ProblemHttpResult>> UpdateAsync(
@@ -110,7 +110,7 @@ public static class PeopleEndpoints
             return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["name"] = ["you cannot disable yourself or take away your own administration"] });
         }
 
-        var before = Describe(user);
+        var before = Describe(user, clock);
         user.Role = r.Role ?? user.Role;
         if (r.Disabled is { } disabled)
         {
@@ -119,9 +119,9 @@ public static class PeopleEndpoints
 
         await users.UpdateAsync(user);
         await users.UpdateSecurityStampAsync(user); // signed-in sessions pick up the change within a minute
-        AuditLog.Add(db, http.User.Who(), "person", user.UserName!, "changed", before, Describe(user), clock);
+        AuditLog.Add(db, http.User.Who(), "person", user.UserName!, "changed", before, Describe(user, clock), clock);
         await db.SaveChangesAsync();
-        return TypedResults.Ok(Describe(user));
+        return TypedResults.Ok(Describe(user, clock));
     }
 
     private static async Task<Results<Ok<PersonResponse>, ValidationProblem, ProblemHttpResult>> SetPasswordAsync(
@@ -144,7 +144,7 @@ public static class PeopleEndpoints
         await users.ResetAccessFailedCountAsync(user);
         AuditLog.Add(db, http.User.Who(), "person", user.UserName!, "password-set", null, null, clock); // never the password
         await db.SaveChangesAsync();
-        return TypedResults.Ok(Describe(user));
+        return TypedResults.Ok(Describe(user, clock));
     }
 
     private static async Task<Ok<List<KeyResponse>>> KeysAsync(FinWatchDbContext db) =>

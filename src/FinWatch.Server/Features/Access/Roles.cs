@@ -56,4 +56,7 @@ public static class Permissions
     public const string Disposition = "disposition";
     public const string Engineer = "engineer";
     public const string Administer = "administer";
+
+    /// <summary>Every policy, in the order /api/auth/me lists what a caller may do.</summary>
+    public static readonly string[] All = [Read, Floor, Ingest, Acknowledge, Disposition, Engineer, Administer];
 }

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
+using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
 
@@ -76,19 +77,7 @@ public static class AuditEndpoints
         return TypedResults.File(Encoding.UTF8.GetBytes(sb.ToString()), "text/csv; charset=utf-8", "finwatch-audit.csv");
     }
 
-    /// <summary>RFC 4180 field: quoted when it holds a comma, quote or line break; a leading = + - @ is prefixed with ' so a spreadsheet does not run it.</summary>
-    public static string Quote(string? value)
-    {
-        if (string.IsNullOrEmpty(value))
-        {
-            return "";
-        }
-
-        if (value[0] is '=' or '+' or '-' or '@')
-        {
-            value = "'" + value;
-        }
-
-        return value.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + value.Replace("\"", "\"\"", StringComparison.Ordinal) + "\"" : value;
-    }
+    /// <summary>A text field (<see cref="CsvField"/>); a leading = + - @ is prefixed with ' so a spreadsheet does not run it as a formula.</summary>
+    public static string Quote(string? value) =>
+        CsvField.Of(value is [ '=' or '+' or '-' or '@', ..] ? "'" + value : value);
 }

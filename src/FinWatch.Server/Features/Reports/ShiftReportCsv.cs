@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using FinWatch.Server.Infrastructure;
 
 namespace FinWatch.Server.Features.Reports;
 
@@ -66,15 +67,7 @@ public static class ShiftReportCsv
                 csv.Append(',');
             }
 
-            var f = i < fields.Length ? fields[i] ?? "" : "";
-            if (f.AsSpan().IndexOfAny(",\"\r\n") >= 0)
-            {
-                csv.Append('"').Append(f.Replace("\"", "\"\"", StringComparison.Ordinal)).Append('"');
-            }
-            else
-            {
-                csv.Append(f);
-            }
+            csv.Append(CsvField.Of(i < fields.Length ? fields[i] : null));
         }
 
         csv.Append("\r\n");
