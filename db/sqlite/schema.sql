@@ -449,3 +449,13 @@ VALUES ('20261202162301_CodeVersionLength', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+CREATE INDEX "IX_measurements_series_order" ON "measurements" ("product_id", "step", "measured_at_ms", "lot_id", "wafer_slot", "site_id");
+
+DROP INDEX "IX_measurements_product_id_step_measured_at_ms";
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261202171545_SeriesOrderIndex', '10.0.15');
+
+COMMIT;
+

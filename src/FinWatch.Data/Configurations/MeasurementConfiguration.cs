@@ -18,8 +18,10 @@ internal sealed class MeasurementConfiguration : IEntityTypeConfiguration<Measur
 
         // The natural key: re-sending a batch must not duplicate a site (the ingest reports it as already present).
         builder.HasIndex(m => new { m.LotId, m.WaferSlot, m.SiteId, m.Step, m.MeasuredAtMs }).IsUnique();
-        // Series and chart queries: one product and step in time order.
-        builder.HasIndex(m => new { m.ProductId, m.Step, m.MeasuredAtMs });
+        // Series and chart queries: one product and step in time order, ties in lot, wafer and site order, so the index
+        // gives the whole ORDER BY of SeriesQuery.Rows and neither engine sorts (README Performance, time-range).
+        builder.HasIndex(m => new { m.ProductId, m.Step, m.MeasuredAtMs, m.LotId, m.WaferSlot, m.SiteId })
+            .HasDatabaseName("IX_measurements_series_order");
         // The monitor's step after each ingest: the rows of one batch for one product and step. Three equalities, so
         // the planner prefers it to the product-step index, which would read the product's whole history per batch.
         builder.HasIndex(m => new { m.BatchId, m.ProductId, m.Step });

@@ -22,7 +22,7 @@ public static class DataExtensions
                 .AddInterceptors(sp.GetRequiredService<SqliteConnectionSetup>());
         });
         builder.Services.AddDbContext<PostgresFinWatchDbContext>((sp, options) =>
-            options.UseNpgsql(sp.GetRequiredService<IOptions<DatabaseOptions>>().Value.ConnectionString));
+            options.UseNpgsql(sp.GetRequiredService<IOptions<DatabaseOptions>>().Value.PostgresConnectionString()));
         builder.Services.AddScoped<FinWatchDbContext>(sp => IsPostgreSql(sp)
             ? sp.GetRequiredService<PostgresFinWatchDbContext>()
             : sp.GetRequiredService<SqliteFinWatchDbContext>());

@@ -1026,10 +1026,11 @@ namespace FinWatch.Data.Migrations.Postgres
 
                     b.HasIndex("BatchId", "ProductId", "Step");
 
-                    b.HasIndex("ProductId", "Step", "MeasuredAtMs");
-
                     b.HasIndex("LotId", "WaferSlot", "SiteId", "Step", "MeasuredAtMs")
                         .IsUnique();
+
+                    b.HasIndex("ProductId", "Step", "MeasuredAtMs", "LotId", "WaferSlot", "SiteId")
+                        .HasDatabaseName("IX_measurements_series_order");
 
                     b.ToTable("measurements", (string)null);
                 });

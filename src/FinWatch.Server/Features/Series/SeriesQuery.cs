@@ -70,7 +70,13 @@ public sealed record SeriesQuery(string Product, int ProductId, string Step, Fin
     }
 
     /// <summary>The measured (or derived) values in time order, streamed from the database.</summary>
-    public IAsyncEnumerable<SeriesRow> Rows(FinWatchDbContext db)
+    public IAsyncEnumerable<SeriesRow> Rows(FinWatchDbContext db) => Queryable(db).AsAsyncEnumerable();
+
+    /// <summary>
+    /// The query behind <see cref="Rows"/>. Its ORDER BY is exactly the columns of the series index
+    /// (MeasurementConfiguration), so both engines read it in order without a sort (SeriesQueryPlanTests).
+    /// </summary>
+    public IQueryable<SeriesRow> Queryable(FinWatchDbContext db)
     {
         var q = db.Measurements.AsNoTracking().Where(m => m.ProductId == ProductId && m.Step == Step);
         if (Chamber is { } chamber)
@@ -93,7 +99,6 @@ public sealed record SeriesQuery(string Product, int ProductId, string Step, Fin
         var column = Parameter.Property;
         return q.Where(m => EF.Property<double?>(m, column) != null)
             .OrderBy(m => m.MeasuredAtMs).ThenBy(m => m.LotId).ThenBy(m => m.WaferSlot).ThenBy(m => m.SiteId)
-            .Select(m => new SeriesRow(m.MeasuredAtMs, m.LotId, m.WaferSlot, m.SiteId, m.EtchChamber, m.LinerChamber, EF.Property<double?>(m, column)!.Value))
-            .AsAsyncEnumerable();
+            .Select(m => new SeriesRow(m.MeasuredAtMs, m.LotId, m.WaferSlot, m.SiteId, m.EtchChamber, m.LinerChamber, EF.Property<double?>(m, column)!.Value));
     }
 }
