@@ -54,7 +54,22 @@ public sealed partial class ServerProcess : IAsyncDisposable
             "--FinWatch:Auth:BootstrapAdminName", Admin, "--FinWatch:Auth:BootstrapAdminPassword", AdminPassword, .. settings,
         ];
         var key = await IngestKeyAsync(databasePath);
-        var server = new ServerProcess(Launch(Path.GetDirectoryName(databasePath)!, args)) { ApiKey = key };
+        return await StartProcessAsync(Path.GetDirectoryName(databasePath)!, args, null, key);
+    }
+
+    /// <summary>
+    /// Starts the server with settings in environment variables only (<c>FinWatch__Database__Provider</c> and so on, as
+    /// a container gets them), listening on a free port of 127.0.0.1, and waits until /alive answers. No bootstrap
+    /// administrator or tool key is added: the environment says what there is; <paramref name="apiKey"/> is the key
+    /// <see cref="CreateClient"/> sends, if the caller made one (<see cref="RunCommandAsync(string, IReadOnlyDictionary{string, string}?, string[])"/>).
+    /// </summary>
+    public static Task<ServerProcess> StartWithEnvironmentAsync(string workingDirectory, IReadOnlyDictionary<string, string> environment, string apiKey = "") =>
+        StartProcessAsync(workingDirectory, ["--urls", "http://127.0.0.1:0", "--Logging:LogLevel:Default", "Warning",
+            "--Logging:LogLevel:Microsoft.Hosting.Lifetime", "Information"], environment, apiKey);
+
+    private static async Task<ServerProcess> StartProcessAsync(string workingDirectory, string[] args, IReadOnlyDictionary<string, string>? environment, string apiKey)
+    {
+        var server = new ServerProcess(Launch(workingDirectory, args, environment)) { ApiKey = apiKey };
         server.process.OutputDataReceived += (_, e) => server.Collect(e.Data);
         server.process.ErrorDataReceived += (_, e) => server.Collect(e.Data);
         server.process.BeginOutputReadLine();
@@ -108,9 +123,13 @@ public sealed partial class ServerProcess : IAsyncDisposable
     public System.Net.CookieContainer Cookies { get; } = new();
 
     /// <summary>Runs the server executable with a command (for example <c>backup</c>) and returns its exit code and output.</summary>
-    public static async Task<(int ExitCode, string StdOut, string StdErr)> RunCommandAsync(string workingDirectory, params string[] args)
+    public static Task<(int ExitCode, string StdOut, string StdErr)> RunCommandAsync(string workingDirectory, params string[] args) =>
+        RunCommandAsync(workingDirectory, null, args);
+
+    /// <summary>The same with extra environment variables (the settings of <see cref="StartWithEnvironmentAsync"/>).</summary>
+    public static async Task<(int ExitCode, string StdOut, string StdErr)> RunCommandAsync(string workingDirectory, IReadOnlyDictionary<string, string>? environment, params string[] args)
     {
-        using var process = Launch(workingDirectory, args);
+        using var process = Launch(workingDirectory, args, environment);
         var stdout = process.StandardOutput.ReadToEndAsync();
         var stderr = process.StandardError.ReadToEndAsync();
         using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(2));
@@ -160,7 +179,7 @@ public sealed partial class ServerProcess : IAsyncDisposable
         process.Dispose();
     }
 
-    private static Process Launch(string workingDirectory, string[] args)
+    private static Process Launch(string workingDirectory, string[] args, IReadOnlyDictionary<string, string>? environment = null)
     {
         var start = new ProcessStartInfo("dotnet")
         {
@@ -175,6 +194,11 @@ public sealed partial class ServerProcess : IAsyncDisposable
         }
 
         start.Environment["ASPNETCORE_ENVIRONMENT"] = "Production";
+        foreach (var (name, value) in environment ?? new Dictionary<string, string>())
+        {
+            start.Environment[name] = value;
+        }
+
         return Process.Start(start)!;
     }
 
