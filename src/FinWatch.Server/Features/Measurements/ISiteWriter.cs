@@ -9,6 +9,12 @@ public interface ISiteWriter : IAsyncDisposable
 {
     long BatchId { get; }
 
+    /// <summary>
+    /// How many validated rows the reader may run ahead of this writer. A bulk writer stops the consumer for a whole
+    /// chunk at a time, so the reader must be able to prepare the next chunk meanwhile.
+    /// </summary>
+    int Lookahead { get; }
+
     /// <summary>The product a lot is stored under already, if any (a lot belongs to one product).</summary>
     int? StoredProductOfLot(string lotId);
 

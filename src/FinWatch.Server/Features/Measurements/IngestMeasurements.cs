@@ -90,10 +90,10 @@ public sealed class IngestMeasurements(
         }
 
         // Reading, validating, deriving and predicting run on one core while the inserts run on the other (with the
-        // prediction there the two stages take about the same time); the bounded channel keeps the reader at most a few
-        // thousand rows ahead, so memory stays flat for any file size.
+        // prediction there the two stages take about the same time); the bounded channel keeps the reader at most the
+        // writer's lookahead ahead (a few thousand rows, a COPY chunk on PostgreSQL), so memory stays flat for any file size.
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken);
-        var channel = Channel.CreateBounded<ValidatedRow>(new BoundedChannelOptions(4096) { SingleReader = true, SingleWriter = true });
+        var channel = Channel.CreateBounded<ValidatedRow>(new BoundedChannelOptions(writer.Lookahead) { SingleReader = true, SingleWriter = true });
         var producer = Task.Run(() => ValidateAllAsync(rows, validator, productsById, channel.Writer, stop.Token), stop.Token);
         try
         {

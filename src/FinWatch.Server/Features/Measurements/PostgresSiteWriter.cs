@@ -7,9 +7,10 @@ using NpgsqlTypes;
 namespace FinWatch.Server.Features.Measurements;
 
 /// <summary>
-/// Writes one ingest batch to PostgreSQL in a single transaction: rows are buffered a chunk at a time, sent by binary
-/// COPY into a temporary staging table, checked against the stored natural keys in one join, and moved into
-/// <c>measurements</c> with <c>INSERT … SELECT … ON CONFLICT DO NOTHING</c>. The same contract as
+/// Writes one ingest batch to PostgreSQL in a single transaction: rows are buffered a chunk at a time, the chunk's
+/// natural keys are looked up in one query (the key columns sent as arrays and joined through <c>unnest</c>), and the
+/// rows not found are sent by binary COPY straight into <c>measurements</c>. Under the ingest lock nothing else writes
+/// the table, so the keys found are exactly the rows already stored, and each row is written once. The same contract as
 /// <see cref="SqliteSiteWriter"/>: all or nothing, "already present" told from "twice in this batch", lot summaries.
 /// The transaction holds the ingest advisory lock (<see cref="PostgresLocks.Ingest"/>) from the batch's number to its
 /// commit, so batches commit in number order across every instance: the monitor's "evaluated through batch N" then
@@ -28,19 +29,12 @@ public sealed class PostgresSiteWriter : ISiteWriter
         delta_vt_lin_mv, delta_vt_sat_mv, delta_swing_lin_mv_per_dec, delta_dibl_mv_per_v, model_stamp_id
         """;
 
-    private const string StagingSql = """
-        CREATE TEMP TABLE ingest_staging (
-            ord integer NOT NULL, batch_id bigint NOT NULL, lot_id varchar(64) NOT NULL, wafer_slot integer NOT NULL,
-            site_id varchar(64) NOT NULL, site_x_mm double precision NOT NULL, site_y_mm double precision NOT NULL,
-            product_id integer NOT NULL, step varchar(64) NOT NULL, etch_tool varchar(64), etch_chamber varchar(64),
-            liner_tool varchar(64), liner_chamber varchar(64), metrology_tool varchar(64), operator varchar(64),
-            measured_at_ms bigint NOT NULL, top_width_nm double precision, bottom_width_nm double precision,
-            fin_height_nm double precision, corner_radius_nm double precision, liner_thickness_nm double precision,
-            taper_deg double precision, mid_width_nm double precision, area_nm2 double precision,
-            gated_perimeter_nm double precision, max_corner_radius_nm double precision, flags integer NOT NULL,
-            delta_vt_lin_mv double precision, delta_vt_sat_mv double precision, delta_swing_lin_mv_per_dec double precision,
-            delta_dibl_mv_per_v double precision, model_stamp_id integer
-        ) ON COMMIT DROP
+    // The chunk's keys that are stored already, with the batch that stored them (1-based position in the arrays).
+    private const string StoredKeysSql = """
+        SELECT k.ord, m.batch_id
+        FROM unnest(@lot, @slot, @site, @step, @at) WITH ORDINALITY AS k(lot_id, wafer_slot, site_id, step, measured_at_ms, ord)
+        JOIN measurements m ON m.lot_id = k.lot_id AND m.wafer_slot = k.wafer_slot AND m.site_id = k.site_id
+            AND m.step = k.step AND m.measured_at_ms = k.measured_at_ms
         """;
 
     private readonly NpgsqlConnection connection;
@@ -61,6 +55,9 @@ public sealed class PostgresSiteWriter : ISiteWriter
 
     public long BatchId { get; }
 
+    /// <summary>A whole chunk: the reader prepares the next one while this one is copied and inserted.</summary>
+    public int Lookahead => ChunkRows;
+
     /// <summary>Opens the transaction, waits for the ingest lock and records the batch.</summary>
     public static async Task<PostgresSiteWriter> BeginAsync(FinWatchDbContext db, string source, string? label, long receivedAtMs, CancellationToken cancellationToken)
     {
@@ -79,11 +76,6 @@ public sealed class PostgresSiteWriter : ISiteWriter
                 lockCmd.Parameters.AddWithValue("class", PostgresLocks.ClassId);
                 lockCmd.Parameters.AddWithValue("object", PostgresLocks.Ingest);
                 await lockCmd.ExecuteNonQueryAsync(cancellationToken);
-            }
-
-            await using (var staging = new NpgsqlCommand(StagingSql, connection, transaction))
-            {
-                await staging.ExecuteNonQueryAsync(cancellationToken);
             }
 
             await using var cmd = new NpgsqlCommand("""
@@ -132,40 +124,45 @@ public sealed class PostgresSiteWriter : ISiteWriter
             return;
         }
 
-        Execute("TRUNCATE ingest_staging");
-        using (var copy = connection.BeginBinaryImport($"COPY ingest_staging (ord, {Columns}) FROM STDIN (FORMAT BINARY)"))
-        {
-            for (var i = 0; i < chunk.Count; i++)
-            {
-                WriteRow(copy, i, chunk[i].Site, chunk[i].StampId);
-            }
-
-            copy.Complete();
-        }
-
-        // Under the ingest lock no other transaction writes measurements, so the keys found here are exactly the
-        // conflicts the insert below will skip.
+        // Under the ingest lock no other transaction writes measurements, so the keys found here are all the conflicts.
+        // Only rows of lots stored already (by an earlier batch or an earlier chunk of this one) can conflict: one
+        // probe per lot finds those, and only their rows' keys are looked up.
         var conflicts = new Dictionary<int, long>();
-        using (var cmd = new NpgsqlCommand("""
-            SELECT s.ord, m.batch_id FROM ingest_staging s
-            JOIN measurements m ON m.lot_id = s.lot_id AND m.wafer_slot = s.wafer_slot AND m.site_id = s.site_id
-                AND m.step = s.step AND m.measured_at_ms = s.measured_at_ms
-            """, connection, transaction))
-        using (var reader = cmd.ExecuteReader())
+        var storedLots = StoredLots(chunk.Select(c => c.Site.LotId).Distinct().ToArray());
+        var candidates = Enumerable.Range(0, chunk.Count).Where(i => storedLots.Contains(chunk[i].Site.LotId)).ToArray();
+        if (candidates.Length > 0)
         {
+            using var cmd = new NpgsqlCommand(StoredKeysSql, connection, transaction);
+            cmd.Parameters.Add(new NpgsqlParameter<string[]>("lot", NpgsqlDbType.Array | NpgsqlDbType.Text) { TypedValue = [.. candidates.Select(i => chunk[i].Site.LotId)] });
+            cmd.Parameters.Add(new NpgsqlParameter<int[]>("slot", NpgsqlDbType.Array | NpgsqlDbType.Integer) { TypedValue = [.. candidates.Select(i => chunk[i].Site.WaferSlot)] });
+            cmd.Parameters.Add(new NpgsqlParameter<string[]>("site", NpgsqlDbType.Array | NpgsqlDbType.Text) { TypedValue = [.. candidates.Select(i => chunk[i].Site.SiteId)] });
+            cmd.Parameters.Add(new NpgsqlParameter<string[]>("step", NpgsqlDbType.Array | NpgsqlDbType.Text) { TypedValue = [.. candidates.Select(i => chunk[i].Site.Step)] });
+            cmd.Parameters.Add(new NpgsqlParameter<long[]>("at", NpgsqlDbType.Array | NpgsqlDbType.Bigint) { TypedValue = [.. candidates.Select(i => chunk[i].Site.MeasuredAtMs)] });
+            using var reader = cmd.ExecuteReader();
             while (reader.Read())
             {
-                conflicts[reader.GetInt32(0)] = reader.GetInt64(1);
+                conflicts[candidates[(int)reader.GetInt64(0) - 1]] = reader.GetInt64(1);
             }
         }
 
-        var inserted = Execute($"""
-            INSERT INTO measurements ({Columns}) SELECT {Columns} FROM ingest_staging ORDER BY ord
-            ON CONFLICT (lot_id, wafer_slot, site_id, step, measured_at_ms) DO NOTHING
-            """);
-        if (inserted + conflicts.Count != chunk.Count)
+        ulong inserted = 0;
+        if (conflicts.Count < chunk.Count)
         {
-            throw new InvalidOperationException($"ingest: {chunk.Count} rows staged, {inserted} inserted and {conflicts.Count} conflicts; another writer ignored the ingest lock");
+            using var copy = connection.BeginBinaryImport($"COPY measurements ({Columns}) FROM STDIN (FORMAT BINARY)");
+            for (var i = 0; i < chunk.Count; i++)
+            {
+                if (!conflicts.ContainsKey(i))
+                {
+                    WriteRow(copy, chunk[i].Site, chunk[i].StampId);
+                }
+            }
+
+            inserted = copy.Complete();
+        }
+
+        if ((int)inserted + conflicts.Count != chunk.Count)
+        {
+            throw new InvalidOperationException($"ingest: {chunk.Count} rows in the chunk, {inserted} copied and {conflicts.Count} stored already");
         }
 
         for (var i = 0; i < chunk.Count; i++)
@@ -235,12 +232,11 @@ public sealed class PostgresSiteWriter : ISiteWriter
         completed = true;
     }
 
-    private void WriteRow(NpgsqlBinaryImporter copy, int ord, SiteRecord s, int? stampId)
+    private void WriteRow(NpgsqlBinaryImporter copy, SiteRecord s, int? stampId)
     {
         var d = s.Derived;
         var m = s.Predicted;
         copy.StartRow();
-        copy.Write(ord, NpgsqlDbType.Integer);
         copy.Write(BatchId, NpgsqlDbType.Bigint);
         copy.Write(s.LotId, NpgsqlDbType.Varchar);
         copy.Write(s.WaferSlot, NpgsqlDbType.Integer);
@@ -341,10 +337,18 @@ public sealed class PostgresSiteWriter : ISiteWriter
         cmd.Parameters.AddWithValue("c", m.CodeVersion);
     }
 
-    private int Execute(string sql)
+    private HashSet<string> StoredLots(string[] lots)
     {
-        using var cmd = new NpgsqlCommand(sql, connection, transaction);
-        return cmd.ExecuteNonQuery();
+        using var cmd = new NpgsqlCommand("SELECT l.lot_id FROM unnest(@lots) AS l(lot_id) WHERE EXISTS (SELECT 1 FROM measurements m WHERE m.lot_id = l.lot_id)", connection, transaction);
+        cmd.Parameters.Add(new NpgsqlParameter<string[]>("lots", NpgsqlDbType.Array | NpgsqlDbType.Text) { TypedValue = lots });
+        using var reader = cmd.ExecuteReader();
+        var stored = new HashSet<string>(StringComparer.Ordinal);
+        while (reader.Read())
+        {
+            stored.Add(reader.GetString(0));
+        }
+
+        return stored;
     }
 
     /// <summary>Rolls back unless committed, so an error or a dropped request leaves nothing behind.</summary>

@@ -63,6 +63,9 @@ public sealed class SqliteSiteWriter : ISiteWriter
 
     public long BatchId { get; }
 
+    /// <summary>Row by row: a few thousand rows ahead keep both cores busy.</summary>
+    public int Lookahead => 4096;
+
     /// <summary>Opens the transaction and records the batch (its counts are filled in by <see cref="CommitAsync"/>).</summary>
     public static async Task<SqliteSiteWriter> BeginAsync(FinWatchDbContext db, string source, string? label, long receivedAtMs, CancellationToken cancellationToken)
     {
