@@ -4,6 +4,7 @@ using FinWatch.Server.Features.Series;
 using FinWatch.Server.Infrastructure;
 using FinWatch.Testing;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.Configuration;
 using Npgsql;
 
 namespace FinWatch.Server.Tests.Features.ScaleOut;
@@ -72,6 +73,22 @@ public class PostgresPlannerOptionTests
             new NpgsqlConnectionStringBuilder(DatabaseOptions.WithPlannerOptions("Host=db;Options=-c statement_timeout=5000", 1.5)).Options);
         Assert.Equal("-c random_page_cost=2",
             new NpgsqlConnectionStringBuilder(DatabaseOptions.WithPlannerOptions("Host=db;Options=-c random_page_cost=2", 1.1)).Options);
+    }
+
+    [Theory]
+    [InlineData(null, 1.1)]
+    [InlineData("", null)]
+    [InlineData("2.5", 2.5)]
+    public void PostgresRandomPageCost_FromConfiguration(string? value, double? expected)
+    {
+        var settings = new Dictionary<string, string?>();
+        if (value is not null)
+        {
+            settings["PostgresRandomPageCost"] = value;
+        }
+
+        var options = new ConfigurationBuilder().AddInMemoryCollection(settings).Build().Get<DatabaseOptions>() ?? new DatabaseOptions();
+        Assert.Equal(expected, options.PostgresRandomPageCost);
     }
 
     [Fact]
