@@ -133,11 +133,11 @@ public sealed class PostgresSiteWriter : ISiteWriter
         if (candidates.Length > 0)
         {
             using var cmd = new NpgsqlCommand(StoredKeysSql, connection, transaction);
-            cmd.Parameters.Add(new NpgsqlParameter<string[]>("lot", NpgsqlDbType.Array | NpgsqlDbType.Text) { TypedValue = [.. candidates.Select(i => chunk[i].Site.LotId)] });
-            cmd.Parameters.Add(new NpgsqlParameter<int[]>("slot", NpgsqlDbType.Array | NpgsqlDbType.Integer) { TypedValue = [.. candidates.Select(i => chunk[i].Site.WaferSlot)] });
-            cmd.Parameters.Add(new NpgsqlParameter<string[]>("site", NpgsqlDbType.Array | NpgsqlDbType.Text) { TypedValue = [.. candidates.Select(i => chunk[i].Site.SiteId)] });
-            cmd.Parameters.Add(new NpgsqlParameter<string[]>("step", NpgsqlDbType.Array | NpgsqlDbType.Text) { TypedValue = [.. candidates.Select(i => chunk[i].Site.Step)] });
-            cmd.Parameters.Add(new NpgsqlParameter<long[]>("at", NpgsqlDbType.Array | NpgsqlDbType.Bigint) { TypedValue = [.. candidates.Select(i => chunk[i].Site.MeasuredAtMs)] });
+            KeyArray(cmd, "lot", NpgsqlDbType.Text, candidates, s => s.LotId);
+            KeyArray(cmd, "slot", NpgsqlDbType.Integer, candidates, s => s.WaferSlot);
+            KeyArray(cmd, "site", NpgsqlDbType.Text, candidates, s => s.SiteId);
+            KeyArray(cmd, "step", NpgsqlDbType.Text, candidates, s => s.Step);
+            KeyArray(cmd, "at", NpgsqlDbType.Bigint, candidates, s => s.MeasuredAtMs);
             using var reader = cmd.ExecuteReader();
             while (reader.Read())
             {
@@ -336,6 +336,10 @@ public sealed class PostgresSiteWriter : ISiteWriter
         cmd.Parameters.AddWithValue("v", m.ParameterSetVersion);
         cmd.Parameters.AddWithValue("c", m.CodeVersion);
     }
+
+    // One key column of the chunk's candidate rows as an array parameter.
+    private void KeyArray<T>(NpgsqlCommand cmd, string name, NpgsqlDbType type, int[] rows, Func<SiteRecord, T> column) =>
+        cmd.Parameters.Add(new NpgsqlParameter<T[]>(name, NpgsqlDbType.Array | type) { TypedValue = [.. rows.Select(i => column(chunk[i].Site))] });
 
     private HashSet<string> StoredLots(string[] lots)
     {
