@@ -21,6 +21,7 @@ if (await ServerCommands.TryRunAsync(args) is { } exitCode)
 }
 
 var builder = WebApplication.CreateBuilder(args);
+builder.UseDefaultListenAddress();
 builder.AddFinWatchApiDefaults();
 builder.AddFinWatchData();
 builder.AddDemo(args);

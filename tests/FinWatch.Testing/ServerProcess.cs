@@ -59,13 +59,16 @@ public sealed partial class ServerProcess : IAsyncDisposable
 
     /// <summary>
     /// Starts the server with settings in environment variables only (<c>FinWatch__Database__Provider</c> and so on, as
-    /// a container gets them), listening on a free port of 127.0.0.1, and waits until /alive answers. No bootstrap
+    /// a container gets them), listening where ASPNETCORE_URLS says or else on a free port of 127.0.0.1, and waits
+    /// until /alive answers. No bootstrap
     /// administrator or tool key is added: the environment says what there is; <paramref name="apiKey"/> is the key
     /// <see cref="CreateClient"/> sends, if the caller made one (<see cref="RunCommandAsync(string, IReadOnlyDictionary{string, string}?, string[])"/>).
     /// </summary>
     public static Task<ServerProcess> StartWithEnvironmentAsync(string workingDirectory, IReadOnlyDictionary<string, string> environment, string apiKey = "") =>
-        StartProcessAsync(workingDirectory, ["--urls", "http://127.0.0.1:0", "--Logging:LogLevel:Default", "Warning",
-            "--Logging:LogLevel:Microsoft.Hosting.Lifetime", "Information"], environment, apiKey);
+        StartProcessAsync(workingDirectory,
+            [.. environment.ContainsKey("ASPNETCORE_URLS") ? [] : new[] { "--urls", "http://127.0.0.1:0" },
+                "--Logging:LogLevel:Default", "Warning", "--Logging:LogLevel:Microsoft.Hosting.Lifetime", "Information"],
+            environment, apiKey);
 
     private static async Task<ServerProcess> StartProcessAsync(string workingDirectory, string[] args, IReadOnlyDictionary<string, string>? environment, string apiKey)
     {

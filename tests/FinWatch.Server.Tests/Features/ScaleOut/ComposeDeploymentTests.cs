@@ -40,16 +40,31 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
             return; // skipped (DeploymentFact) with the reason
         }
 
+        try
+        {
+            await StartAsync();
+        }
+        catch
+        {
+            await DisposeAsync(); // xunit 2 did not dispose this class when its initialisation threw (a started server kept running)
+            throw;
+        }
+    }
+
+    private async Task StartAsync()
+    {
         Directory.CreateDirectory(folder);
         database = await PostgresTestDatabase.CreateAsync();
         environmentA = Environment("finwatch-a");
         var environmentB = Environment("finwatch-b");
         // The tool key of a metrology tool, made with the server's own command on the compose environment.
-        var (exit, stdout, stderr) = await ServerProcess.RunCommandAsync(folder, environmentA, "keys", "add", "compose test tool", "--scope", "ingest");
+        // The working folder is the server's own, with its appsettings.json, as the image's WORKDIR /app.
+        var app = AppContext.BaseDirectory;
+        var (exit, stdout, stderr) = await ServerProcess.RunCommandAsync(app, environmentA, "keys", "add", "compose test tool", "--scope", "ingest");
         Assert.True(exit == 0, stderr + stdout);
         var key = stdout.Trim().Split('\n')[^1].Trim();
-        a = await ServerProcess.StartWithEnvironmentAsync(folder, environmentA, key);
-        b = await ServerProcess.StartWithEnvironmentAsync(folder, environmentB, key);
+        a = await ServerProcess.StartWithEnvironmentAsync(app, environmentA, key);
+        b = await ServerProcess.StartWithEnvironmentAsync(app, environmentB, key);
         proxy = await StartNginxAsync();
     }
 
@@ -82,11 +97,26 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         }
     }
 
-    // The compose environment of a FinWatch service, interpolated as `docker compose` would with the administrator's
-    // passphrase set, then each address that only exists inside the compose network mapped to this machine.
+    // What a container of a FinWatch service starts with: the image's ENV, overridden by the service's compose
+    // environment interpolated as `docker compose` would with the administrator's passphrase set; then each address
+    // that only exists inside the container or the compose network mapped to this machine.
     private Dictionary<string, string> Environment(string service)
     {
-        var env = compose.Environment(service, new Dictionary<string, string> { ["FINWATCH_ADMIN_PASSWORD"] = AdminPassword });
+        var env = ComposeFile.ImageEnvironment();
+        foreach (var (name, value) in compose.Environment(service, new Dictionary<string, string> { ["FINWATCH_ADMIN_PASSWORD"] = AdminPassword }))
+        {
+            env[name] = value;
+        }
+
+        // The image listens on every address at 8080 (the port nginx.conf and the health check use); here a free port.
+        Assert.Equal("http://+:8080", env["ASPNETCORE_URLS"]);
+        env["ASPNETCORE_URLS"] = $"http://127.0.0.1:{FreePort()}";
+        foreach (var name in new[] { "FinWatch__Database__SqlitePath", "FinWatch__Ingest__InboxPath" })
+        {
+            Assert.StartsWith("/", env[name], StringComparison.Ordinal); // absolute: independent of the working folder
+        }
+
+        env["FinWatch__Database__SqlitePath"] = Path.Combine(folder, "data", "finwatch.db"); // unused on PostgreSQL
         var cs = new NpgsqlConnectionStringBuilder(env["FinWatch__Database__ConnectionString"]);
         Assert.Contains(cs.Host!, compose.ServiceNames); // the database is the compose file's own PostgreSQL service
         var test = new NpgsqlConnectionStringBuilder(database!.ConnectionString);
@@ -98,13 +128,21 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         env["FinWatch__SignalR__Redis"] = PostgresTestDatabase.Redis!;
         env["FinWatch__SignalR__RedisChannelPrefix"] = Path.GetFileName(folder); // tests side by side do not hear each other
 
-        foreach (var (name, volume) in new[] { ("FinWatch__Auth__DataProtectionKeysPath", "finwatch-keys"), ("FinWatch__Ingest__InboxPath", "finwatch-inbox") })
+        // The shared key ring, and the inbox of the instance that watches one, are named volumes: they outlive a container.
+        var volumes = new List<(string Name, string Volume)> { ("FinWatch__Auth__DataProtectionKeysPath", "finwatch-keys") };
+        if (env["FinWatch__Ingest__InboxEnabled"] == "true")
         {
-            if (env.TryGetValue(name, out var path))
-            {
-                Assert.Contains($"{volume}:{path}", compose.Volumes(service)); // a named volume, so it outlives the container
-                env[name] = Path.Combine(folder, volume);
-            }
+            volumes.Add(("FinWatch__Ingest__InboxPath", "finwatch-inbox"));
+        }
+        else
+        {
+            env["FinWatch__Ingest__InboxPath"] = Path.Combine(folder, "data", "inbox"); // the image's default, not watched
+        }
+
+        foreach (var (name, volume) in volumes)
+        {
+            Assert.Contains($"{volume}:{env[name]}", compose.Volumes(service));
+            env[name] = Path.Combine(folder, volume);
         }
 
         return env;

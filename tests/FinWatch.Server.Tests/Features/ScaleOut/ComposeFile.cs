@@ -55,6 +55,21 @@ public sealed partial class ComposeFile
             ? v
             : m.Groups[3].Success ? m.Groups[3].Value : "");
 
+    /// <summary>
+    /// The ENV settings of the runtime stage (after the last FROM) of the Dockerfile the FinWatch services build, which
+    /// a container starts with and its compose environment then overrides.
+    /// </summary>
+    public static Dictionary<string, string> ImageEnvironment()
+    {
+        var text = File.ReadAllText(Path.Combine(TestPaths.RepositoryRoot(), "src", "FinWatch.Server", "Dockerfile")).Replace("\\\n", " ", StringComparison.Ordinal);
+        var lines = text.Split('\n');
+        var runtime = lines.Skip(Array.FindLastIndex(lines, l => l.StartsWith("FROM ", StringComparison.Ordinal)));
+        return runtime.Where(l => l.StartsWith("ENV ", StringComparison.Ordinal))
+            .SelectMany(l => l[4..].Split(' ', StringSplitOptions.RemoveEmptyEntries))
+            .Select(pair => pair.Split('=', 2))
+            .ToDictionary(kv => kv[0], kv => kv[1]);
+    }
+
     [GeneratedRegex(@"\$\{([A-Za-z_][A-Za-z0-9_]*)(:-([^}]*))?\}")]
     private static partial Regex Variable();
 }
