@@ -7,9 +7,10 @@ using NpgsqlTypes;
 namespace FinWatch.Server.Features.Measurements;
 
 /// <summary>
-/// Writes one ingest batch to PostgreSQL in a single transaction: rows are buffered a chunk at a time, the chunk's
-/// natural keys are looked up in one query (the key columns sent as arrays and joined through <c>unnest</c>), and the
-/// rows not found are sent by binary COPY straight into <c>measurements</c>. Under the ingest lock nothing else writes
+/// Writes one ingest batch to PostgreSQL in a single transaction: rows are buffered a chunk at a time; one query finds
+/// which of the chunk's lots are stored already, one looks up the natural keys of those lots' rows (the key columns
+/// sent as arrays and joined through <c>unnest</c>), and the rows not found are sent by binary COPY straight into
+/// <c>measurements</c>. Under the ingest lock nothing else writes
 /// the table, so the keys found are exactly the rows already stored, and each row is written once. The same contract as
 /// <see cref="SqliteSiteWriter"/>: all or nothing, "already present" told from "twice in this batch", lot summaries.
 /// The transaction holds the ingest advisory lock (<see cref="PostgresLocks.Ingest"/>) from the batch's number to its
@@ -55,7 +56,7 @@ public sealed class PostgresSiteWriter : ISiteWriter
 
     public long BatchId { get; }
 
-    /// <summary>A whole chunk: the reader prepares the next one while this one is copied and inserted.</summary>
+    /// <summary>A whole chunk: the reader prepares the next one while this one is looked up and copied.</summary>
     public int Lookahead => ChunkRows;
 
     /// <summary>Opens the transaction, waits for the ingest lock and records the batch.</summary>
