@@ -1,5 +1,6 @@
 using System.Collections.Concurrent;
 using System.Diagnostics;
+using System.Net.Http.Json;
 using System.Text.RegularExpressions;
 
 namespace FinWatch.Testing;
@@ -111,14 +112,20 @@ public sealed partial class ServerProcess : IAsyncDisposable
     }
 
     /// <summary>An HTTP client signed in as the bootstrap administrator (session cookie, antiforgery header on writes).</summary>
-    public async Task<HttpClient> CreateAdminClientAsync()
+    public Task<HttpClient> CreateAdminClientAsync() => SignInAsync(BaseAddress, Admin, AdminPassword, Cookies);
+
+    /// <summary>
+    /// An HTTP client for <paramref name="address"/> (a server or a proxy in front of one) signed in as a person: the
+    /// session cookie goes into <paramref name="cookies"/>, writes carry the antiforgery header.
+    /// </summary>
+    public static async Task<HttpClient> SignInAsync(Uri address, string name, string password, System.Net.CookieContainer cookies)
     {
-        var client = new HttpClient(new AntiforgeryHandler(new HttpClientHandler { CookieContainer = Cookies }, BaseAddress))
+        var client = new HttpClient(new AntiforgeryHandler(new HttpClientHandler { CookieContainer = cookies }, address))
         {
-            BaseAddress = BaseAddress, Timeout = TimeSpan.FromMinutes(30),
+            BaseAddress = address, Timeout = TimeSpan.FromMinutes(30),
         };
-        (await client.PostAsync(new Uri("/api/auth/sign-in", UriKind.Relative),
-            new StringContent($"{{\"name\":\"{Admin}\",\"password\":\"{AdminPassword}\"}}", System.Text.Encoding.UTF8, "application/json"))).EnsureSuccessStatusCode();
+        using var body = JsonContent.Create(new { name, password });
+        (await client.PostAsync(new Uri("/api/auth/sign-in", UriKind.Relative), body)).EnsureSuccessStatusCode();
         return client;
     }
 

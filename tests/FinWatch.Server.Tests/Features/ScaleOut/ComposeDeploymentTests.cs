@@ -32,6 +32,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
     private Process? nginx;
     private Uri proxy = null!;
     private Dictionary<string, string> environmentA = null!;
+    private Dictionary<string, string> environmentB = null!;
 
     public async Task InitializeAsync()
     {
@@ -56,7 +57,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         Directory.CreateDirectory(folder);
         database = await PostgresTestDatabase.CreateAsync();
         environmentA = Environment("finwatch-a");
-        var environmentB = Environment("finwatch-b");
+        environmentB = Environment("finwatch-b");
         // The tool key of a metrology tool, made with the server's own command on the compose environment.
         // The working folder is the server's own, with its appsettings.json, as the image's WORKDIR /app.
         var app = AppContext.BaseDirectory;
@@ -202,6 +203,10 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         throw new TimeoutException("nginx did not answer /proxy-health");
     }
 
+    // The compose file's bootstrap administrator (FINWATCH_ADMIN_NAME's default) with the passphrase given it here.
+    private Task<HttpClient> SignInAsync(Uri address, CookieContainer cookies) =>
+        ServerProcess.SignInAsync(address, environmentA["FinWatch__Auth__BootstrapAdminName"], AdminPassword, cookies);
+
     private static int FreePort()
     {
         using var listener = new TcpListener(IPAddress.Loopback, 0);
@@ -246,11 +251,9 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         Assert.Equal("ok\n", await http.GetStringAsync(new Uri("/proxy-health", UriKind.Relative)));
         Assert.Equal(HttpStatusCode.OK, (await http.GetAsync(new Uri("/health", UriKind.Relative))).StatusCode);
 
-        // The bootstrap administrator of the compose file (FINWATCH_ADMIN_NAME's default), signed in through the proxy.
+        // The compose file's administrator, signed in through the proxy.
         var cookies = new CookieContainer();
-        using var admin = new HttpClient(new AntiforgeryHandler(new HttpClientHandler { CookieContainer = cookies }, proxy)) { BaseAddress = proxy };
-        var signIn = await admin.PostAsJsonAsync("/api/auth/sign-in", new { name = environmentA["FinWatch__Auth__BootstrapAdminName"], password = AdminPassword });
-        Assert.Equal(HttpStatusCode.OK, signIn.StatusCode);
+        using var admin = await SignInAsync(proxy, cookies);
         // One key ring (the finwatch-keys volume): the cookie the proxy's instance issued is accepted by each instance.
         foreach (var server in new[] { a!, b! })
         {
@@ -293,8 +296,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
     [DeploymentFact]
     public async Task ThroughTheProxy_AnUploadLargerThanNginxsDefaultLimit_IsStoredWhole()
     {
-        using var admin = new HttpClient(new AntiforgeryHandler(new HttpClientHandler { CookieContainer = new CookieContainer() }, proxy)) { BaseAddress = proxy };
-        (await admin.PostAsJsonAsync("/api/auth/sign-in", new { name = environmentA["FinWatch__Auth__BootstrapAdminName"], password = AdminPassword })).EnsureSuccessStatusCode();
+        using var admin = await SignInAsync(proxy, new CookieContainer());
         await TestProducts.CreateBothAsync(admin);
         // 60 lots of 25 wafers of 15 sites: 22,500 rows, about 3 MB, where nginx refuses bodies above 1 MB unless told
         // otherwise (nginx.org, client_max_body_size: "default 1m").
@@ -312,9 +314,8 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
     public async Task InboxFolder_IsWatchedByInstanceAOnly_AndAFileIsIngestedOnce()
     {
         Assert.Equal("true", environmentA["FinWatch__Ingest__InboxEnabled"]);
-        Assert.Equal("false", Environment("finwatch-b")["FinWatch__Ingest__InboxEnabled"]);
-        using var admin = new HttpClient(new AntiforgeryHandler(new HttpClientHandler { CookieContainer = new CookieContainer() }, a!.BaseAddress)) { BaseAddress = a.BaseAddress };
-        (await admin.PostAsJsonAsync("/api/auth/sign-in", new { name = environmentA["FinWatch__Auth__BootstrapAdminName"], password = AdminPassword })).EnsureSuccessStatusCode();
+        Assert.Equal("false", environmentB["FinWatch__Ingest__InboxEnabled"]);
+        using var admin = await SignInAsync(a!.BaseAddress, new CookieContainer());
         await TestProducts.CreateBothAsync(admin);
 
         var inbox = environmentA["FinWatch__Ingest__InboxPath"];
