@@ -12,7 +12,7 @@ public sealed class AccessPagesTests(BrowserFixture browser) : BrowserTest(brows
 {
     private const string Payload = "<img src=x onerror=alert(1)>";
 
-    [Fact]
+    [BrowserFact]
     public async Task XssPayloads_InALotIdAndAComment_RenderAsText()
     {
         await TestProducts.CreateBothAsync(Client);
@@ -39,7 +39,7 @@ public sealed class AccessPagesTests(BrowserFixture browser) : BrowserTest(brows
         AssertNoPageProblems(); // includes: no dialog opened
     }
 
-    [Fact]
+    [BrowserFact]
     public async Task SignedOut_APageSendsToSignIn_AndBackAfterwards()
     {
         ExpectedFailures.Add("/api/auth/sign-in"); // the wrong password's 401 is part of the test,
@@ -58,7 +58,7 @@ public sealed class AccessPagesTests(BrowserFixture browser) : BrowserTest(brows
         AssertNoPageProblems();
     }
 
-    [Fact]
+    [BrowserFact]
     public async Task WallScreen_WithADisplayToken_ShowsTheFloorAndChartsOnly()
     {
         await TestProducts.CreateBothAsync(Client);

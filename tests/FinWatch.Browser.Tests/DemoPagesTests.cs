@@ -40,7 +40,7 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
     private Task<byte[]> ShotAsync(string name, bool fullPage = true) =>
         Page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(shots, name + ".png"), FullPage = fullPage });
 
-    [Fact]
+    [BrowserFact]
     public async Task EveryPage_RendersTheDemoState()
     {
         var contexts = (await Client.GetFromJsonAsync<JsonElement>("/api/contexts")).EnumerateArray().ToList();

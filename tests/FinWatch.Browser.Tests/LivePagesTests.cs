@@ -20,7 +20,7 @@ public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser
         await ApprovedContextAsync(Client, "TRI-TOP");
     }
 
-    [Fact]
+    [BrowserFact]
     public async Task ChartPage_PostingALot_AddsItsPointsAndSignalsWithoutReload()
     {
         await OpenAsync("chart.html?context=TRI-TOP&range=all");
@@ -41,7 +41,7 @@ public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser
         AssertNoPageProblems();
     }
 
-    [Fact]
+    [BrowserFact]
     public async Task FloorOverview_TileTurnsOutOfControl_WhenARuleFires()
     {
         await OpenAsync("index.html");
@@ -59,7 +59,7 @@ public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser
         AssertNoPageProblems();
     }
 
-    [Fact]
+    [BrowserFact]
     public async Task AlertsPage_AnAlertIsAcknowledgedDispositionedAndClosed()
     {
         await IngestAsync(Client, Wafers("M0003", MonitorDay, 0.5));
@@ -96,7 +96,7 @@ public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser
         AssertNoPageProblems();
     }
 
-    [Fact]
+    [BrowserFact]
     public async Task LimitsPage_ComputesADraftAndApprovesIt()
     {
         await OpenAsync("limits.html?context=TRI-TOP");

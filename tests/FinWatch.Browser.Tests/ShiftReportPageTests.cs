@@ -19,7 +19,7 @@ public sealed class ShiftReportPageTests(BrowserFixture browser) : BrowserTest(b
         Factory.Clock.SetUtcNow(Day.AddHours(23));
     }
 
-    [Fact]
+    [BrowserFact]
     public async Task ShiftPage_ShowsTheShiftsAlertInItsTables_AndPrintsWithoutControls()
     {
         await OpenAsync("shift.html?date=2026-12-01&shift=late");

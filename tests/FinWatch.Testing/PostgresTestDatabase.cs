@@ -1,12 +1,11 @@
 using Npgsql;
-using Xunit;
 
 namespace FinWatch.Testing;
 
 /// <summary>
-/// A fresh PostgreSQL database per test, on the server named by <see cref="Variable"/> (CI starts one, .ci/run; a
-/// developer without PostgreSQL gets the tests skipped with the reason). The role needs CREATEDB; the database is
-/// dropped again when the test ends.
+/// A fresh PostgreSQL database per test, on the server named by <see cref="Variable"/> (tests/run-all.sh starts a
+/// private one for the run; without it the test fails and says so, <see cref="TestServices"/>). The role needs
+/// CREATEDB; the database is dropped again when the test ends.
 /// </summary>
 public sealed class PostgresTestDatabase : IAsyncDisposable
 {
@@ -33,7 +32,7 @@ public sealed class PostgresTestDatabase : IAsyncDisposable
 
     public static async Task<PostgresTestDatabase> CreateAsync()
     {
-        var server = Server ?? throw new InvalidOperationException($"{Variable} is not set");
+        var server = TestServices.RequirePostgres();
         var name = $"finwatch_test_{Guid.NewGuid():N}";
         await using (var admin = new NpgsqlConnection(server))
         {
@@ -58,29 +57,5 @@ public sealed class PostgresTestDatabase : IAsyncDisposable
         await admin.OpenAsync();
         await using var cmd = new NpgsqlCommand($"DROP DATABASE IF EXISTS {Name} WITH (FORCE)", admin);
         await cmd.ExecuteNonQueryAsync();
-    }
-}
-
-/// <summary>A test that needs PostgreSQL: skipped, with the reason, only when <see cref="PostgresTestDatabase.Variable"/> is not set.</summary>
-public sealed class PostgresFactAttribute : FactAttribute
-{
-    public PostgresFactAttribute()
-    {
-        if (PostgresTestDatabase.Server is null)
-        {
-            Skip = $"{PostgresTestDatabase.Variable} is not set: no PostgreSQL server to test against (CI sets it, .ci/run; README Scale-out shows how to run these locally)";
-        }
-    }
-}
-
-/// <summary>A test that needs PostgreSQL and Redis: skipped, with the reason, only when either variable is not set.</summary>
-public sealed class ScaleOutFactAttribute : FactAttribute
-{
-    public ScaleOutFactAttribute()
-    {
-        if (PostgresTestDatabase.Server is null || PostgresTestDatabase.Redis is null)
-        {
-            Skip = $"{PostgresTestDatabase.Variable} or {PostgresTestDatabase.RedisVariable} is not set: no PostgreSQL or Redis to test against (CI sets both, .ci/run)";
-        }
     }
 }

@@ -36,10 +36,14 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
 
     public async Task InitializeAsync()
     {
-        if (PostgresTestDatabase.Server is null || PostgresTestDatabase.Redis is null || !File.Exists(DeploymentFactAttribute.Nginx))
+        if (TestServices.QuickRun)
         {
-            return; // skipped (DeploymentFact) with the reason
+            return; // the tests are skipped (ScaleOutFact) and say why
         }
+
+        TestServices.RequirePostgres();
+        TestServices.RequireRedis();
+        TestServices.RequireNginx();
 
         try
         {
@@ -174,7 +178,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         var path = Path.Combine(folder, "nginx.conf");
         await File.WriteAllTextAsync(path, $"pid {folder}/nginx.pid;\nerror_log {folder}/nginx-error.log;\n" + conf);
 
-        var start = new ProcessStartInfo(DeploymentFactAttribute.Nginx) { RedirectStandardError = true, RedirectStandardOutput = true };
+        var start = new ProcessStartInfo(TestServices.NginxPath) { RedirectStandardError = true, RedirectStandardOutput = true };
         foreach (var arg in new[] { "-p", folder, "-c", path, "-g", "daemon off;" })
         {
             start.ArgumentList.Add(arg);
@@ -214,7 +218,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         return ((IPEndPoint)listener.LocalEndpoint).Port;
     }
 
-    [DeploymentFact]
+    [ScaleOutFact]
     public async Task FinWatchHealthChecks_OfTheComposeFile_PassOnEachInstanceAndFailWithoutOne()
     {
         Assert.All(compose.ServiceNames, s => Assert.True(compose.HasHealthCheck(s), $"service {s} has no health check"));
@@ -244,7 +248,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         return process.ExitCode;
     }
 
-    [DeploymentFact]
+    [ScaleOutFact]
     public async Task ThroughTheProxy_SignInIsValidOnBothInstances_AndAScreenReceivesPointsIngestedThroughEither()
     {
         using var http = new HttpClient { BaseAddress = proxy };
@@ -293,7 +297,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         Assert.Equal(["C0002", "C0003"], new[] { first.Point!.LotId, second.Point!.LotId });
     }
 
-    [DeploymentFact]
+    [ScaleOutFact]
     public async Task ThroughTheProxy_AnUploadLargerThanNginxsDefaultLimit_IsStoredWhole()
     {
         using var admin = await SignInAsync(proxy, new CookieContainer());
@@ -310,7 +314,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         Assert.Equal(22_500, (await response.Content.ReadFromJsonAsync<JsonElement>()).GetProperty("inserted").GetInt32());
     }
 
-    [DeploymentFact]
+    [ScaleOutFact]
     public async Task InboxFolder_IsWatchedByInstanceAOnly_AndAFileIsIngestedOnce()
     {
         Assert.Equal("true", environmentA["FinWatch__Ingest__InboxEnabled"]);
@@ -333,23 +337,5 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         var lot = await admin.GetFromJsonAsync<JsonElement>("/api/lots/I0001");
         Assert.Equal(6, lot.GetProperty("steps").EnumerateArray()
             .Sum(s => s.GetProperty("wafers").EnumerateArray().Sum(w => w.GetProperty("sites").GetArrayLength())));
-    }
-}
-
-/// <summary>A test that needs PostgreSQL, Redis and Debian's nginx (.ci/run installs all three).</summary>
-public sealed class DeploymentFactAttribute : FactAttribute
-{
-    public const string Nginx = "/usr/sbin/nginx";
-
-    public DeploymentFactAttribute()
-    {
-        if (PostgresTestDatabase.Server is null || PostgresTestDatabase.Redis is null)
-        {
-            Skip = $"{PostgresTestDatabase.Variable} or {PostgresTestDatabase.RedisVariable} is not set: no PostgreSQL or Redis to test against (CI sets both, .ci/run)";
-        }
-        else if (!File.Exists(Nginx))
-        {
-            Skip = $"{Nginx} is missing: apt-get install -y nginx (.ci/run does)";
-        }
     }
 }

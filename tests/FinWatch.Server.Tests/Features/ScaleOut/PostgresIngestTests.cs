@@ -14,7 +14,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
 {
     private static readonly DateTimeOffset Start = new(2026, 11, 20, 10, 0, 0, TimeSpan.Zero);
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task PostCsv_ValidFile_StoresEveryRowTheSummariesAndTheDerivedGeometry()
     {
         var response = await PostCsvAsync(SiteRow.Csv(SiteRow.Wafers("L100", 2, 3, Start)));
@@ -32,7 +32,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
         Assert.Equal(Start.AddMinutes(2).AddSeconds(3).ToUnixTimeMilliseconds(), site.MeasuredAtMs);
     }
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task PostCsv_SameBatchTwice_ReportsAlreadyPresentAndStoresNoDuplicate()
     {
         var csv = SiteRow.Csv(SiteRow.Wafers("L400", 2, 3, Start));
@@ -44,7 +44,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
         Assert.Equal(6, (await Factory.CountsAsync()).Measurements);
     }
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task PostCsv_SiteTwiceInOneCopyChunk_IsRejectedAndNothingIsStored()
     {
         var rows = SiteRow.Wafers("L200", 1, 3, Start).ToList();
@@ -53,7 +53,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
         await AssertNothingStoredAsync();
     }
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task PostCsv_SiteTwiceInDifferentCopyChunks_IsRejectedAndNothingIsStored()
     {
         // 25 lots of 25 wafers of 15 sites: 9,375 rows, more than one COPY chunk; the first site comes again as the last row.
@@ -64,7 +64,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
         await AssertNothingStoredAsync();
     }
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task PostCsv_MoreRowsThanOneChunk_StoresEveryRowAndTheOverlapIsAlreadyPresent()
     {
         var rows = ManyRows("L5");
@@ -79,7 +79,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
     private static List<SiteRow> ManyRows(string prefix) =>
         [.. Enumerable.Range(1, 25).SelectMany(lot => SiteRow.Wafers($"{prefix}{lot:00}", 25, 15, Start.AddHours(lot)))];
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task AuditTrail_OnPostgres_RefusesUpdateAndDelete()
     {
         Assert.True(await Factory.QueryAsync(db => db.AuditEntries.CountAsync()) > 0, "creating the test products writes audit entries");
@@ -89,7 +89,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
         Assert.Contains("append-only", update.MessageText, StringComparison.Ordinal);
     }
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task PointBeyondTheLimit_OnPostgres_RaisesOneAlertWithTheHandComputedPoints()
     {
         await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
@@ -106,7 +106,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
 
     // PostgreSQL enforces text lengths where SQLite does not: the model's code version (72 characters) once exceeded
     // model_parameter_sets.code_version (64) and every calibration failed on PostgreSQL only.
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task Calibrate_OnPostgres_StoresTheParameterSetWithTheFullCodeVersion()
     {
         (await PostCsvAsync(CalibrationFixture.FinsCsv())).EnsureSuccessStatusCode();
@@ -119,7 +119,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
     }
 
     // The file name becomes the batch label (260 characters): a longer one is cut there rather than refused by PostgreSQL.
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task PostCsv_FileNameLongerThanTheLabel_IsIngestedWithTheNameCut()
     {
         using var form = new MultipartFormDataContent();

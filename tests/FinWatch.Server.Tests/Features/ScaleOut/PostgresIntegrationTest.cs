@@ -4,7 +4,7 @@ namespace FinWatch.Server.Tests.Features.ScaleOut;
 
 /// <summary>
 /// The real app on its own fresh PostgreSQL database (migrated by the app at start, as in production). Use with
-/// <see cref="PostgresFactAttribute"/>, which skips the test when no server is configured.
+/// <see cref="ScaleOutFactAttribute"/>: without a server the test fails and says so, except on a quick run, which skips it.
 /// </summary>
 public abstract class PostgresIntegrationTest : IntegrationTest
 {

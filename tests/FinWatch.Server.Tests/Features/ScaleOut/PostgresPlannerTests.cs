@@ -18,14 +18,14 @@ public class PostgresPlannerTests : PostgresIntegrationTest
 {
     private static readonly DateTimeOffset Start = new(2026, 11, 20, 10, 0, 0, TimeSpan.Zero);
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task Session_HasTheConfiguredRandomPageCost()
     {
         var cost = await Factory.QueryAsync(db => db.Database.SqlQueryRaw<string>("SELECT current_setting('random_page_cost') AS \"Value\"").SingleAsync());
         Assert.Equal("1.1", cost);
     }
 
-    [PostgresFact]
+    [ScaleOutFact]
     public async Task SeriesQuery_OnPostgres_ScansTheSeriesIndexWithoutASort()
     {
         // 25 lots an hour apart, 25 wafers of 15 sites each (9,375 rows); the query asks for three hours of them.

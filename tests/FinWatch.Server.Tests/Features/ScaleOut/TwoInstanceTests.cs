@@ -25,10 +25,12 @@ public sealed class TwoInstanceTests : IAsyncLifetime
 
     public async Task InitializeAsync()
     {
-        if (PostgresTestDatabase.Server is null || PostgresTestDatabase.Redis is null)
+        if (TestServices.QuickRun)
         {
             return; // the tests are skipped (ScaleOutFact) and say why
         }
+
+        TestServices.RequireRedis();
 
         database = await PostgresTestDatabase.CreateAsync();
         a = Start(database.ConnectionString); // migrates the shared database; B finds it current
@@ -41,7 +43,7 @@ public sealed class TwoInstanceTests : IAsyncLifetime
     private FinWatchAppFactory Start(string connectionString)
     {
         var factory = new FinWatchAppFactory().UsePostgres(connectionString)
-            .With(SignalRScaleOut.RedisKey, PostgresTestDatabase.Redis)
+            .With(SignalRScaleOut.RedisKey, TestServices.RequireRedis())
             .With(SignalRScaleOut.ChannelPrefixKey, channelPrefix);
         factory.UseKestrel(0);
         factory.StartServer();
