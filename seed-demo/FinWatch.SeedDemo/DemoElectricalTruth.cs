@@ -2,7 +2,7 @@ namespace FinWatch.SeedDemo;
 
 /// <summary>
 /// The invented "true" electrical behaviour of a demo product, from which its electrical-test results are made: the
-/// three calibration parameters of fin-model.md G.3, set away from the physics defaults so that a calibration has
+/// three calibration parameters of docs/model.md §G.3, set away from the physics defaults so that a calibration has
 /// something to find. Invented values, not measured on any real device.
 /// </summary>
 /// <param name="Product">Product code.</param>

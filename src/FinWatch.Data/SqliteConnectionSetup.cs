@@ -4,7 +4,7 @@ using Microsoft.EntityFrameworkCore.Diagnostics;
 namespace FinWatch.Data;
 
 /// <summary>
-/// Per-connection SQLite settings (shared/RECIPES.md): wait for a busy writer instead of failing at once,
+/// Per-connection SQLite settings : wait for a busy writer instead of failing at once,
 /// enforce foreign keys, use synchronous=NORMAL (durable in WAL mode across process crashes), and cut the write-ahead
 /// log back to 64 MB after a large batch has been checkpointed.
 /// </summary>

@@ -4,7 +4,7 @@ using System.Runtime.CompilerServices;
 namespace FinWatch.Physics;
 
 /// <summary>
-/// Pure geometry of the fin cross-section (design note fin-model.md, section A): taper angle, local and
+/// Pure geometry of the fin cross-section (docs/model.md §A): taper angle, local and
 /// mid-height width, the rounded-top trapezoid's area, gated perimeter and inside test.
 /// </summary>
 /// <remarks>

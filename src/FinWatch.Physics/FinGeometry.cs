@@ -2,7 +2,7 @@ namespace FinWatch.Physics;
 
 /// <summary>
 /// Derived cross-section quantities of one <see cref="FinProfile"/>, as returned by
-/// <see cref="FinCrossSection.Derive(in FinProfile, GatedFaces)"/> (design note fin-model.md, A.1–A.4, A.7).
+/// <see cref="FinCrossSection.Derive(in FinProfile, GatedFaces)"/> (docs/model.md §A.1–A.4, A.7).
 /// </summary>
 /// <param name="TaperDeg">
 /// θ: sidewall angle from vertical, in degrees, per sidewall; positive when the fin is wider at its foot,

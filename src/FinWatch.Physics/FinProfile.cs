@@ -2,7 +2,7 @@ namespace FinWatch.Physics;
 
 /// <summary>
 /// A measured fin cross-section: a symmetric trapezoid with straight sidewalls whose two top corners are
-/// rounded by circular arcs (design note fin-model.md, A.1–A.4). All lengths are in nm.
+/// rounded by circular arcs (docs/model.md §A.1–A.4). All lengths are in nm.
 /// </summary>
 /// <remarks>
 /// The record does not validate on construction (it is a plain carrier for ingested rows); every

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics;
 
 /// <summary>
-/// Which faces of the fin cross-section the gate covers (design note fin-model.md, A.4 and A.7).
+/// Which faces of the fin cross-section the gate covers (docs/model.md §A.4 and A.7).
 /// </summary>
 public enum GatedFaces
 {

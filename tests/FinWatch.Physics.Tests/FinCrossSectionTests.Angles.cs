@@ -63,7 +63,7 @@ public sealed partial class FinCrossSectionTests
     [Fact]
     public void CornerTangentLength_GeneralAngle_AgreesWithNoteFormula()
     {
-        // Independent evaluation of the note's form t = r·tan(π/4 − θ/2) with Math.Tan (the code uses cos θ/(1 + sin θ)).
+        // Independent evaluation of the form t = r·tan(π/4 − θ/2) of docs/model.md §A with Math.Tan (the code uses cos θ/(1 + sin θ)).
         foreach (double theta in new[] { -1.2, -0.4, -0.05, 0.05, 0.2, 0.7, 1.3 })
         {
             Assert.Equal(2.5 * Math.Tan((Math.PI / 4) - (theta / 2)), FinCrossSection.CornerTangentLengthNm(2.5, theta), 1e-13);
@@ -99,7 +99,7 @@ public sealed partial class FinCrossSectionTests
     public void MaxCornerRadius_NearlyTriangularFin_TendsToHalfTopWidthTimesTan()
     {
         // Triangle-like limit W_t → 0 (Wb = 20, H = 40): r_max = (W_t/2)·tan(π/4 + θ/2) → 0 linearly in W_t,
-        // checked against the note's formula evaluated with Math.Tan; θ → atan(20/80) = atan(1/4).
+        // checked against that formula evaluated with Math.Tan; θ → atan(20/80) = atan(1/4).
         const double wt = 1e-3;
         double theta = FinCrossSection.TaperAngleRad(wt, 20, 40);
         Assert.Equal(Math.Atan((20 - wt) / 80), theta, 1e-16);

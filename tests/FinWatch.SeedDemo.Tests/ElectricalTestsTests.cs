@@ -19,14 +19,14 @@ public class ElectricalTestsTests
         var profiled = DemoFab.GenerateRows(DemoFab.DefaultSeed, Scale).Where(r => r.Step == DemoFab.ProfileStep)
             .Select(r => (r.LotId, r.WaferSlot)).ToHashSet();
         Assert.All(a, t => Assert.Contains((t.LotId, t.WaferSlot), profiled));
-        // A threshold falls as the drain voltage rises (DIBL, fin-model.md B.4): saturation below linear on every wafer.
+        // A threshold falls as the drain voltage rises (DIBL, docs/model.md §B.4): saturation below linear on every wafer.
         Assert.All(a, t => Assert.True(t.VtSatV < t.VtLinV));
     }
 
     [Fact]
     public void ElectricalTests_CalibratedOnTheMeasuredFins_RecoverTheInventedTruth()
     {
-        // Consistency of the demo: fitting the model (fin-model.md G.3) to the tests, with each wafer's mean *measured* fin
+        // Consistency of the demo: fitting the model (docs/model.md §G.3) to the tests, with each wafer's mean *measured* fin
         // (metrology bias and site noise included), lands near the invented truth. Tolerances: 1.5 nm in L_eff and 20 mV in
         // the offset, the size of the profile tools' bias effect on the fit (an estimate, no external source).
         var means = DemoFab.GenerateRows(DemoFab.DefaultSeed, Scale).Where(r => r.Step == DemoFab.ProfileStep)

@@ -25,7 +25,7 @@ internal static class TestData
 
     public static DemoProduct Product(string code) => DemoFab.Products.Single(p => p.Code == code);
 
-    /// <summary>Sidewall angle from vertical, degrees (the brief's definition, computed independently of the generator).</summary>
+    /// <summary>Sidewall angle from vertical, degrees (docs/model.md §A.1, computed independently of the generator).</summary>
     public static double TaperDeg(double topNm, double bottomNm, double heightNm) =>
         Math.Atan((bottomNm - topNm) / (2.0 * heightNm)) * 180.0 / Math.PI;
 

@@ -58,7 +58,7 @@ public class RunningMomentsTests
         Assert.Equal(0, m.SampleVariance);
     }
 
-    // Consistency (shared/STYLE.md 3.12): accumulating in pieces and combining equals accumulating in one go, within 1e-12.
+    // Consistency: accumulating in pieces and combining equals accumulating in one go, within 1e-12.
     [Fact]
     public void Combine_TwoParts_EqualsOnePass()
     {

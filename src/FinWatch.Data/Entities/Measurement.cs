@@ -36,7 +36,7 @@ public sealed class Measurement
     public double? GatedPerimeterNm { get; set; }
     public double? MaxCornerRadiusNm { get; set; }
 
-    /// <summary>Predicted shifts against the product's nominal fin (engineering estimate, fin-model.md G.2), in mV, mV/dec
+    /// <summary>Predicted shifts against the product's nominal fin (engineering estimate, docs/model.md §G.2), in mV, mV/dec
     /// and mV/V; null when the profile lacks an input the model needs.</summary>
     public double? DeltaVtLinMv { get; set; }
     public double? DeltaVtSatMv { get; set; }

@@ -1,7 +1,7 @@
 namespace FinWatch.Data.Entities;
 
 /// <summary>
-/// A fitted calibration of a product's analytic model (fin-model.md G.3): the three fitted parameters with their
+/// A fitted calibration of a product's analytic model (docs/model.md §G.3): the three fitted parameters with their
 /// posterior standard deviations, the fit quality, and who made it, when and why. Versions count up per product; the
 /// highest is the product's current set. Rows are never changed or deleted: a new fit is a new version.
 /// </summary>

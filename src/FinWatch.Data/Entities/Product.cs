@@ -21,7 +21,7 @@ public sealed class Product
     public double NominalCornerRadiusNm { get; set; }
     public double NominalLinerThicknessNm { get; set; }
 
-    /// <summary>Electrical-model inputs the profile does not measure (fin-model.md G.3 defaults until calibrated).</summary>
+    /// <summary>Electrical-model inputs the profile does not measure (docs/model.md §G.3 defaults until calibrated).</summary>
     public double ModelEotNm { get; set; } = 0.9;
 
     public double ModelGateLengthNm { get; set; } = 20;

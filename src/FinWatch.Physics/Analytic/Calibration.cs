@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// Fits the few calibration parameters of fin-model.md G.3 — effective gate length L_eff, the short-channel prefactor
+/// Fits the few calibration parameters of docs/model.md §G.3 — effective gate length L_eff, the short-channel prefactor
 /// V_bi − φ_th (the barrier height) and the threshold offset — to electrical-test thresholds of measured devices, with a
 /// ridge (Gaussian) prior centred on the starting parameter set, as G.3 asks ("keep the prior strong: the sensitivities
 /// are physical, not fitted"). Minimises Σ (r/σ_meas)² + Σ ((θ − θ₀)/σ_prior)² by Gauss–Newton with a finite-difference

@@ -1,9 +1,9 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// A versioned per-product calibration parameter set (design note fin-model.md, G.3), including the product's
+/// A versioned per-product calibration parameter set (docs/model.md §G.3), including the product's
 /// nominal fin against which every prediction is reported (G.2 step 6). Lengths in nm, doping in cm⁻³,
-/// potentials in V. Defaults are the note's physics defaults, uncalibrated.
+/// potentials in V. Defaults are the physics defaults of docs/model.md §G.3, uncalibrated.
 /// </summary>
 /// <remarks>Immutable; the <see cref="ThresholdModel"/> built from it caches the nominal evaluation.</remarks>
 public sealed record CalibrationParameters

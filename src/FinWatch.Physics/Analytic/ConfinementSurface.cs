@@ -1,6 +1,6 @@
 namespace FinWatch.Physics.Analytic;
 
-/// <summary>Crystal surface normal to the confinement direction (design note fin-model.md, C.2).</summary>
+/// <summary>Crystal surface normal to the confinement direction (docs/model.md §C.2).</summary>
 public enum ConfinementSurface
 {
     /// <summary>(110): sidewalls of a standard ⟨110⟩-oriented fin on a (100) wafer; ground state 4 valleys, m_z = 0.315 m₀.</summary>

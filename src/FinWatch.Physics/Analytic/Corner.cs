@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// Corner effect as two parallel sub-devices (design note fin-model.md, D.2): the main fin and a corner device of
+/// Corner effect as two parallel sub-devices (docs/model.md §D.2): the main fin and a corner device of
 /// small effective width with a locally lowered threshold. Form [D], coefficients [T] (<see cref="CornerCoefficients"/>).
 /// </summary>
 /// <remarks>

@@ -2,7 +2,7 @@ namespace FinWatch.Physics.Analytic;
 
 /// <summary>
 /// Corner-device trend coefficients of D.2: κ(ρ) = <paramref name="KappaAtSharp"/> − <paramref name="KappaSlope"/>·ρ,
-/// ΔV_c0 and w_c. The defaults are TREND values [T] fitted to the note's 2-D prototype (8 × 40 nm fin, 1 nm SiO₂),
+/// ΔV_c0 and w_c. The defaults are TREND values [T] fitted to 2-D computations of the model's own (8 × 40 nm fin, 1 nm SiO₂),
 /// not published values; recalibrate them with the production 2-D solver.
 /// </summary>
 /// <param name="KappaAtSharp">κ at ρ = 0 (sharp corner), dimensionless; default 0.55.</param>

@@ -1,8 +1,8 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// Physical constants of the analytic model (design note fin-model.md, section 0). Fundamental constants are
-/// CODATA 2018; material values are the note's choices (Sze &amp; Ng; Stern &amp; Howard; nᵢ = 1.0e10 cm⁻³).
+/// Physical constants of the analytic model (docs/model.md §0). Fundamental constants are
+/// CODATA 2018; material values as chosen in docs/model.md §0 (Sze &amp; Ng; Stern &amp; Howard; nᵢ = 1.0e10 cm⁻³).
 /// </summary>
 /// <remarks>Internal electrostatics use cm (ε in F/cm, densities in cm⁻³); every public model interface uses nm.</remarks>
 public static class PhysicalConstants
@@ -22,7 +22,7 @@ public static class PhysicalConstants
     /// <summary>Vacuum permittivity ε₀, in F/cm (CODATA 2018).</summary>
     public const double VacuumPermittivityFPerCm = 8.8541878128e-14;
 
-    /// <summary>Model temperature T, in K (the note's T = 300 K).</summary>
+    /// <summary>Model temperature T, in K (docs/model.md §0: T = 300 K).</summary>
     public const double TemperatureK = 300.0;
 
     /// <summary>Thermal voltage v_t = k_B T/q at 300 K, in V (≈ 0.0258520 V).</summary>

@@ -3,7 +3,7 @@ namespace FinWatch.Physics.Analytic;
 /// <summary>
 /// A fin in the independent profile basis of G.4: w_mid (nm), θ at fixed w_mid (degrees), H (nm), r (nm), EOT (nm).
 /// W_t = w_mid − H·tan θ and W_b = w_mid + H·tan θ (A.1, A.3). The height direction keeps W_t and W_b fixed
-/// (so θ follows H); the taper direction keeps w_mid and H fixed. This is the chart in which the note's G.4 example
+/// (so θ follows H); the taper direction keeps w_mid and H fixed. This is the chart in which the G.4 example of docs/model.md
 /// table was computed ([D] prototype: its H row equals the fixed-W_t/W_b derivative).
 /// </summary>
 /// <param name="MidWidthNm">w_mid in nm.</param>

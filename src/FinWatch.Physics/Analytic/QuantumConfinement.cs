@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// Quantum confinement across the fin width (design note fin-model.md, C.1–C.3): particle-in-a-box subbands and
+/// Quantum confinement across the fin width (docs/model.md §C.1–C.3): particle-in-a-box subbands and
 /// the density-of-states corrected threshold shift for volume inversion in a flat potential.
 /// </summary>
 /// <remarks>

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// Electrostatic natural length λ (design note fin-model.md, B.1–B.3): the slowest source/drain perturbation
+/// Electrostatic natural length λ (docs/model.md §B.1–B.3): the slowest source/drain perturbation
 /// decays as exp(−y/λ). This is the Yan/Young convention; Frank–Taur–Wong's λ_FTW equals π·λ (B.1).
 /// </summary>
 /// <remarks>

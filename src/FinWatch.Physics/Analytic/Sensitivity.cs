@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// Linear sensitivities of the analytic model (design note fin-model.md, G.4): central differences at the nominal in
+/// Linear sensitivities of the analytic model (docs/model.md §G.4): central differences at the nominal in
 /// the independent basis {w_mid, θ at fixed w_mid, H, r, EOT, L_eff, N_A}, and propagation σ² = Sᵀ Σ S.
 /// </summary>
 /// <remarks>

@@ -2,7 +2,7 @@ namespace FinWatch.Physics.Analytic;
 
 /// <summary>
 /// Threshold roll-off, DIBL and swing from the quasi-2-D (Young/Yan) channel potential with the natural length λ
-/// (design note fin-model.md, B.5), solved exactly for the barrier minimum [D]; Liu et al. (1993) as the
+/// (docs/model.md §B.5), solved exactly for the barrier minimum [D]; Liu et al. (1993) as the
 /// leading-order cross-check.
 /// </summary>
 /// <remarks>

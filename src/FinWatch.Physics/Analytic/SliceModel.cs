@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// Tapered fin as parallel horizontal slices (design note fin-model.md, E.1–E.4): each slice is a local double
+/// Tapered fin as parallel horizontal slices (docs/model.md §E.1–E.4): each slice is a local double
 /// gate with its own long-channel threshold, quantum-confinement shift and short-channel shift; the device
 /// threshold is the constant-current "soft minimum" over the slices plus the D.2 corner device.
 /// </summary>

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Analytic;
 
 /// <summary>
-/// The per-record analytic pipeline (design note fin-model.md, G.2): validate, slice model with QC, SCE and corner,
+/// The per-record analytic pipeline (docs/model.md §G.2): validate, slice model with QC, SCE and corner,
 /// report the shifts against the product's nominal fin, the linear sensitivity estimate and the nonlinearity flag,
 /// all stamped with the parameter set and <see cref="CodeVersion"/>.
 /// </summary>
@@ -19,8 +19,11 @@ namespace FinWatch.Physics.Analytic;
 /// </remarks>
 public sealed class ThresholdModel
 {
-    /// <summary>Code version stamped on every prediction.</summary>
-    public const string CodeVersion = "FinWatch.Physics.Analytic/1.1.0 (fin-model.md B.5, C.3, D.2, E.1–E.4, G.2)";
+    /// <summary>
+    /// Code version stamped on every prediction: the model of docs/model.md §B.5, C.3, D.2, E.1–E.4 and G.2. Raise it
+    /// when a change to the code changes a prediction.
+    /// </summary>
+    public const string CodeVersion = "FinWatch.Physics.Analytic/1.1.0";
 
     /// <summary>Relative nonlinearity threshold of G.2 step 7 (20 %).</summary>
     public const double NonlinearRelative = 0.20;

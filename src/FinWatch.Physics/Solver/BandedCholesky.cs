@@ -5,8 +5,8 @@ using System.Runtime.InteropServices;
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// A symmetric positive definite band matrix and its in-place Cholesky factorisation A = L·Lᵀ (design note
-/// fin-model.md, F.5 option 1). Only the lower band is stored: row i holds columns i − b … i, where b is the
+/// A symmetric positive definite band matrix and its in-place Cholesky factorisation A = L·Lᵀ (
+/// docs/model.md §F.5 option 1). Only the lower band is stored: row i holds columns i − b … i, where b is the
 /// half-bandwidth. The cost of <see cref="Factorize"/> is at most n·b²/2 multiply–adds; a solve costs 2·n·b.
 /// </summary>
 /// <remarks>

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// The converged solution at one gate voltage (design note fin-model.md, F.4, F.6): potential and electron maps on
+/// The converged solution at one gate voltage (docs/model.md §F.4, F.6): potential and electron maps on
 /// the grid, the charges per unit channel length and the Newton convergence record.
 /// </summary>
 public sealed class BiasSolution

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// Corner population at one depth below the surface (design note fin-model.md, F.6, D.2): the electron density on the
+/// Corner population at one depth below the surface (docs/model.md §F.6, D.2): the electron density on the
 /// right top-corner bisector and at mid-sidewall, both at depth <see cref="DepthNm"/>, from bilinear interpolation of ψ.
 /// </summary>
 /// <param name="DepthNm">Depth d below the surface, in nm.</param>

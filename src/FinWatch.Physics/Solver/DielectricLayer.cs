@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// One layer of the gate dielectric stack, meshed with its physical thickness (design note fin-model.md, A.6, F.2).
+/// One layer of the gate dielectric stack, meshed with its physical thickness (docs/model.md §A.6, F.2).
 /// Layers are listed from the silicon outwards: the interfacial SiO₂ first, then the high-k.
 /// </summary>
 /// <param name="ThicknessNm">Physical thickness in nm; finite and &gt; 0.</param>

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// The meshed cross-section (design note fin-model.md, F.2, F.3): material classification, silicon fraction of
+/// The meshed cross-section (docs/model.md §F.2, F.3): material classification, silicon fraction of
 /// every control volume from 4 × 4 sub-samples, series–parallel edge coefficients (arithmetic mean over 4 lines
 /// across the dual face of the harmonic mean of 6 samples along the edge), gate (Dirichlet) nodes and the
 /// eigenmode mass h²·ε̄. Control volumes and dual faces are clipped to the domain, which gives the Neumann outer

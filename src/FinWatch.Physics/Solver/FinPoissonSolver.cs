@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// 2-D nonlinear Poisson–Boltzmann solver of the fin cross-section (design note fin-model.md, section F) and the
+/// 2-D nonlinear Poisson–Boltzmann solver of the fin cross-section (docs/model.md §F) and the
 /// scale-length eigenmode on the same mesh (B.4, F.8).
 /// </summary>
 /// <remarks>

@@ -5,7 +5,7 @@ using System.Text;
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// Input of the 2-D Poisson–Boltzmann solver of the fin cross-section (design note fin-model.md, section F):
+/// Input of the 2-D Poisson–Boltzmann solver of the fin cross-section (docs/model.md §F):
 /// the shape, the dielectric stack, the doping, the grid and the gate sweep. Lengths in nm, densities in cm⁻³,
 /// potentials in V.
 /// </summary>

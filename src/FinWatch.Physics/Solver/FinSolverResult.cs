@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// Result of a full 2-D what-if run (design note fin-model.md, F.6): the gate sweep, the constant-charge threshold,
+/// Result of a full 2-D what-if run (docs/model.md §F.6): the gate sweep, the constant-charge threshold,
 /// swing, C–V curve, second-derivative threshold, the maps re-solved at V_T and the corner population.
 /// </summary>
 /// <remarks>

@@ -2,7 +2,7 @@ namespace FinWatch.Physics.Solver;
 
 /// <summary>
 /// Thrown when the Newton iteration of the 2-D solver does not reach max|δψ| &lt; 1e-8 V within 80 iterations
-/// (design note fin-model.md, F.4: "raise an error, never return silently"), or when an inverse iteration does not converge.
+/// (docs/model.md §F.4: "raise an error, never return silently"), or when an inverse iteration does not converge.
 /// </summary>
 public sealed class PoissonConvergenceException : Exception
 {

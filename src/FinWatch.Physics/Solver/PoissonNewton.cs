@@ -1,8 +1,8 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// Damped Newton iteration for the discrete Poisson–Boltzmann equation on a <see cref="FinMesh"/> (design note
-/// fin-model.md, F.3–F.5). Gate nodes are eliminated by identity rows, so the Jacobian is SPD with half-bandwidth
+/// Damped Newton iteration for the discrete Poisson–Boltzmann equation on a <see cref="FinMesh"/> (
+/// docs/model.md §F.3–F.5). Gate nodes are eliminated by identity rows, so the Jacobian is SPD with half-bandwidth
 /// NodesX and is factorised by <see cref="BandedCholesky"/>.
 /// </summary>
 internal sealed class PoissonNewton

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// The electrostatic scale length of the meshed cross-section (design note fin-model.md, B.4, F.8): the smallest μ of
+/// The electrostatic scale length of the meshed cross-section (docs/model.md §B.4, F.8): the smallest μ of
 /// L_ff·u = μ·M·u with M = diag(h²·ε̄), Neumann at the fin foot, and λ = 1/√μ.
 /// </summary>
 /// <param name="ScaleLengthNm">Natural length λ = 1/k in nm (the exp(−y/λ) convention of B.1; λ_FTW = π·λ).</param>

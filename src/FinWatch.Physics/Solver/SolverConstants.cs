@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// Physical constants of the 2-D solver in its internal units (design note fin-model.md, section 0 and F.1):
+/// Physical constants of the 2-D solver in its internal units (docs/model.md §0 and F.1):
 /// lengths in nm, densities in nm⁻³, potentials in V.
 /// </summary>
 public static class SolverConstants
@@ -15,7 +15,7 @@ public static class SolverConstants
     /// <summary>Intrinsic density nᵢ at 300 K, 1.0e10 cm⁻³, expressed in nm⁻³ (section 0).</summary>
     public const double IntrinsicDensityPerNm3 = 1.0e-11;
 
-    /// <summary>Relative permittivity of silicon, 11.7 (section 0; Sze &amp; Ng, from memory in the note).</summary>
+    /// <summary>Relative permittivity of silicon, 11.7 (docs/model.md §0; Sze &amp; Ng, from memory [M]).</summary>
     public const double SiliconRelativePermittivity = 11.7;
 
     /// <summary>Relative permittivity of SiO₂, 3.9 (section 0); also used for the BOX / isolation oxide.</summary>

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// The uniform square grid of the 2-D solver (design note fin-model.md, F.2, F.3). Nodes are stored row by row,
+/// The uniform square grid of the 2-D solver (docs/model.md §F.2, F.3). Nodes are stored row by row,
 /// x fastest: node (i, j) has index j·<see cref="NodesX"/> + i and sits at
 /// (<see cref="OriginXNm"/> + i·h, <see cref="OriginYNm"/> + j·h). x is measured from the fin centre line and y
 /// (the z of <see cref="FinCrossSection"/>) up from the fin foot; the grid is symmetric about x = 0.

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// What the 2-D solver does not model (design note fin-model.md, F.10), as text for the UI.
+/// What the 2-D solver does not model (docs/model.md §F.10), as text for the UI.
 /// </summary>
 public static class SolverLimitations
 {

@@ -1,7 +1,7 @@
 namespace FinWatch.Physics.Solver;
 
 /// <summary>
-/// Progress of a running solve, reported after every Newton iteration (design note fin-model.md, F.4).
+/// Progress of a running solve, reported after every Newton iteration (docs/model.md §F.4).
 /// </summary>
 /// <param name="Stage">What is being computed.</param>
 /// <param name="BiasIndex">Zero-based index of the gate bias being solved; −1 for the final re-solve at V_T and for the eigenmode.</param>

@@ -3,7 +3,7 @@ using FinWatch.Statistics.Constants;
 namespace FinWatch.Statistics.Capability;
 
 /// <summary>
-/// Anderson–Darling test of normality, mean and variance estimated from the data ("case 3"), spc.md 6.
+/// Anderson–Darling test of normality, mean and variance estimated from the data ("case 3"), docs/statistics.md §6.
 /// Anderson and Darling (1952, 1954); Stephens (1974); D'Agostino and Stephens (1986), Table 4.9.
 /// </summary>
 public static class AndersonDarling
@@ -16,7 +16,7 @@ public static class AndersonDarling
     /// Tests the values for normality. With z_(i) = (x_(i) − x̄)/s (s the sample standard deviation,
     /// divisor n − 1) and F_i = Φ(z_(i)) on the sorted values:
     /// A² = −n − (1/n)·Σ (2i − 1)·[ln F_i + ln(1 − F_{n+1−i})]; A* = A²·(1 + 0.75/n + 2.25/n²); p from
-    /// the four-branch formula of spc.md 6, clipped to [0, 1] (and held at its minimum beyond A* ≈ 153.5,
+    /// the four-branch formula of docs/statistics.md §6, clipped to [0, 1] (and held at its minimum beyond A* ≈ 153.5,
     /// where the last branch would turn upward).
     /// </summary>
     /// <param name="values">The data; NaN marks a missing value and is skipped. The input is not modified.</param>
@@ -84,14 +84,14 @@ public static class AndersonDarling
     /// <summary>A* at which the quadratic of the last branch turns upward, 5.709/(2·0.0186) ≈ 153.47.</summary>
     internal const double LastBranchTurningPoint = 5.709 / (2.0 * 0.0186);
 
-    /// <summary>The p-value approximation of spc.md 6 (D'Agostino and Stephens 1986, Table 4.9, case 3),
+    /// <summary>The p-value approximation of docs/statistics.md §6 (D'Agostino and Stephens 1986, Table 4.9, case 3),
     /// not clipped.</summary>
     /// <remarks>
-    /// FinWatch decision (not in the note): the last branch exp(1.2937 − 5.709·A* + 0.0186·A*²) has its
+    /// FinWatch convention (docs/statistics.md): the last branch exp(1.2937 − 5.709·A* + 0.0186·A*²) has its
     /// minimum at A* ≈ 153.5 and read literally rises again, passing 1 at A* ≈ 307, so clipping alone would
     /// call grossly non-normal data (large n, strong skew) "p = 1". Beyond the turning point p is held at
     /// the minimum, exp(−436.8) ≈ 1e-190, which keeps p non-increasing in A*. Up to A* ≈ 153 this is the
-    /// note's formula exactly, and beyond it both are below 1e-189 until the literal formula turns up.
+    /// published formula exactly, and beyond it both are below 1e-189 until the literal formula turns up.
     /// </remarks>
     internal static double PValue(double aStar) => aStar switch
     {

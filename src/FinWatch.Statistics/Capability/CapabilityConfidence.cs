@@ -3,13 +3,13 @@ using MathNet.Numerics.Distributions;
 namespace FinWatch.Statistics.Capability;
 
 /// <summary>
-/// Normal-theory confidence limits for capability indices estimated from N individual values (spc.md 5.2).
+/// Normal-theory confidence limits for capability indices estimated from N individual values (docs/statistics.md §5.2).
 /// The same formulas serve Cp and Pp, and Cpk and Ppk.
 /// </summary>
 /// <remarks>
 /// The formulas assume that sigma was estimated by the sample standard deviation of one sample of N, with
 /// ν = N − 1 degrees of freedom. Used for within indices (sigma from Rbar/d2 or MRbar/d2 has fewer
-/// effective degrees of freedom), the intervals are slightly optimistic (spc.md 5.2 [conv]).
+/// effective degrees of freedom), the intervals are slightly optimistic (docs/statistics.md §5.2 [conv]).
 /// </remarks>
 public static class CapabilityConfidence
 {

@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Capability;
 
 /// <summary>
-/// Normal-theory process capability (within sigma) and performance (overall sigma) indices, spc.md 5.
+/// Normal-theory process capability (within sigma) and performance (overall sigma) indices, docs/statistics.md §5.
 /// All indices are dimensionless. A null member is undefined for these data or this specification, and
 /// <see cref="Reasons"/> then says why under the member's name; no member is ever NaN or infinite.
 /// </summary>
@@ -24,11 +24,11 @@ namespace FinWatch.Statistics.Capability;
 /// <param name="PpmOverall">Expected ppm outside the specification with sigma_o.</param>
 /// <param name="ConfidenceLevel">Level of the intervals and lower bounds, e.g. 0.95.</param>
 /// <param name="Intervals">Two-sided intervals keyed by <see cref="CapabilityIndexNames"/>: Cp and Pp by
-/// the chi-square method, Cpk and Ppk by Bissell (1990) (spc.md 5.2), all with ν = N − 1.</param>
+/// the chi-square method, Cpk and Ppk by Bissell (1990) (docs/statistics.md §5.2), all with ν = N − 1.</param>
 /// <param name="LowerBounds">One-sided lower confidence bounds at the same level, same keys.</param>
 /// <param name="Reasons">Why a member is null, keyed by member name ("Cp", "Ppk", "PpmWithin", …); for
 /// intervals and bounds the key is "Intervals.Cp" and so on.</param>
-/// <param name="IntervalNote">The caveat of spc.md 5.2 on the within intervals.</param>
+/// <param name="IntervalNote">The caveat of docs/statistics.md §5.2 on the within intervals.</param>
 public sealed record CapabilityResult(
     int N,
     double? Mean,

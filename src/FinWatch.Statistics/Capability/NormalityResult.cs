@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Capability;
 
 /// <summary>
-/// Result of the Anderson–Darling test for normality with mean and variance estimated (spc.md 6).
+/// Result of the Anderson–Darling test for normality with mean and variance estimated (docs/statistics.md §6).
 /// The statistic members are null when the test is undefined (<see cref="Reason"/> says why).
 /// </summary>
 /// <param name="N">Number of non-missing values used.</param>

@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Capability;
 
 /// <summary>
-/// Normal-theory expected fraction outside the specification, in parts per million (spc.md 5.1):
+/// Normal-theory expected fraction outside the specification, in parts per million (docs/statistics.md §5.1):
 /// below = Φ((LSL − x̄)/sigma)·10⁶, above = Φ(−(USL − x̄)/sigma)·10⁶.
 /// </summary>
 /// <param name="BelowLower">Expected ppm below LSL; null without a lower limit.</param>

@@ -4,14 +4,14 @@ namespace FinWatch.Statistics.Capability;
 
 /// <summary>
 /// Capability of non-normal data by the percentile method (Clements 1989; ISO 22514-2/-4 percentile
-/// indices), spc.md 7, with the percentiles taken from a fitted two-parameter lognormal distribution.
+/// indices), docs/statistics.md §7, with the percentiles taken from a fitted two-parameter lognormal distribution.
 /// </summary>
 public static class PercentileCapability
 {
     /// <summary>The label every result carries.</summary>
     public const string MethodLabel = "percentile method, fitted lognormal (overall variation)";
 
-    /// <summary>Lower tail probability, exactly 0.00135 (not Φ(−3) = 0.0013499, spc.md 7).</summary>
+    /// <summary>Lower tail probability, exactly 0.00135 (not Φ(−3) = 0.0013499, docs/statistics.md §7).</summary>
     public const double LowerTailProbability = 0.00135;
 
     /// <summary>Upper tail probability, exactly 0.99865.</summary>
@@ -19,7 +19,7 @@ public static class PercentileCapability
 
     /// <summary>
     /// Fits a two-parameter lognormal by maximum likelihood (mu = mean of ln x, sigma with divisor n) and
-    /// computes the percentile indices Cp, Cpu, Cpl, Cpk of spc.md 7 from x_0.00135, the median exp(mu) and
+    /// computes the percentile indices Cp, Cpu, Cpl, Cpk of docs/statistics.md §7 from x_0.00135, the median exp(mu) and
     /// x_0.99865.
     /// </summary>
     /// <param name="values">Positive measurements in data units; NaN marks a missing value and is skipped.</param>

@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Capability;
 
 /// <summary>
-/// Percentile-method capability from a fitted two-parameter lognormal distribution (spc.md 7). Fitted to
+/// Percentile-method capability from a fitted two-parameter lognormal distribution (docs/statistics.md §7). Fitted to
 /// all data, these are strictly performance indices (overall variation); see <see cref="Method"/>.
 /// Null members are undefined and <see cref="Reasons"/> says why under the member's name.
 /// </summary>

@@ -3,11 +3,11 @@ using FinWatch.Statistics.Constants;
 namespace FinWatch.Statistics.Capability;
 
 /// <summary>
-/// Normal-theory process capability and performance indices with confidence limits (spc.md 5).
+/// Normal-theory process capability and performance indices with confidence limits (docs/statistics.md §5).
 /// </summary>
 public static class ProcessCapability
 {
-    /// <summary>The caveat of spc.md 5.2, carried in every result.</summary>
+    /// <summary>The caveat of docs/statistics.md §5.2, carried in every result.</summary>
     public const string WithinIntervalNote =
         "Intervals assume sigma estimated by the sample standard deviation of one sample of N (nu = N - 1); "
         + "applied to the within indices, whose sigma comes from ranges or moving ranges with fewer effective "
@@ -15,7 +15,7 @@ public static class ProcessCapability
 
     /// <summary>
     /// Computes Cp, Cpu, Cpl, Cpk (within sigma), Pp, Ppu, Ppl, Ppk (overall sigma), Cpm, the normal-theory
-    /// ppm outside the specification, and confidence limits (spc.md 5.1, 5.2).
+    /// ppm outside the specification, and confidence limits (docs/statistics.md §5.1, 5.2).
     /// </summary>
     /// <param name="values">Individual measurements in data units; NaN marks a missing value and is
     /// skipped. The mean x̄ is that of all non-missing values.</param>

@@ -7,7 +7,7 @@ namespace FinWatch.Statistics.Capability;
 /// <param name="Lower">Lower specification limit LSL, or null.</param>
 /// <param name="Upper">Upper specification limit USL, or null.</param>
 /// <param name="Target">Target value T for Cpm; when null and both limits are given, the midpoint
-/// (LSL + USL)/2 is used (spc.md 5.1).</param>
+/// (LSL + USL)/2 is used (docs/statistics.md §5.1).</param>
 /// <remarks>Limits and target must be finite and LSL &lt; USL; the capability functions throw
 /// <see cref="ArgumentOutOfRangeException"/> otherwise.</remarks>
 public readonly record struct SpecLimits(double? Lower, double? Upper, double? Target = null)

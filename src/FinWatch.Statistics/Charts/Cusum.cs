@@ -1,6 +1,6 @@
 namespace FinWatch.Statistics.Charts;
 
-/// <summary>Batch two-sided tabular CUSUM (spc.md §4.2), built point by point on <see cref="CusumAccumulator"/>.</summary>
+/// <summary>Batch two-sided tabular CUSUM (docs/statistics.md §4.2), built point by point on <see cref="CusumAccumulator"/>.</summary>
 public static class Cusum
 {
     /// <summary>

@@ -2,7 +2,7 @@ namespace FinWatch.Statistics.Charts;
 
 /// <summary>
 /// Incremental two-sided tabular CUSUM (Page 1954; tabular form as in Montgomery §9.1 and NIST §6.3.2.3;
-/// spc.md §4.2): C⁺_i = max(0, C⁺_{i−1} + x_i − (μ0 + K)), C⁻_i = max(0, C⁻_{i−1} + (μ0 − K) − x_i),
+/// docs/statistics.md §4.2): C⁺_i = max(0, C⁺_{i−1} + x_i − (μ0 + K)), C⁻_i = max(0, C⁻_{i−1} + (μ0 − K) − x_i),
 /// signal when a sum is strictly greater than H.
 /// </summary>
 /// <remarks>
@@ -10,7 +10,7 @@ namespace FinWatch.Statistics.Charts;
 /// signal is an application decision (create a new accumulator).</para>
 /// <para>An optional head start (fast initial response, Lucas &amp; Crosier 1982) sets C⁺_0 = C⁻_0 to it; the
 /// counts N⁺, N⁻ still start at 0, so they count only periods after the start.</para>
-/// <para>Missing values (NaN) are skipped: the sums and counts carry over (spc.md §4.1/§4.2 [conv]).
+/// <para>Missing values (NaN) are skipped: the sums and counts carry over (docs/statistics.md §4.1/§4.2 [conv]).
 /// Each <see cref="Append"/> is O(1).</para>
 /// </remarks>
 public sealed class CusumAccumulator

@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Charts;
 
 /// <summary>
-/// One period of a two-sided tabular CUSUM (spc.md §4.2), as returned by <see cref="CusumAccumulator.Append"/>.
+/// One period of a two-sided tabular CUSUM (docs/statistics.md §4.2), as returned by <see cref="CusumAccumulator.Append"/>.
 /// Sums and means are in data units.
 /// </summary>
 /// <param name="CPlus">Upper sum C⁺_i ≥ 0; NaN for a missing value.</param>

@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Charts;
 
 /// <summary>
-/// A two-sided tabular CUSUM over a whole series (spc.md §4.2), from <see cref="Cusum.Compute"/>. Per-index arrays
+/// A two-sided tabular CUSUM over a whole series (docs/statistics.md §4.2), from <see cref="Cusum.Compute"/>. Per-index arrays
 /// have the length of the input and are indexed by input row; sums and means are in data units; missing rows hold
 /// NaN sums and means and −1 counts.
 /// </summary>

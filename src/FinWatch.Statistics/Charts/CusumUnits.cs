@@ -1,6 +1,6 @@
 namespace FinWatch.Statistics.Charts;
 
-/// <summary>How the tabular CUSUM parameters k, h and the head start are expressed (spc.md §4.2).</summary>
+/// <summary>How the tabular CUSUM parameters k, h and the head start are expressed (docs/statistics.md §4.2).</summary>
 public enum CusumUnits
 {
     /// <summary>k, h and the head start are multiples of σ: K = k·σ, H = h·σ, C_0 = headStart·σ.</summary>

@@ -1,6 +1,6 @@
 namespace FinWatch.Statistics.Charts;
 
-/// <summary>Batch EWMA chart (spc.md §4.1), built point by point on <see cref="EwmaAccumulator"/>.</summary>
+/// <summary>Batch EWMA chart (docs/statistics.md §4.1), built point by point on <see cref="EwmaAccumulator"/>.</summary>
 public static class Ewma
 {
     /// <summary>

@@ -1,14 +1,14 @@
 namespace FinWatch.Statistics.Charts;
 
 /// <summary>
-/// Incremental EWMA chart (Roberts 1959; limits as in Lucas &amp; Saccucci 1990 and spc.md §4.1):
+/// Incremental EWMA chart (Roberts 1959; limits as in Lucas &amp; Saccucci 1990 and docs/statistics.md §4.1):
 /// z_0 = target, z_i = λ·x_i + (1 − λ)·z_{i−1}, with the exact limits
 /// target ± L·σ·√(λ/(2 − λ)·[1 − (1 − λ)^{2i}]) and a signal when z_i is strictly outside them.
 /// </summary>
 /// <remarks>
 /// <para>σ is the standard deviation of the plotted statistic (σ/√n for subgroup means), known or estimated
 /// by the caller; the accumulator does not estimate it. Each <see cref="Append"/> is O(1).</para>
-/// <para>Missing values (NaN) are skipped (spc.md §4.1 [conv]): z carries over unchanged and the index i
+/// <para>Missing values (NaN) are skipped (docs/statistics.md §4.1 [conv]): z carries over unchanged and the index i
 /// counts non-missing points only, so the limits of the next point are those of the next non-missing index.</para>
 /// </remarks>
 public sealed class EwmaAccumulator

@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Charts;
 
 /// <summary>
-/// One plotted point of an EWMA chart (spc.md §4.1), as returned by <see cref="EwmaAccumulator.Append"/>.
+/// One plotted point of an EWMA chart (docs/statistics.md §4.1), as returned by <see cref="EwmaAccumulator.Append"/>.
 /// </summary>
 /// <param name="Z">The EWMA statistic z_i after this point, in data units; <see cref="double.NaN"/> for a missing point.</param>
 /// <param name="Ucl">Exact (time-varying) upper limit for this point, in data units; <see cref="double.NaN"/> for a missing point.</param>

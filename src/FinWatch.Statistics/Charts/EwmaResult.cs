@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Charts;
 
 /// <summary>
-/// An EWMA chart over a whole series (spc.md §4.1), from <see cref="Ewma.Compute"/>. All per-index arrays have the
+/// An EWMA chart over a whole series (docs/statistics.md §4.1), from <see cref="Ewma.Compute"/>. All per-index arrays have the
 /// length of the input and are indexed by input row; missing rows hold <see cref="double.NaN"/>.
 /// </summary>
 /// <param name="Z">EWMA statistic z_i per input row, data units.</param>

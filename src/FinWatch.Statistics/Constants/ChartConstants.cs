@@ -2,7 +2,7 @@ namespace FinWatch.Statistics.Constants;
 
 /// <summary>
 /// The factors for variables control charts for subgroups of <paramref name="N"/> independent values from a
-/// normal distribution (spc.md 1.1). All factors are dimensionless; multiply them by sigma, by the mean
+/// normal distribution (docs/statistics.md §1.1). All factors are dimensionless; multiply them by sigma, by the mean
 /// range Rbar or by the mean standard deviation sbar in data units.
 /// </summary>
 /// <param name="N">Subgroup size, 2..25.</param>

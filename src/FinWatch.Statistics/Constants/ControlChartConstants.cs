@@ -4,16 +4,16 @@ namespace FinWatch.Statistics.Constants;
 
 /// <summary>
 /// Factors for variables control charts, d2, d3, c4, A2, A3, B3..B6, D1..D4, for subgroup sizes
-/// n = 2..25 (spc.md 1).
+/// n = 2..25 (docs/statistics.md §1).
 /// </summary>
 /// <remarks>
 /// <see cref="ConstantsMode.Exact"/> values are computed from their definitions, once, lazily and
 /// thread-safely, for all n together (a few milliseconds): d2 and d3 by quadrature (Tippett 1925; see
-/// spc.md 1.2), c4 = √(2/(n−1))·Γ(n/2)/Γ((n−1)/2) from log-gamma, and the other factors from those by the
-/// formulas of spc.md 1.1. Accuracy is about 2e-14 absolute for d2 and d3, and a few 1e-14 relative for c4 (limited by
+/// docs/statistics.md §1.2), c4 = √(2/(n−1))·Γ(n/2)/Γ((n−1)/2) from log-gamma, and the other factors from those by the
+/// formulas of docs/statistics.md §1.1. Accuracy is about 2e-14 absolute for d2 and d3, and a few 1e-14 relative for c4 (limited by
 /// MathNet's log-gamma).
-/// <see cref="ConstantsMode.Table"/> values are the printed factors (see spc.md 1.3); B5, B6, D1 and D2,
-/// which the note does not print, are the exact values rounded to three decimals.
+/// <see cref="ConstantsMode.Table"/> values are the printed factors (see docs/statistics.md §1.3); B5, B6, D1 and D2,
+/// which docs/statistics.md §1.3 does not print, are the exact values rounded to three decimals.
 /// </remarks>
 public static class ControlChartConstants
 {
@@ -93,7 +93,7 @@ public static class ControlChartConstants
             var p = PrintedChartFactors.Rows[i];
             var e = exact[i];
 
-            // B5, B6, D1, D2 are not printed in spc.md 1.3: the exact value rounded to three decimals.
+            // B5, B6, D1, D2 are not printed in docs/statistics.md §1.3: the exact value rounded to three decimals.
             result[i] = new ChartConstants(
                 N: p.N,
                 RangeMean: p.D2,

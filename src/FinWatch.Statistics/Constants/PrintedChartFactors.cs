@@ -2,14 +2,14 @@ namespace FinWatch.Statistics.Constants;
 
 /// <summary>
 /// The printed factors of Montgomery, <i>Introduction to Statistical Quality Control</i>, Appendix VI
-/// "Factors for Constructing Variables Control Charts", as transcribed in spc.md 1.3 (the value in
+/// "Factors for Constructing Variables Control Charts", as transcribed in docs/statistics.md §1.3 (the value in
 /// parentheses of each cell), used by <see cref="ConstantsMode.Table"/>.
 /// </summary>
 /// <remarks>
 /// This one table is by nature typed in: its point is to reproduce the printed digits, including the
-/// eight entries marked † in spc.md 1.3 that are one unit off the exactly computed value (for example
+/// eight entries marked † in docs/statistics.md §1.3 that are one unit off the exactly computed value (for example
 /// D4(3) = 2.574 where the exact value rounds to 2.575). Tests check every entry against the computed
-/// values. B5, B6, D1 and D2 are not printed in the note and are not part of this table.
+/// values. B5, B6, D1 and D2 are not printed in the table of docs/statistics.md §1.3 and are not part of this table.
 /// </remarks>
 internal static class PrintedChartFactors
 {

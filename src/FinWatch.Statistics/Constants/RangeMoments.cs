@@ -4,13 +4,13 @@ namespace FinWatch.Statistics.Constants;
 
 /// <summary>
 /// d2(n) = E[R]/sigma and d3(n) = sd(R)/sigma for the range R of n standard normal values, computed by
-/// composite Gauss–Legendre quadrature for every n in one pass (spc.md 1.2).
+/// composite Gauss–Legendre quadrature for every n in one pass (docs/statistics.md §1.2).
 /// </summary>
 /// <remarks>
 /// <para>d2 (Tippett 1925): d2 = ∫ [1 − Φ(x)ⁿ − (1 − Φ(x))ⁿ] dx = 2∫₀^∞ [...] dx because the integrand is
 /// even; 1 − Φⁿ is evaluated as −expm1(n·log Φ) with log Φ = log1p(−Q) to keep the tail precision.
 /// The range [0, 10] is enough: the integrand is below 25·Q(10) ≈ 2e-22 beyond it.</para>
-/// <para>d3 by the range-density route of spc.md 1.2: f_R(w) = n(n−1)∫φ(x)φ(x+w)[Φ(x+w) − Φ(x)]ⁿ⁻² dx and
+/// <para>d3 by the range-density route of docs/statistics.md §1.2: f_R(w) = n(n−1)∫φ(x)φ(x+w)[Φ(x+w) − Φ(x)]ⁿ⁻² dx and
 /// d3² = ∫ (w − d2)² f_R(w) dw (centred about d2, so there is no E[R²] − d2² cancellation). With
 /// x = v − w/2 the product φ(x)φ(x+w) is exp(−v² − w²/4)/(2π) and the bracket is even in v, so the inner
 /// integral is 2∫₀^7 (exp(−49) ≈ 5e-22), and the outer one is cut at w = 16 (exp(−64) ≈ 2e-28).

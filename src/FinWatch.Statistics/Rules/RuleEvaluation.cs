@@ -43,7 +43,7 @@ public sealed class RuleEvaluation
     /// <summary>
     /// For each evaluated rule, the input indices of the flagged points, ascending. <see langword="null"/> when the rule
     /// was not evaluable at all: a zone rule (<see cref="RunRules.IsZoneRule"/>) when no non-missing point had a
-    /// non-NaN z (sigma_point = 0, spc.md §3.3 item 9, or an empty series). N3 and N4 are always evaluable.
+    /// non-NaN z (sigma_point = 0, docs/statistics.md §3.3 item 9, or an empty series). N3 and N4 are always evaluable.
     /// </summary>
     public IReadOnlyDictionary<RunRule, IReadOnlyList<int>?> Flags { get; }
 

@@ -1,7 +1,7 @@
 namespace FinWatch.Statistics.Rules;
 
 /// <summary>
-/// The run rules of design note spc.md §3: the Western Electric (1956) zone rules as restated by Montgomery &amp; Runger
+/// The run rules of docs/statistics.md §3: the Western Electric (1956) zone rules as restated by Montgomery &amp; Runger
 /// (§3.1) and Nelson's (1984) tests for special causes (§3.2), read with the edge conventions of §3.3.
 /// </summary>
 /// <remarks>

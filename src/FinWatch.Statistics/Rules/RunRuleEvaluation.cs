@@ -1,13 +1,13 @@
 namespace FinWatch.Statistics.Rules;
 
-/// <summary>Batch evaluation of run rules over a whole series (spc.md §3).</summary>
+/// <summary>Batch evaluation of run rules over a whole series (docs/statistics.md §3).</summary>
 public static class RunRuleEvaluation
 {
     /// <summary>
     /// Evaluates the rules over a series by feeding a <see cref="RunRuleEvaluator"/> point by point, so the result is
     /// the incremental one by construction.
     /// </summary>
-    /// <param name="values">The plotted values; NaN marks a missing point, which is skipped and keeps its index (spc.md §3.3 item 8). Infinite values are rejected.</param>
+    /// <param name="values">The plotted values; NaN marks a missing point, which is skipped and keeps its index (docs/statistics.md §3.3 item 8). Infinite values are rejected.</param>
     /// <param name="z">(value − CL)/sigma_point for each row, same length; NaN where the zone rules are not evaluable (item 9; see <see cref="RunRuleEvaluator"/>). Ignored on missing rows.</param>
     /// <param name="rules">The rules to evaluate.</param>
     /// <exception cref="ArgumentException">The spans differ in length.</exception>

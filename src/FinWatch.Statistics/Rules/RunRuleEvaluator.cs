@@ -5,12 +5,12 @@ using System.Runtime.CompilerServices;
 namespace FinWatch.Statistics.Rules;
 
 /// <summary>
-/// Incremental run-rule evaluator (spc.md §3): append the points of a chart one at a time and receive the signals each
+/// Incremental run-rule evaluator (docs/statistics.md §3): append the points of a chart one at a time and receive the signals each
 /// point completes. O(1) work per appended point for all rules together (shift registers, capped run counters and two
 /// 16-slot index rings); no allocation per point except the pattern array of a raised signal.
 /// </summary>
 /// <remarks>
-/// <para>Conventions (spc.md §3.3): beyond k sigma is |z| &gt; k strictly and a point on a zone line is in the inner zone
+/// <para>Conventions (docs/statistics.md §3.3): beyond k sigma is |z| &gt; k strictly and a point on a zone line is in the inner zone
 /// (item 1); z == 0 is on neither side and ends WE4/N2 runs (item 2); WE2/N5 and WE3/N6 are one-sided with the odd point
 /// anywhere (item 3); the flagged point completes the pattern, and for 2-of-3 / 4-of-5 it must itself be beyond on that
 /// side, while run rules flag every point that ends a run of at least the required length (item 4); windows are
@@ -27,7 +27,7 @@ public sealed class RunRuleEvaluator
 {
     private const int RingMask = 15;
 
-    // Required lengths (spc.md §3.1, §3.2; §3.3 items 4 and 6). Counters are capped at these, so they never overflow.
+    // Required lengths (docs/statistics.md §3.1, §3.2; §3.3 items 4 and 6). Counters are capped at these, so they never overflow.
     private const int We4Run = 8;
     private const int N2Run = 9;
     private const int N3Steps = 5;
@@ -94,7 +94,7 @@ public sealed class RunRuleEvaluator
             throw new ArgumentOutOfRangeException(nameof(z), z, "z must be finite, or NaN when the zone rules are not evaluable.");
         }
 
-        // Trend and alternation over all appended points (N3, N4; spc.md §3.3 item 6: a zero difference ends both).
+        // Trend and alternation over all appended points (N3, N4; docs/statistics.md §3.3 item 6: a zero difference ends both).
         var sign = 0;
         if (s.Count > 0)
         {
@@ -149,7 +149,7 @@ public sealed class RunRuleEvaluator
         var down1 = z < -1;
 
         // Shift registers of the last 3 (beyond 2 sigma) and 5 (beyond 1 sigma) zone points, bit 0 = this point.
-        // Bits of points before the start are 0, which truncates the windows there (spc.md §3.3 item 5).
+        // Bits of points before the start are 0, which truncates the windows there (docs/statistics.md §3.3 item 5).
         s.Up2 = ((s.Up2 << 1) | (up2 ? 1u : 0u)) & 0b111u;
         s.Down2 = ((s.Down2 << 1) | (down2 ? 1u : 0u)) & 0b111u;
         s.Up1 = ((s.Up1 << 1) | (up1 ? 1u : 0u)) & 0b11111u;

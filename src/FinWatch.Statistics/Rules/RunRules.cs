@@ -1,15 +1,15 @@
 namespace FinWatch.Statistics.Rules;
 
-/// <summary>Rule sets, identifiers and classification of the <see cref="RunRule"/> values (spc.md §3.1, §3.2).</summary>
+/// <summary>Rule sets, identifiers and classification of the <see cref="RunRule"/> values (docs/statistics.md §3.1, §3.2).</summary>
 public static class RunRules
 {
     private static readonly string[] Ids = ["WE1", "WE2", "WE3", "WE4", "N1", "N2", "N3", "N4", "N5", "N6", "N7", "N8"];
 
-    /// <summary>The Western Electric zone rules WE1..WE4 (spc.md §3.1), in that order.</summary>
+    /// <summary>The Western Electric zone rules WE1..WE4 (docs/statistics.md §3.1), in that order.</summary>
     public static IReadOnlyList<RunRule> WesternElectric { get; } =
         Array.AsReadOnly([RunRule.WE1, RunRule.WE2, RunRule.WE3, RunRule.WE4]);
 
-    /// <summary>Nelson's tests N1..N8 (spc.md §3.2), in that order.</summary>
+    /// <summary>Nelson's tests N1..N8 (docs/statistics.md §3.2), in that order.</summary>
     public static IReadOnlyList<RunRule> Nelson { get; } =
         Array.AsReadOnly([RunRule.N1, RunRule.N2, RunRule.N3, RunRule.N4, RunRule.N5, RunRule.N6, RunRule.N7, RunRule.N8]);
 
@@ -57,7 +57,7 @@ public static class RunRules
     /// <summary>
     /// Whether the rule needs z (the zone position of the point): every rule except <see cref="RunRule.N3"/> and
     /// <see cref="RunRule.N4"/>, which look at the plotted values only. Zone rules are not evaluable when
-    /// sigma_point = 0 (spc.md §3.3 item 9).
+    /// sigma_point = 0 (docs/statistics.md §3.3 item 9).
     /// </summary>
     /// <exception cref="ArgumentOutOfRangeException"><paramref name="rule"/> is not a defined value.</exception>
     public static bool IsZoneRule(RunRule rule)

@@ -5,7 +5,7 @@ namespace FinWatch.Statistics.RunLength;
 /// <summary>
 /// Average run lengths (expected number of points to the first signal, counting the signalling point) of Shewhart,
 /// EWMA and tabular CUSUM charts for normally distributed, independent points with known in-control mean and σ
-/// (spc.md §4.3). Shifts δ are in sigma units of the plotted statistic (σ/√n for subgroup means); δ = 0 gives the
+/// (docs/statistics.md §4.3). Shifts δ are in sigma units of the plotted statistic (σ/√n for subgroup means); δ = 0 gives the
 /// in-control ARL. All functions are deterministic; each call takes from microseconds (Shewhart) to about 10 ms
 /// (EWMA with a small λ, the largest linear system).
 /// </summary>
@@ -122,15 +122,15 @@ public static class AverageRunLength
 
     /// <summary>
     /// Exact ARL of a Shewhart chart with zones at 1, 2 and 3 sigma and any non-empty subset of the Western Electric
-    /// rules (spc.md §3.1): "WE1" one point beyond 3 sigma; "WE2" two of three consecutive beyond 2 sigma on one side;
+    /// rules (docs/statistics.md §3.1): "WE1" one point beyond 3 sigma; "WE2" two of three consecutive beyond 2 sigma on one side;
     /// "WE3" four of five beyond 1 sigma on one side; "WE4" eight in a row on one side. Every point is N(δ, 1) in sigma
-    /// units, independent; the windows are truncated at the start of the series (spc.md §3.3).
+    /// units, independent; the windows are truncated at the start of the series (docs/statistics.md §3.3).
     /// </summary>
     /// <remarks>
     /// Method: Markov chain over the zone history (Champ &amp; Woodall 1987), reduced to its distinct states and solved
     /// by LU; exact up to rounding (relative error about 1e-12). With all four rules the in-control ARL is 91.75; with
     /// WE1 alone it equals <see cref="Shewhart"/>(3, δ). Points exactly on a zone line have probability zero, so the
-    /// boundary conventions of spc.md §3.3 do not affect the ARL. Nelson's tests (N1–N8) are out of scope for this exact
+    /// boundary conventions of docs/statistics.md §3.3 do not affect the ARL. Nelson's tests (N1–N8) are out of scope for this exact
     /// chain: their trend and alternation tests depend on the values, not only the zones.
     /// </remarks>
     /// <param name="ruleIds">Rule identifiers, each exactly "WE1", "WE2", "WE3" or "WE4" (ordinal, duplicates allowed).</param>

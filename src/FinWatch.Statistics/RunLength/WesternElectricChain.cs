@@ -5,11 +5,11 @@ using MathNet.Numerics.LinearAlgebra;
 namespace FinWatch.Statistics.RunLength;
 
 /// <summary>
-/// Exact ARL of a 3-sigma Shewhart chart with any subset of the Western Electric rules 1–4 (spc.md §3.1) by a Markov
+/// Exact ARL of a 3-sigma Shewhart chart with any subset of the Western Electric rules 1–4 (docs/statistics.md §3.1) by a Markov
 /// chain over the zone history (Champ &amp; Woodall 1987). Each point falls into one of eight zones (beyond ±3, ±(2, 3],
 /// ±(1, 2], ±(0, 1]); the state keeps only what the active rules need of the past: beyond-2-sigma sides of the last two
 /// points (WE2), beyond-1-sigma sides of the last four (WE3) and the signed same-side run length capped at 7 (WE4).
-/// Windows are truncated at the start (spc.md §3.3 item 5), so the chain starts from an empty history. States with the
+/// Windows are truncated at the start (docs/statistics.md §3.3 item 5), so the chain starts from an empty history. States with the
 /// same future are merged (Moore's partition refinement), which is exact because the zone probabilities do not
 /// depend on the state.
 /// </summary>

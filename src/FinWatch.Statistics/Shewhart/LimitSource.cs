@@ -1,6 +1,6 @@
 namespace FinWatch.Statistics.Shewhart;
 
-/// <summary>Where a chart's limits come from (spc.md 2.4).</summary>
+/// <summary>Where a chart's limits come from (docs/statistics.md §2.4).</summary>
 public enum LimitSource
 {
     /// <summary>Trial limits estimated from every point (phase I).</summary>

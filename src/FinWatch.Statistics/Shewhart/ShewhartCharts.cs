@@ -3,13 +3,13 @@ using FinWatch.Statistics.Constants;
 namespace FinWatch.Statistics.Shewhart;
 
 /// <summary>
-/// Shewhart charts of spc.md section 2: individuals and moving range, subgroup mean with range or standard deviation,
+/// Shewhart charts of docs/statistics.md §2: individuals and moving range, subgroup mean with range or standard deviation,
 /// unequal subgroup sizes (2.3) and data, baseline or known limits (2.4). Every limit is written through the sigma of
 /// individual values, <c>sigma_hat</c>, so one rule covers equal and unequal subgroups and reduces exactly to the
 /// textbook formulas (x̄̄ ± A2·R̄, D3·R̄, D4·R̄, …) when the sizes are equal.
 /// </summary>
 /// <remarks>
-/// Missing values are <see cref="double.NaN"/>. They are skipped (spc.md 3.3 item 8): the moving range after a gap is
+/// Missing values are <see cref="double.NaN"/>. They are skipped (docs/statistics.md §3.3 item 8): the moving range after a gap is
 /// taken between the values either side of it and is plotted at the later one. In <see cref="ConstantsMode.Table"/> with
 /// the usual multiplier 3 the printed factors are used directly (A2, A3, D3, D4, B3, B4, D1, D2, B5, B6); with another
 /// multiplier the factors are built from that mode's d2, d3 and c4. "Beyond the limits" is strict.
@@ -19,10 +19,10 @@ public static class ShewhartCharts
     /// <summary>The usual distance of the control limits from the centre line, in sigmas.</summary>
     public const double DefaultMultiplier = 3;
 
-    /// <summary>Individuals and moving-range chart (spc.md 2.1).</summary>
+    /// <summary>Individuals and moving-range chart (docs/statistics.md §2.1).</summary>
     /// <param name="values">One value per input position; NaN for a missing value.</param>
     /// <param name="limits">Where the limits come from.</param>
-    /// <param name="mode">Exact or printed constants (spc.md 1.4).</param>
+    /// <param name="mode">Exact or printed constants (docs/statistics.md §1.4).</param>
     /// <param name="multiplier">Limits at centre ± multiplier·sigma; &gt; 0.</param>
     /// <exception cref="ArgumentOutOfRangeException">The multiplier is not positive, or known limits lack a finite mean
     /// or a non-negative sigma, or a baseline count is not positive.</exception>
@@ -51,7 +51,7 @@ public static class ShewhartCharts
             if (previous >= 0)
             {
                 mr[i] = Math.Abs(values[i] - values[previous]);
-                // A moving range belongs to the estimate when both of its points do (spc.md 2.4).
+                // A moving range belongs to the estimate when both of its points do (docs/statistics.md §2.4).
                 if (limits.InEstimate(i) && limits.InEstimate(previous))
                 {
                     mrMoments.Add(mr[i]);
@@ -78,7 +78,7 @@ public static class ShewhartCharts
         return Finish(ShewhartChartType.IndividualsMovingRange, limits, center, sigma, primary, secondary, sizes, multiplier, warnings);
     }
 
-    /// <summary>Subgroup mean chart with range or standard-deviation chart, equal or unequal sizes (spc.md 2.2, 2.3).</summary>
+    /// <summary>Subgroup mean chart with range or standard-deviation chart, equal or unequal sizes (docs/statistics.md §2.2, 2.3).</summary>
     /// <param name="subgroups">The values of each subgroup (input position); NaN for a missing value inside a subgroup.</param>
     /// <param name="type"><see cref="ShewhartChartType.MeanRange"/> or <see cref="ShewhartChartType.MeanStandardDeviation"/>.</param>
     /// <param name="limits">Where the limits come from; positions are subgroups.</param>
@@ -133,7 +133,7 @@ public static class ShewhartCharts
             means[i] = g.Mean;
             if (limits.InEstimate(i))
             {
-                // x̄̄ = Σ n_i·x̄_i / Σ n_i, the mean of all individual values (spc.md 2.3).
+                // x̄̄ = Σ n_i·x̄_i / Σ n_i, the mean of all individual values (docs/statistics.md §2.3).
                 foreach (var v in subgroups[i])
                 {
                     if (!double.IsNaN(v))
@@ -149,7 +149,7 @@ public static class ShewhartCharts
                 spreads[i] = useRange ? max - min : g.SampleStandardDeviation;
                 if (limits.InEstimate(i))
                 {
-                    // Each term R_i/d2(n_i) or s_i/c4(n_i) is unbiased for sigma (spc.md 2.3).
+                    // Each term R_i/d2(n_i) or s_i/c4(n_i) is unbiased for sigma (docs/statistics.md §2.3).
                     sigmaTerms.Add(spreads[i] / (useRange ? c.RangeMean : c.C4));
                 }
             }
@@ -160,7 +160,8 @@ public static class ShewhartCharts
 
         if (sizes.Where(k => k > 0).Distinct().Skip(1).Any())
         {
-            warnings.Add("Subgroup sizes differ, so the limits vary from point to point (spc.md 2.3).");
+            // docs/statistics.md §2.3
+            warnings.Add("Subgroup sizes differ, so the limits vary from point to point.");
         }
 
         var s = sigma ?? double.NaN;
@@ -179,7 +180,7 @@ public static class ShewhartCharts
 
             if (sizes[i] == 1)
             {
-                // A single value is plotted against the individuals limits and has no spread point (spc.md 2.3).
+                // A single value is plotted against the individuals limits and has no spread point (docs/statistics.md §2.3).
                 pUpper[i] = center + (multiplier * s);
                 pLower[i] = center - (multiplier * s);
                 continue;
@@ -245,7 +246,7 @@ public static class ShewhartCharts
         var zeroSigma = false;
         for (var i = 0; i < z.Length; i++)
         {
-            // sigma_point is the third (1/multiplier) of the distance from the centre line to the limit (spc.md 3.3).
+            // sigma_point is the third (1/multiplier) of the distance from the centre line to the limit (docs/statistics.md §3.3).
             var sigmaPoint = (primary.Upper[i] - primary.Center[i]) / multiplier;
             if (double.IsNaN(primary.Values[i]) || !(sigmaPoint > 0))
             {

@@ -4,12 +4,12 @@ namespace FinWatch.Statistics.Shewhart;
 
 /// <summary>
 /// Trial limits from stored subgroup summaries (mean, size, sample standard deviation) rather than raw values, by the
-/// conventions of spc.md 2.1 and 2.3, so a live chart can recompute its limits from its plotted points alone.
+/// conventions of docs/statistics.md §2.1 and 2.3, so a live chart can recompute its limits from its plotted points alone.
 /// </summary>
 public static class SummaryLimits
 {
     /// <summary>
-    /// Xbar-S limits of spc.md 2.3 from summaries: centre x̿ = Σ nᵢ x̄ᵢ / Σ nᵢ and σ̂ = mean over the subgroups with
+    /// Xbar-S limits of docs/statistics.md §2.3 from summaries: centre x̿ = Σ nᵢ x̄ᵢ / Σ nᵢ and σ̂ = mean over the subgroups with
     /// nᵢ ≥ 2 of sᵢ/c4(nᵢ). Identical to <see cref="ShewhartCharts.Subgroups"/> with
     /// <see cref="ShewhartChartType.MeanStandardDeviation"/> on the raw values (tests).
     /// </summary>
@@ -47,7 +47,7 @@ public static class SummaryLimits
     }
 
     /// <summary>
-    /// I-MR limits of spc.md 2.1: centre x̄ and σ̂ = MR̄/d2(2), d2(2) = 2/√π, over the moving ranges of consecutive values.
+    /// I-MR limits of docs/statistics.md §2.1: centre x̄ and σ̂ = MR̄/d2(2), d2(2) = 2/√π, over the moving ranges of consecutive values.
     /// </summary>
     /// <param name="values">The plotted values in order.</param>
     /// <returns>The centre and σ̂; σ̂ is null for fewer than two values.</returns>
@@ -72,7 +72,7 @@ public static class SummaryLimits
         return (sum / values.Length, values.Length >= 2 ? mr / (values.Length - 1) / (2 / Math.Sqrt(Math.PI)) : null);
     }
 
-    /// <summary>c4(n) = √(2/(n − 1))·Γ(n/2)/Γ((n − 1)/2) (spc.md 1.1), for any n ≥ 2.</summary>
+    /// <summary>c4(n) = √(2/(n − 1))·Γ(n/2)/Γ((n − 1)/2) (docs/statistics.md §1.1), for any n ≥ 2.</summary>
     /// <param name="n">Subgroup size, ≥ 2.</param>
     /// <returns>c4.</returns>
     public static double C4(int n)

@@ -3,7 +3,7 @@ using FinWatch.Physics.Analytic;
 namespace FinWatch.Physics.Tests.Analytic;
 
 /// <summary>
-/// The G.3 calibration (fin-model.md): a ridge fit of L_eff, the barrier height V_bi − φ_th and the threshold offset.
+/// The G.3 calibration (docs/model.md): a ridge fit of L_eff, the barrier height V_bi − φ_th and the threshold offset.
 /// Checked on synthetic electrical tests made by the model itself with known parameters and seeded noise — a consistency
 /// check of the estimator (it must recover what generated the data within its own stated uncertainty), not a published value.
 /// </summary>

@@ -2,7 +2,7 @@ using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Physics.Tests.Analytic;
 
-/// <summary>E.3 charge-interpolated sub-devices (fin-model.md E.3, D.3).</summary>
+/// <summary>E.3 charge-interpolated sub-devices (docs/model.md §E.3, D.3).</summary>
 public sealed class ChargeInterpolationTests
 {
     private const double Vt = PhysicalConstants.ThermalVoltageV;
@@ -21,7 +21,7 @@ public sealed class ChargeInterpolationTests
     public void ChargeInterpolated_StrongCornerExample_ShiftsThresholdByMinus23Mv()
     {
         // D.3 example [D] prototype, not a published source: f_c = 2 % and ΔV_c = 200 mV give ΔV_T = −23 mV
-        // (main device swing 65 mV/dec, EOT 1 nm, N_crit 1e11 cm⁻²). The note's maximum swing of 151 mV/dec is NOT
+        // (main device swing 65 mV/dec, EOT 1 nm, N_crit 1e11 cm⁻²). The earlier expectation of a 151 mV/dec maximum swing is NOT
         // reproduced by this reading of E.3 (we get ≈ 71 mV/dec); see the report. Here only the swing rise is checked.
         double n = 0.065 / (Vt * Math.Log(10));
         ChargeInterpolatedResult r = SliceModel.ChargeInterpolated([0, -0.2], [n, n], [0.98, 0.02], 1.0, 1e11);

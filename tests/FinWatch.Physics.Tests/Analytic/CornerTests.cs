@@ -2,7 +2,7 @@ using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Physics.Tests.Analytic;
 
-/// <summary>Corner device (fin-model.md D.2; coefficients are [T] trend values from the note's prototype, not published).</summary>
+/// <summary>Corner device (docs/model.md §D.2; coefficients are [T] trend values from the model's own 2-D computations, not published).</summary>
 public sealed class CornerTests
 {
     private const double Vt = PhysicalConstants.ThermalVoltageV;

@@ -4,7 +4,7 @@ namespace FinWatch.Physics.Tests.Analytic;
 
 /// <summary>
 /// The Gauss–Legendre form of the slice model (<see cref="QuadratureSliceModel"/>) against the 200-slice midpoint sum of
-/// fin-model.md E.1–E.4 (<see cref="SliceModel.Evaluate(SliceModelInput)"/>), and its exact per-node pieces against the
+/// docs/model.md §E.1–E.4 (<see cref="SliceModel.Evaluate(SliceModelInput)"/>), and its exact per-node pieces against the
 /// reference implementations (B.2, B.5, C.3, E.1, E.2).
 /// </summary>
 public sealed class QuadratureSliceModelTests

@@ -2,7 +2,7 @@ using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Physics.Tests.Analytic;
 
-/// <summary>Quantum confinement across the fin (fin-model.md C.1–C.3).</summary>
+/// <summary>Quantum confinement across the fin (docs/model.md §C.1–C.3).</summary>
 public sealed class QuantumConfinementTests
 {
     [Fact]
@@ -33,7 +33,7 @@ public sealed class QuantumConfinementTests
     [Fact]
     public void ValleySets_110And100_MatchMassTable()
     {
-        // C.2 table (Stern & Howard 1967 [M]; re-derived in the note's prototype [D]).
+        // C.2 table (Stern & Howard 1967 [M]; re-derived by the model's own computation [D]).
         ReadOnlySpan<ValleySet> s110 = QuantumConfinement.ValleySets(ConfinementSurface.Si110);
         Assert.Equal(4, s110[0].Degeneracy);
         Assert.Equal(0.315, s110[0].ConfinementMassRatio, 0.0005);

@@ -2,7 +2,7 @@ using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Physics.Tests.Analytic;
 
-/// <summary>Natural length λ (fin-model.md B.1–B.3).</summary>
+/// <summary>Natural length λ (docs/model.md §B.1–B.3).</summary>
 public sealed class ScaleLengthTests
 {
     private const double EpsSi = 11.7;

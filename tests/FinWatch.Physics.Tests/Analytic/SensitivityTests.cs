@@ -3,8 +3,8 @@ using FinWatch.Physics.Analytic;
 namespace FinWatch.Physics.Tests.Analytic;
 
 /// <summary>
-/// G.4 sensitivity table. Expected values are the note's example table: [D] prototype, not a published source;
-/// each is checked to the precision the note quotes (half a unit of its last digit).
+/// G.4 sensitivity table. Expected values are the example table of docs/model.md §G.4: [D] prototype, not a published source;
+/// each is checked to the precision that table quotes (half a unit of its last digit).
 /// </summary>
 public sealed class SensitivityTests
 {

@@ -2,7 +2,7 @@ using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Physics.Tests.Analytic;
 
-/// <summary>Quasi-2-D barrier, threshold shift, DIBL and swing (fin-model.md B.5).</summary>
+/// <summary>Quasi-2-D barrier, threshold shift, DIBL and swing (docs/model.md §B.5).</summary>
 public sealed class ShortChannelTests
 {
     private const double Vt = PhysicalConstants.ThermalVoltageV;

@@ -2,7 +2,7 @@ using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Physics.Tests.Analytic;
 
-/// <summary>The per-slice working of the slice model (fin-model.md E.1, E.2, E.4).</summary>
+/// <summary>The per-slice working of the slice model (docs/model.md §E.1, E.2, E.4).</summary>
 public sealed class SliceDetailTests
 {
     private static SliceModelInput Input(FinProfile p, GatedFaces faces) =>

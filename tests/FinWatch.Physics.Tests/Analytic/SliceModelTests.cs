@@ -2,7 +2,7 @@ using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Physics.Tests.Analytic;
 
-/// <summary>Tapered fin as parallel slices (fin-model.md E.1–E.4).</summary>
+/// <summary>Tapered fin as parallel slices (docs/model.md §E.1–E.4).</summary>
 public sealed class SliceModelTests
 {
     private const double Vt = PhysicalConstants.ThermalVoltageV;

@@ -2,7 +2,7 @@ using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Physics.Tests.Analytic;
 
-/// <summary>Per-record pipeline (fin-model.md G.2): differences against the nominal, warnings, linear estimate and stamp.</summary>
+/// <summary>Per-record pipeline (docs/model.md §G.2): differences against the nominal, warnings, linear estimate and stamp.</summary>
 public sealed class ThresholdModelTests
 {
     private static ThresholdModel Model => AnalyticFixtures.G4Model;

@@ -1,8 +1,8 @@
 namespace FinWatch.Physics.Tests.Solver;
 
 /// <summary>
-/// Independent closed-form references for the 2-D solver tests, written from the equations in the design note
-/// (fin-model.md) and the textbook derivations cited beside each method. Units: nm, V, densities in nm⁻³,
+/// Independent closed-form references for the 2-D solver tests, written from the equations in docs/model.md
+/// (docs/model.md) and the textbook derivations cited beside each method. Units: nm, V, densities in nm⁻³,
 /// q/ε₀ = 18.0951 V·nm (section 0).
 /// </summary>
 internal static class AnalyticReferences

@@ -12,7 +12,7 @@ public sealed partial class FinPoissonSolverTests
     {
         // Source: B.3 numerical check [T/D] — the meshed λ agrees with the separable exact-root formula
         // 1/λ² = 1/λ_W² + 1/λ_H² (λ_H from t_si = 2H) within 0.1 % for 8 × 40 nm and 0.3 % for 10 × 10 nm at
-        // t_ox = 1 nm. These are prototype values of the design note, not published results; the exact root is
+        // t_ox = 1 nm. These are model values [T] (docs/model.md §F.8), not published results; the exact root is
         // computed independently in AnalyticReferences. Also F.9 case 5.
         FinSolverRequest request = Request(new FinProfile(w, w, h, 0), grid);
 

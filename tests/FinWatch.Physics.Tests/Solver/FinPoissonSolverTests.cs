@@ -3,7 +3,7 @@ using FinWatch.Physics.Solver;
 namespace FinWatch.Physics.Tests.Solver;
 
 /// <summary>
-/// Built-in validation cases of the 2-D solver (design note fin-model.md, F.9), conservation and symmetry checks.
+/// Built-in validation cases of the 2-D solver (docs/model.md §F.9), conservation and symmetry checks.
 /// Grids are coarser than the F.7 production grid (0.2 nm) so that the class runs in a few seconds; the tolerances
 /// state the grid they were set for.
 /// </summary>
@@ -138,7 +138,7 @@ public sealed partial class FinPoissonSolverTests
     {
         // Source: D.2 compact corner model, ΔV_c = ΔV_c0 + κ(ρ)·q N_A W_t/(2 C_ox) with κ(ρ) ≈ 0.55 − 0.19ρ and
         // ΔV_c0 ≈ 2.5 mV, and D.3 "sharp vs r = 3 nm gives 1.2 mV (tall) at 5e18 cm⁻³". Both are TREND values fitted
-        // to or read from the note's 2-D prototype (8 × 40 nm, 1 nm SiO₂, 0.5 nm depth), not published. Checked here
+        // to or read from earlier 2-D computations of the model's own (8 × 40 nm, 1 nm SiO₂, 0.5 nm depth), not published. Checked here
         // at h = 0.25 nm: the local lowering within 10 %, the rounding shift of V_T within a factor of 2.
         FinSolverRequest sharpRequest = Request(new FinProfile(8, 8, 40, 0), 0.25) with
         {

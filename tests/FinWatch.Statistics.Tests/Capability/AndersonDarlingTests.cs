@@ -8,7 +8,7 @@ public class AndersonDarlingTests
     private static readonly double[] SmallSet = [2.1, 3.4, 1.9, 5.6, 4.4, 3.3, 2.8, 4.9, 3.9, 4.1];
     private static readonly double[] Skewed = [1, 1, 1, 1, 2, 2, 3, 5, 8, 13, 21, 34];
 
-    // The defining formula of spc.md 6 (Stephens 1974; D'Agostino and Stephens 1986), written out here
+    // The defining formula of docs/statistics.md §6 (Stephens 1974; D'Agostino and Stephens 1986), written out here
     // independently with MathNet's Φ and a plain ln(1 − F).
     private static double DefiningFormula(double[] x)
     {
@@ -38,7 +38,7 @@ public class AndersonDarlingTests
     public static TheoryData<double[]> DataSets() => new() { SmallSet, Skewed, new[] { 10.2, 9.8, 10.1, 9.9, 10.0, 10.3, 9.7, 10.6, 9.5, 10.05, 12.0, 8.9 } };
 
     // Hand values (computed outside .NET with Python's math and statistics.NormalDist from the formulas of
-    // spc.md 6): SmallSet A² = 0.129394799421, A* = 0.142010792365, p = 0.972263497286 (first branch);
+    // docs/statistics.md §6): SmallSet A² = 0.129394799421, A* = 0.142010792365, p = 0.972263497286 (first branch);
     // Skewed A² = 1.409313175214, A* = 1.519415767028, p from the last branch.
     [Fact]
     public void Test_HandComputedSets_MatchStatisticAndPValue()
@@ -57,7 +57,7 @@ public class AndersonDarlingTests
         Assert.True(skewed.PValue < 0.01);
     }
 
-    // Each branch of the p-value table of spc.md 6, at points inside and on the branch boundaries (a value
+    // Each branch of the p-value table of docs/statistics.md §6, at points inside and on the branch boundaries (a value
     // exactly at 0.2, 0.34 or 0.6 belongs to the branch above it). Expected values computed in Python
     // from the table.
     [Theory]
@@ -72,7 +72,7 @@ public class AndersonDarlingTests
     public void PValue_EachBranch_MatchesTableFormula(double aStar, double expected) =>
         Assert.Equal(expected, AndersonDarling.PValue(aStar), Math.Max(1e-12, expected * 1e-10));
 
-    // Decision beyond the note: past the turning point of the last branch (A* ≈ 153.5) p is held at its
+    // FinWatch convention (docs/statistics.md): past the turning point of the last branch (A* ≈ 153.5) p is held at its
     // minimum instead of rising to 1 (the literal formula exceeds 1 for A* > 307).
     [Fact]
     public void PValue_BeyondLastBranchTurningPoint_StaysAtMinimum()

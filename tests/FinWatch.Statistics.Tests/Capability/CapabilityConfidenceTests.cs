@@ -4,9 +4,9 @@ namespace FinWatch.Statistics.Tests.Capability;
 
 public class CapabilityConfidenceTests
 {
-    // spc.md case 22 (Montgomery, Introduction to SQC, ch. 8, setup confirmed in a secondary source; printed
+    // docs/statistics.md case 22 (Montgomery, Introduction to SQC, ch. 8, setup confirmed in a secondary source; printed
     // interval from memory): USL 62, LSL 38, n = 20, s = 1.75 → Ĉp = 24/10.5 = 2.2857; the book's
-    // 1.57 ≤ Cp ≤ 3.01 uses the rounded 2.29; from the unrounded Ĉp the lower limit is 1.565 (the note).
+    // 1.57 ≤ Cp ≤ 3.01 uses the rounded 2.29; from the unrounded Ĉp the lower limit is 1.565 (docs/statistics.md case 22).
     [Fact]
     public void CpInterval_MontgomeryCase22_ReproducesPrintedLimits()
     {
@@ -33,7 +33,7 @@ public class CapabilityConfidenceTests
         Assert.Equal(Math.Sqrt(10.117 / 19), CapabilityConfidence.CpLowerBound(1.0, 20, 0.95), 1e-4);
     }
 
-    // spc.md case 22, second part (Montgomery ch. 8, from memory per the note): Ĉpk = 1.33, n = 20 →
+    // docs/statistics.md case 22, second part (Montgomery ch. 8, from memory [M]): Ĉpk = 1.33, n = 20 →
     // 0.88 ≤ Cpk ≤ 1.78 by Bissell's formula. Hand value with z = 1.959964 (exact quantile, as the
     // reference implementation): 1.33·(1 ∓ 1.959964·√(1/(9·20·1.33²) + 1/38)) = 0.882606 / 1.777394.
     [Fact]
@@ -51,7 +51,7 @@ public class CapabilityConfidenceTests
     public void CpkLowerBound_Cpk133N20_MatchesHandValue() =>
         Assert.Equal(0.954535161759003, CapabilityConfidence.CpkLowerBound(1.33, 20, 0.95), 1e-12);
 
-    // Decision (not in the note): for Ĉpk ≤ 0 the algebraically identical form Ĉpk ∓ z·√(1/(9N) + Ĉpk²/(2(N−1)))
+    // FinWatch convention: for Ĉpk ≤ 0 the algebraically identical form Ĉpk ∓ z·√(1/(9N) + Ĉpk²/(2(N−1)))
     // keeps the interval finite and ordered; at Ĉpk = 0 its half-width is z/(3√N).
     [Fact]
     public void CpkInterval_ZeroAndNegativeEstimate_FiniteAndOrdered()

@@ -5,7 +5,7 @@ namespace FinWatch.Statistics.Tests.Capability;
 
 public class PercentileCapabilityTests
 {
-    // Hand-computed 5-point set (spc.md 7): x = e^0, e^0.5, e^1, e^1.5, e^2, so mu = 1 and
+    // Hand-computed 5-point set (docs/statistics.md §7): x = e^0, e^0.5, e^1, e^1.5, e^2, so mu = 1 and
     // sigma = √(mean of 1, 0.25, 0, 0.25, 1) = √0.5 (divisor n). With Φ⁻¹(0.99865) = 2.999976992703
     // (Python statistics.NormalDist): x_0.00135 = 0.325854578635, x_0.99865 = 22.675931484165,
     // median e = 2.718281828459; for LSL 0.5, USL 40: Cp = 1.767331726283, Cpu = 1.868041518651,
@@ -54,7 +54,7 @@ public class PercentileCapabilityTests
         AssertRelative(sigma, r.Sigma!.Value, 0.02);
     }
 
-    // spc.md 7: p = 0.00135 and 0.99865 exactly, not Φ(∓3); the percentiles use those probabilities.
+    // docs/statistics.md §7: p = 0.00135 and 0.99865 exactly, not Φ(∓3); the percentiles use those probabilities.
     [Fact]
     public void Lognormal_Percentiles_UseExactTailProbabilities()
     {

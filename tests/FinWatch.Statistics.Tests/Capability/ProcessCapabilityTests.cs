@@ -9,7 +9,7 @@ public class ProcessCapabilityTests
     private static double[] Case22Data() =>
         Enumerable.Range(1, 20).Select(i => 50.0 + (1.75 * (i - 10.5) / Math.Sqrt(35.0))).ToArray();
 
-    // spc.md case 22 end to end (Montgomery ch. 8): USL 62, LSL 38, s = 1.75, n = 20.
+    // docs/statistics.md case 22 end to end (Montgomery ch. 8): USL 62, LSL 38, s = 1.75, n = 20.
     [Fact]
     public void Compute_MontgomeryCase22_GivesCpAndItsInterval()
     {
@@ -87,7 +87,7 @@ public class ProcessCapabilityTests
         Assert.Equal(10.0, midpoint.CpmTarget);
     }
 
-    // spc.md 5.1: with only an upper limit, Cpk = Cpu and Cp, Pp (and Cpm) are undefined, with reasons.
+    // docs/statistics.md §5.1: with only an upper limit, Cpk = Cpu and Cp, Pp (and Cpm) are undefined, with reasons.
     [Fact]
     public void Compute_UpperLimitOnly_CpNullWithReasonAndCpkEqualsCpu()
     {
@@ -152,7 +152,7 @@ public class ProcessCapabilityTests
         AssertNoNonFinite(result);
     }
 
-    // spc.md 3.3.9: constant data give undefined (null with a reason) indices, never ±infinity.
+    // docs/statistics.md §3.3.9: constant data give undefined (null with a reason) indices, never ±infinity.
     [Fact]
     public void Compute_ConstantSeries_NullsWithReasonsNotInfinity()
     {

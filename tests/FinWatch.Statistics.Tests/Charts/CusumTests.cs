@@ -7,8 +7,8 @@ namespace FinWatch.Statistics.Tests.Charts;
 
 public class CusumTests
 {
-    // Montgomery, Introduction to SQC, Example 9.1 / Table 9.2 (spc.md §8 case 21): μ0 = 10, σ = 1, k = 0.5, h = 5.
-    // The 30 values are FROM MEMORY [M] (the brief's recollection; spc.md confirms only the first, 9.45, and the last, 10.52).
+    // Montgomery, Introduction to SQC, Example 9.1 / Table 9.2 (docs/statistics.md §8 case 21): μ0 = 10, σ = 1, k = 0.5, h = 5.
+    // The 30 values are FROM MEMORY [M] (recalled; docs/statistics.md §8 confirms only the first, 9.45, and the last, 10.52).
     private static readonly double[] MontgomeryTable92 =
     [
         9.45, 7.99, 9.29, 11.66, 12.16, 10.18, 8.04, 11.46, 9.20, 10.34,
@@ -17,7 +17,7 @@ public class CusumTests
     ];
 
     // C⁺ printed in Montgomery Table 9.2, two decimals. Periods 1–8 (0 … 1.00), 28–29 (4.47, 5.28) and 30 (5.30) are the
-    // figures quoted in spc.md §8 case 21 / §4.2; periods 9–27 are the book's column as recalled [M].
+    // figures quoted in docs/statistics.md §8 case 21 / §4.2; periods 9–27 are the book's column as recalled [M].
     private static readonly double[] MontgomeryPrintedCPlus =
     [
         0, 0, 0, 1.16, 2.82, 2.50, 0.04, 1.00, 0, 0,
@@ -25,15 +25,15 @@ public class CusumTests
         0.74, 0, 1.79, 2.79, 2.89, 3.47, 3.35, 4.47, 5.28, 5.30,
     ];
 
-    // NIST/SEMATECH e-Handbook §6.3.2.3 (spc.md §8 case 19): target 325, k = 0.3175, h = 4.1959, in data units. The 20
-    // group means are FROM MEMORY [M]; spc.md confirms the first (324.925) and the last (328.350).
+    // NIST/SEMATECH e-Handbook §6.3.2.3 (docs/statistics.md §8 case 19): target 325, k = 0.3175, h = 4.1959, in data units. The 20
+    // group means are FROM MEMORY [M]; docs/statistics.md confirms the first (324.925) and the last (328.350).
     private static readonly double[] NistGroupMeans =
     [
         324.925, 324.675, 324.725, 324.350, 325.350, 325.225, 324.125, 324.525, 325.225, 324.600,
         324.625, 325.150, 328.325, 327.250, 327.825, 328.500, 326.675, 327.775, 326.875, 328.350,
     ];
 
-    // NIST §6.3.2.3 S_hi and S_lo, printed to two decimals, as recalled [M] (spc.md quotes 19.04 for the last S_hi and
+    // NIST §6.3.2.3 S_hi and S_lo, printed to two decimals, as recalled [M] (docs/statistics.md quotes 19.04 for the last S_hi and
     // notes that ties such as 14.445 are printed 14.44, so the check allows half a unit either way).
     private static readonly double[] NistPrintedSHi =
     [
@@ -127,7 +127,7 @@ public class CusumTests
         Assert.Empty(result.SignalsLower);
     }
 
-    // Signal when C > H strictly (spc.md §4.2): with k = 0 and h = 2 in data units, x = 2 gives C⁺ = H exactly.
+    // Signal when C > H strictly (docs/statistics.md §4.2): with k = 0 and h = 2 in data units, x = 2 gives C⁺ = H exactly.
     [Fact]
     public void Compute_SumExactlyAtH_DoesNotSignal()
     {

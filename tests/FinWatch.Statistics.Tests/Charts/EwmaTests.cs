@@ -7,16 +7,16 @@ namespace FinWatch.Statistics.Tests.Charts;
 
 public class EwmaTests
 {
-    // NIST/SEMATECH e-Handbook §6.3.2.4 (spc.md §8 case 18): EWMA0 = 50, s = 2.0539, λ = 0.3, k = 3; the published EWMA
-    // series to two decimals, as quoted in spc.md §8.
+    // NIST/SEMATECH e-Handbook §6.3.2.4 (docs/statistics.md §8 case 18): EWMA0 = 50, s = 2.0539, λ = 0.3, k = 3; the published EWMA
+    // series to two decimals, as quoted in docs/statistics.md §8.
     private static readonly double[] NistPublishedEwma =
     [
         50.60, 49.52, 50.56, 50.18, 50.16, 49.21, 49.75, 49.85, 50.26, 50.33,
         50.11, 49.36, 49.52, 50.05, 49.38, 49.92, 50.73, 51.23, 51.94, 51.99,
     ];
 
-    // The 20 data values of the same example, FROM MEMORY [M]: spc.md confirms only the first (52.0) and the last (52.1),
-    // and the last ten equal the flow-rate data of NIST §6.3.2.2 quoted in spc.md case 17. Used only in the test that says
+    // The 20 data values of the same example, FROM MEMORY [M]: docs/statistics.md confirms only the first (52.0) and the last (52.1),
+    // and the last ten equal the flow-rate data of NIST §6.3.2.2 quoted in docs/statistics.md case 17. Used only in the test that says
     // so; the primary check of case 18 below does not depend on them.
     private static readonly double[] NistRecalledData =
     [
@@ -25,7 +25,7 @@ public class EwmaTests
     ];
 
     // NIST §6.3.2.4: UCL = 52.5884, LCL = 47.4115 from the asymptotic formula. NIST rounds √(λ/(2 − λ)) to 0.4201,
-    // which moves its LCL by 7e-5 from the unrounded 47.41157 (spc.md §8 case 18), hence 1e-4 there.
+    // which moves its LCL by 7e-5 from the unrounded 47.41157 (docs/statistics.md §8 case 18), hence 1e-4 there.
     [Fact]
     public void Compute_NistSection6324Parameters_MatchesPublishedAsymptoticLimits()
     {
@@ -35,7 +35,7 @@ public class EwmaTests
         Assert.Equal(47.4115, result.AsymptoticLcl, 1e-4);
     }
 
-    // NIST §6.3.2.4. The data are not all in spc.md, so they are derived here by inverting the published (rounded) EWMA
+    // NIST §6.3.2.4. The data are not all in docs/statistics.md, so they are derived here by inverting the published (rounded) EWMA
     // series, x_i = (z_i − 0.7·z_{i−1})/0.3 with z_0 = 50. The recursion run on these values must give the published
     // series back (to rounding of the inversion), stay inside the limits at every point (NIST: no point outside), and the
     // exact limits must approach the printed asymptotic ones.
@@ -78,7 +78,7 @@ public class EwmaTests
         Assert.Empty(result.Signals);
     }
 
-    // spc.md §4.1: at i = 1 the exact half-width is L·σ·√(λ/(2 − λ)·[1 − (1 − λ)²]) = L·σ·λ (algebra), and z_1 = λx + (1 − λ)μ0.
+    // docs/statistics.md §4.1: at i = 1 the exact half-width is L·σ·√(λ/(2 − λ)·[1 − (1 − λ)²]) = L·σ·λ (algebra), and z_1 = λx + (1 − λ)μ0.
     [Fact]
     public void Compute_SinglePoint_HasFirstPointLimitsLSigmaLambda()
     {
@@ -114,7 +114,7 @@ public class EwmaTests
         Assert.Empty(result.Signals);
     }
 
-    // spc.md §4.1 [conv]: a missing value is skipped; z carries over and i counts non-missing points, so the point after
+    // docs/statistics.md §4.1 [conv]: a missing value is skipped; z carries over and i counts non-missing points, so the point after
     // the gap has the limits of index 2, not 3.
     [Fact]
     public void Compute_MissingInMiddle_CarriesZAndCountsOnlyNonMissingPoints()
@@ -128,7 +128,7 @@ public class EwmaTests
         Assert.Equal(compact.Lcl[1], withGap.Lcl[2]);
     }
 
-    // Signal only when strictly outside (spc.md §4.1): with λ = 1 the chart is the individuals chart and the first
+    // Signal only when strictly outside (docs/statistics.md §4.1): with λ = 1 the chart is the individuals chart and the first
     // limit is target ± L·σ exactly; a point on the limit does not signal, one just beyond does.
     [Fact]
     public void Compute_PointExactlyOnLimit_DoesNotSignal()
@@ -236,7 +236,7 @@ public class EwmaTests
         });
     }
 
-    // λ = 1: z_i = 1·x_i + 0·z_{i−1} = x_i exactly (spc.md §4.1; the chart is the individuals chart).
+    // λ = 1: z_i = 1·x_i + 0·z_{i−1} = x_i exactly (docs/statistics.md §4.1; the chart is the individuals chart).
     [Property(MaxTest = 200)]
     public Property Compute_LambdaOne_EqualsRawValues()
     {
@@ -250,7 +250,7 @@ public class EwmaTests
         });
     }
 
-    // Removing the missing rows changes nothing but the row numbers (spc.md §4.1 [conv]).
+    // Removing the missing rows changes nothing but the row numbers (docs/statistics.md §4.1 [conv]).
     [Property(MaxTest = 200)]
     public Property Compute_MissingRows_EqualCompactedSeriesAtTheirRows()
     {

@@ -8,7 +8,7 @@ namespace FinWatch.Statistics.Tests.Constants;
 
 public class ControlChartConstantsTests
 {
-    // Closed forms (derivable analytically; spc.md 1.2): for n = 2, R = |X1 − X2| with X1 − X2 ~ N(0, 2), so
+    // Closed forms (derivable analytically; docs/statistics.md §1.2): for n = 2, R = |X1 − X2| with X1 − X2 ~ N(0, 2), so
     // E[R] = √2·√(2/π) = 2/√π and E[R²] = 2, giving d3 = √(2 − 4/π). For n = 3, E[R] = 3/√π (Tippett 1925).
     [Fact]
     public void RangeMean_N2_EqualsTwoOverSqrtPi() =>
@@ -23,7 +23,7 @@ public class ControlChartConstantsTests
         Assert.Equal(3.0 / Math.Sqrt(Math.PI), ControlChartConstants.Get(3).RangeMean, 1e-12);
 
     // c4 from the gamma function: c4(2) = √2·Γ(1)/Γ(1/2) = √(2/π); c4(3) = Γ(3/2)/Γ(1) = √π/2.
-    // Tolerances of 1e-13: the library takes c4 from MathNet's log-gamma (spc.md 1.2), whose last digits
+    // Tolerances of 1e-13: the library takes c4 from MathNet's log-gamma (docs/statistics.md §1.2), whose last digits
     // limit the relative accuracy to a few 1e-14 (measured up to 4.5e-14 at n = 24, 25).
     [Fact]
     public void C4_N2AndN3_EqualGammaClosedForms()
@@ -56,7 +56,7 @@ public class ControlChartConstantsTests
         Assert.Equal(mean / Math.Sqrt(n - 1), ControlChartConstants.Get(n).C4, 1e-12);
     }
 
-    // Second route for d3 (spc.md 1.2): E[R²] = 2∫∫_{x<y}[1 − Φ(y)ⁿ − (1 − Φ(x))ⁿ + (Φ(y) − Φ(x))ⁿ] dx dy,
+    // Second route for d3 (docs/statistics.md §1.2): E[R²] = 2∫∫_{x<y}[1 − Φ(y)ⁿ − (1 − Φ(x))ⁿ + (Φ(y) − Φ(x))ⁿ] dx dy,
     // here with y = x + w on a plain rectangle by MathNet's 2-D Gauss–Legendre rule on 1.5 × 1.5 panels, and d2 by plain
     // (non-expm1) adaptive quadrature. The library uses the range-density route instead.
     [Theory]
@@ -91,7 +91,7 @@ public class ControlChartConstantsTests
         Assert.Equal(d3, exact.RangeSd, 1e-12);
     }
 
-    // Monte Carlo sanity check of d2 and d3 (spc.md 1.2 quotes 400 000 samples within 2e-3): 200 000 seeded
+    // Monte Carlo sanity check of d2 and d3 (docs/statistics.md §1.2 quotes 400 000 samples within 2e-3): 200 000 seeded
     // subgroups of n = 9; the standard errors are about 0.002 (d2) and 0.0015 (d3), so 0.01 is 5 sigma.
     [Fact]
     public void RangeMeanAndSd_N9_AgreeWithSeededMonteCarlo()
@@ -110,7 +110,7 @@ public class ControlChartConstantsTests
         Assert.Equal(exact.RangeSd, moments.SampleStandardDeviation, 0.01);
     }
 
-    // Exact values to 6 decimals as listed in spc.md 1.3 (the reference implementation's values).
+    // Exact values to 6 decimals as listed in docs/statistics.md §1.3 (the reference implementation's values).
     [Fact]
     public void Exact_AllEntries_MatchNoteSixDecimalValues()
     {
@@ -131,7 +131,7 @@ public class ControlChartConstantsTests
         Assert.Empty(failures);
     }
 
-    // Montgomery, Introduction to Statistical Quality Control, Appendix VI, as transcribed in spc.md 1.3
+    // Montgomery, Introduction to Statistical Quality Control, Appendix VI, as transcribed in docs/statistics.md §1.3
     // (case 24_pub_constants_table): all 216 printed entries equal the exact value rounded to the printed
     // number of decimals, except exactly the eight † entries, which are one unit off in the last place.
     [Fact]
@@ -169,7 +169,7 @@ public class ControlChartConstantsTests
         Assert.Equal(daggers.Order(StringComparer.Ordinal), offByOne.Order(StringComparer.Ordinal));
     }
 
-    // Table mode returns the printed values digit for digit (spc.md 1.4), † entries included.
+    // Table mode returns the printed values digit for digit (docs/statistics.md §1.4), † entries included.
     [Fact]
     public void Table_AllPrintedColumns_EqualMontgomeryAppendixVIAsTranscribed()
     {
@@ -185,7 +185,7 @@ public class ControlChartConstantsTests
         Assert.Equal(2.574, ControlChartConstants.Get(3, ConstantsMode.Table).D4);
     }
 
-    // B5, B6, D1, D2 are not printed in the note: table mode rounds the exact values to three decimals.
+    // B5, B6, D1, D2 are not printed in docs/statistics.md §1.3: table mode rounds the exact values to three decimals.
     [Fact]
     public void Table_UnprintedFactors_AreExactRoundedToThreeDecimals()
     {
@@ -201,7 +201,7 @@ public class ControlChartConstantsTests
         }
     }
 
-    // The derived factors follow the formulas of spc.md 1.1 / the brief from d2, d3 and c4, checked on
+    // The derived factors follow the formulas of docs/statistics.md §1.1 from d2, d3 and c4, checked on
     // values recomputed here (n = 7 has every max(0, ·) branch positive; n = 2 has all of them at 0).
     [Theory]
     [InlineData(2)]
@@ -256,7 +256,7 @@ public class ControlChartConstantsTests
         }
     }
 
-    // The brief's target: the whole exact table in under 50 ms (about 4 ms on an idle machine after JIT
+    // Target (common practice for an interactive page, no source): the whole exact table in under 50 ms (about 4 ms on an idle machine after JIT
     // warm-up). The best of three runs is taken so that a busy build machine does not fail the test.
     [Fact]
     public void RangeMoments_AllSizes_ComputeInUnderFiftyMilliseconds()

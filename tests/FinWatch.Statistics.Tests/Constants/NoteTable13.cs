@@ -1,10 +1,10 @@
 namespace FinWatch.Statistics.Tests.Constants;
 
 /// <summary>
-/// Table 1.3 of spc.md, transcribed a second time here (independently of the library's own copy):
+/// Table 1.3 of docs/statistics.md, transcribed a second time here (independently of the library's own copy):
 /// for each n and each column d2, d3, c4, A2, A3, B3, B4, D3, D4 the exact value to 6 decimals as printed
-/// in the note, the printed value of Montgomery, Introduction to Statistical Quality Control, Appendix VI
-/// (as transcribed in spc.md 1.3), and whether the note marks the entry † (one unit off in the last place).
+/// in docs/statistics.md §1.3, the printed value of Montgomery, Introduction to Statistical Quality Control, Appendix VI
+/// (as transcribed in docs/statistics.md §1.3), and whether that table marks the entry † (one unit off in the last place).
 /// Strings keep the printed number of decimals.
 /// </summary>
 internal static class NoteTable13

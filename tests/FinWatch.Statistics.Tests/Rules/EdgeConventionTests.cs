@@ -4,7 +4,7 @@ using static FinWatch.Statistics.Tests.Rules.RuleTestHelpers;
 namespace FinWatch.Statistics.Tests.Rules;
 
 /// <summary>
-/// The edge conventions of spc.md §3.3, items 1–10, one group of hand-built series per item (the item number is in
+/// The edge conventions of docs/statistics.md §3.3, items 1–10, one group of hand-built series per item (the item number is in
 /// each test's comment). z-scores are used as plotted values (CL 0, sigma 1) unless values are given.
 /// </summary>
 public class EdgeConventionTests

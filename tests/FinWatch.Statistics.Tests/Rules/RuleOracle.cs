@@ -3,7 +3,7 @@ using FinWatch.Statistics.Rules;
 namespace FinWatch.Statistics.Tests.Rules;
 
 /// <summary>
-/// A deliberately naive, independent transcription of spc.md §3 (§3.1, §3.2 readings, §3.3 items 1–9) used as a test
+/// A deliberately naive, independent transcription of docs/statistics.md §3 (§3.1, §3.2 readings, §3.3 items 1–9) used as a test
 /// oracle: for each point it re-reads the window or run ending there from the list of points, with no shared state
 /// and no rings or counters. Quadratic and slow; for tests only.
 /// </summary>

@@ -6,7 +6,7 @@ namespace FinWatch.Statistics.Tests.Rules;
 
 /// <summary>
 /// A Monte Carlo simulation (not an exact computation): the in-control average run length of the four Western
-/// Electric rules together, with known parameters, against Champ &amp; Woodall (1987), ARL ≈ 91.75 (via spc.md §3.1,
+/// Electric rules together, with known parameters, against Champ &amp; Woodall (1987), ARL ≈ 91.75 (via docs/statistics.md §3.1,
 /// which reports its own simulation of 40 000 runs as 91.7 ± 0.4).
 /// </summary>
 public class RunRuleArlSimulationTests(ITestOutputHelper output)

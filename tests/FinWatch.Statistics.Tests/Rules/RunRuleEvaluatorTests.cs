@@ -5,13 +5,13 @@ namespace FinWatch.Statistics.Tests.Rules;
 /// <summary>
 /// The incremental evaluator: signals raised on the point that completes them, argument checks, counts, and the
 /// FinWatch convention for a NaN z (the zone rules skip the point as if missing; N3/N4 still use its value),
-/// which extends spc.md §3.3 items 8 and 9.
+/// which extends docs/statistics.md §3.3 items 8 and 9.
 /// </summary>
 public class RunRuleEvaluatorTests
 {
     private static readonly RunRule[] All = Enum.GetValues<RunRule>();
 
-    // spc.md §3.3 item 4: the signal arrives with the point that completes the pattern, not before.
+    // docs/statistics.md §3.3 item 4: the signal arrives with the point that completes the pattern, not before.
     [Fact]
     public void Append_TwoOfThree_SignalRaisedOnCompletingPoint()
     {
@@ -27,7 +27,7 @@ public class RunRuleEvaluatorTests
         Assert.Equal([10, 12], signal.Pattern);
     }
 
-    // Reported indices are the caller's, however sparse (spc.md §3.3 item 8).
+    // Reported indices are the caller's, however sparse (docs/statistics.md §3.3 item 8).
     [Fact]
     public void Append_SparseIndices_ReportedUnchanged()
     {

@@ -7,14 +7,14 @@ namespace FinWatch.Statistics.Tests.Rules;
 
 /// <summary>
 /// FsCheck properties over generated series (<see cref="RuleSeriesGenerators"/>): agreement with a naive transcription
-/// of spc.md §3 (<see cref="RuleOracle"/>), incremental = batch, symmetry under negation, and invariance under inserted
-/// missing rows (spc.md §3.3 item 8).
+/// of docs/statistics.md §3 (<see cref="RuleOracle"/>), incremental = batch, symmetry under negation, and invariance under inserted
+/// missing rows (docs/statistics.md §3.3 item 8).
 /// </summary>
 public class RunRulePropertyTests
 {
     private static readonly RunRule[] All = Enum.GetValues<RunRule>();
 
-    // spc.md §3.1–3.3: the O(1) evaluator gives the same flags, patterns and null-ness as re-reading every window.
+    // docs/statistics.md §3.1–3.3: the O(1) evaluator gives the same flags, patterns and null-ness as re-reading every window.
     [Property(MaxTest = 300)]
     public Property Evaluate_RandomSeries_MatchesNaiveOracle() =>
         Prop.ForAll(RuleSeriesGenerators.SeriesArb, s =>
@@ -88,7 +88,7 @@ public class RunRulePropertyTests
             }
         });
 
-    // spc.md §3.3 item 8: inserting missing rows (whatever their z) shifts the reported indices and nothing else.
+    // docs/statistics.md §3.3 item 8: inserting missing rows (whatever their z) shifts the reported indices and nothing else.
     [Property(MaxTest = 200)]
     public Property Evaluate_InsertedMissingRows_ShiftOnlyIndices() =>
         Prop.ForAll(
@@ -126,7 +126,7 @@ public class RunRulePropertyTests
                 }
             });
 
-    // spc.md §3.2: N1 = WE1, N5 = WE2, N6 = WE3 (same flags).
+    // docs/statistics.md §3.2: N1 = WE1, N5 = WE2, N6 = WE3 (same flags).
     [Property(MaxTest = 200)]
     public Property Evaluate_RandomSeries_NelsonAliasesEqualWesternElectric() =>
         Prop.ForAll(RuleSeriesGenerators.SeriesArb, s =>

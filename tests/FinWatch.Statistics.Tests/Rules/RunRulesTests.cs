@@ -2,7 +2,7 @@ using FinWatch.Statistics.Rules;
 
 namespace FinWatch.Statistics.Tests.Rules;
 
-/// <summary>Rule sets, identifiers and classification (spc.md §3.1 lists WE1–4, §3.2 lists N1–8 and which need zones).</summary>
+/// <summary>Rule sets, identifiers and classification (docs/statistics.md §3.1 lists WE1–4, §3.2 lists N1–8 and which need zones).</summary>
 public class RunRulesTests
 {
     public static TheoryData<string, RunRule> Ids => new()
@@ -57,7 +57,7 @@ public class RunRulesTests
         Assert.Empty(rules);
     }
 
-    // spc.md §3.2 / §3.3 item 9: N3 and N4 look at values only; every other rule needs zones.
+    // docs/statistics.md §3.2 / §3.3 item 9: N3 and N4 look at values only; every other rule needs zones.
     [Fact]
     public void IsZoneRule_AllRules_FalseOnlyForN3AndN4()
     {

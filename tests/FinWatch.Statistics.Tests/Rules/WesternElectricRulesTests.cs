@@ -5,7 +5,7 @@ namespace FinWatch.Statistics.Tests.Rules;
 
 /// <summary>
 /// Hand-built series for the Western Electric zone rules. Source of each rule: Montgomery &amp; Runger's restatement
-/// of the Western Electric (1956) rules, via spc.md §3.1; the edge readings cite spc.md §3.3 by item number.
+/// of the Western Electric (1956) rules, via docs/statistics.md §3.1; the edge readings cite docs/statistics.md §3.3 by item number.
 /// z-scores are used as plotted values (CL 0, sigma 1).
 /// </summary>
 public class WesternElectricRulesTests
@@ -30,7 +30,7 @@ public class WesternElectricRulesTests
     public void WE1_PointsInsideLimits_NoFlags() =>
         Assert.Empty(FlagsOf(RunRule.WE1, 2.99, -2.99, 0, 1.5, -2.5));
 
-    // Montgomery & Runger rule 2: two of three consecutive points beyond a 2-sigma limit; spc.md §3.3 item 4: the
+    // Montgomery & Runger rule 2: two of three consecutive points beyond a 2-sigma limit; docs/statistics.md §3.3 item 4: the
     // completing point is flagged and the pattern is the two beyond points.
     [Fact]
     public void WE2_TwoOfThreeBeyondUpperTwoSigma_FlagsCompletingPointWithPattern()
@@ -55,7 +55,7 @@ public class WesternElectricRulesTests
     public void WE2_BeyondPointsOutsideOneWindow_NoFlag() =>
         Assert.Empty(FlagsOf(RunRule.WE2, 2.5, 0, 0, 2.5));
 
-    // Montgomery & Runger rule 2 with spc.md §3.3 item 4: three in a row beyond flags the 2nd and the 3rd; the 3rd's
+    // Montgomery & Runger rule 2 with docs/statistics.md §3.3 item 4: three in a row beyond flags the 2nd and the 3rd; the 3rd's
     // pattern holds all three beyond points of its window.
     [Fact]
     public void WE2_ThreeConsecutiveBeyond_FlagsSecondAndThird()
@@ -100,7 +100,7 @@ public class WesternElectricRulesTests
     public void WE3_ThreeOfFive_NoFlag() =>
         Assert.Empty(FlagsOf(RunRule.WE3, 1.5, 0, 1.5, 0, 1.5, 0, 1.5));
 
-    // Montgomery & Runger rule 3 with spc.md §3.3 items 4 and 5: six beyond in a row flag the 4th (four of the first
+    // Montgomery & Runger rule 3 with docs/statistics.md §3.3 items 4 and 5: six beyond in a row flag the 4th (four of the first
     // four), 5th and 6th; the 6th's pattern is its whole window.
     [Fact]
     public void WE3_SixConsecutiveBeyond_FlagsFourthFifthSixth()
@@ -110,7 +110,7 @@ public class WesternElectricRulesTests
         Assert.Equal([1, 2, 3, 4, 5], PatternAt(signals, 5));
     }
 
-    // Montgomery & Runger rule 4: eight consecutive points on one side; spc.md §3.3 item 4: a run of 10 flags the
+    // Montgomery & Runger rule 4: eight consecutive points on one side; docs/statistics.md §3.3 item 4: a run of 10 flags the
     // 8th, 9th and 10th points, each with the last eight points as its pattern.
     [Fact]
     public void WE4_RunOfTenAbove_FlagsEighthNinthTenth()

@@ -10,12 +10,12 @@ public class AverageRunLengthTests
 
     private static readonly string[] AllWesternElectric = ["WE1", "WE2", "WE3", "WE4"];
 
-    // Montgomery Table 9.3 / NIST §6.3.2.3 ARL table, two-sided tabular CUSUM with k = 0.5 (spc.md §4.3, printed values),
-    // with the note's computed values beside them.
+    // Montgomery Table 9.3 / NIST §6.3.2.3 ARL table, two-sided tabular CUSUM with k = 0.5 (docs/statistics.md §4.3, printed values),
+    // with the values computed in docs/statistics.md §4.3 beside them.
     // Values are strings so that their printed precision (trailing zeros included) sets the tolerance.
     public static TheoryData<double, double, string, string> CusumTable() => new()
     {
-        // h, shift, printed, computed (spc.md §4.3)
+        // h, shift, printed, computed (docs/statistics.md §4.3)
         { 4, 0, "168", "167.68" }, { 4, 0.25, "74.2", "74.22" }, { 4, 0.5, "26.6", "26.63" }, { 4, 0.75, "13.3", "13.29" },
         { 4, 1, "8.38", "8.383" }, { 4, 1.5, "4.75", "4.747" }, { 4, 2, "3.34", "3.343" }, { 4, 2.5, "2.62", "2.620" },
         { 4, 3, "2.19", "2.194" }, { 4, 4, "1.71", "1.708" },
@@ -25,7 +25,7 @@ public class AverageRunLengthTests
     };
 
     // Lucas & Saccucci (1990) Table 3, reprinted as Montgomery Table 9.11: EWMA with asymptotic limits started at the
-    // target (spc.md §4.3, printed values).
+    // target (docs/statistics.md §4.3, printed values).
     public static TheoryData<double, double, double, string> EwmaTable()
     {
         (double Lambda, double L, string[] Printed)[] rows =
@@ -82,7 +82,7 @@ public class AverageRunLengthTests
         AssertWithinLastDigit(AverageRunLength.Ewma(lambda, l, shift), printed, units: 1);
     }
 
-    // spc.md §4.3: the two table entries one unit off are 48.2 (computed 48.29) and 84.1 (computed 84.01).
+    // docs/statistics.md §4.3: the two table entries one unit off are 48.2 (computed 48.29) and 84.1 (computed 84.01).
     [Theory]
     [InlineData(0.25, 2.998, 0.5, 48.29)]
     [InlineData(0.05, 2.615, 0.25, 84.01)]
@@ -99,7 +99,7 @@ public class AverageRunLengthTests
     }
 
     // Brook & Evans (1972) Markov chain (test-side implementation, Richardson-extrapolated from 100 and 200 cells)
-    // against the library's Nyström solution of Page's equation; spc.md §4.3 reports agreement within 2e-4.
+    // against the library's Nyström solution of Page's equation; docs/statistics.md §4.3 reports agreement within 2e-4.
     [Theory]
     [InlineData(0.5, 4, 0)]
     [InlineData(0.5, 4, 1)]
@@ -219,7 +219,7 @@ public class AverageRunLengthTests
         Assert.Equal(1, AverageRunLength.CusumOneSided(0.5, 4, 6, headStart: 4), 1e-6);
     }
 
-    // λ = 1 makes the EWMA the individuals chart with limits ±L (spc.md §4.1), so its ARL is the Shewhart one.
+    // λ = 1 makes the EWMA the individuals chart with limits ±L (docs/statistics.md §4.1), so its ARL is the Shewhart one.
     [Theory]
     [InlineData(3, 0)]
     [InlineData(3, 1)]
@@ -235,14 +235,14 @@ public class AverageRunLengthTests
         Assert.Equal(AverageRunLength.Ewma(0.1, 2.7, 0.8), AverageRunLength.Ewma(0.1, 2.7, -0.8), 1e-7);
     }
 
-    // spc.md §3.1: Champ & Woodall (1987), in-control ARL 91.75 with WE1–4.
+    // docs/statistics.md §3.1: Champ & Woodall (1987), in-control ARL 91.75 with WE1–4.
     [Fact]
     public void ShewhartWithRules_AllFourInControl_Is9175()
     {
         Assert.Equal(91.75, AverageRunLength.ShewhartWithRules(AllWesternElectric, 0), 0.005);
     }
 
-    // WE1 alone is the plain 3-sigma chart: 370.4 in control (spc.md §4.3) and the Shewhart formula at any shift.
+    // WE1 alone is the plain 3-sigma chart: 370.4 in control (docs/statistics.md §4.3) and the Shewhart formula at any shift.
     [Theory]
     [InlineData(0)]
     [InlineData(0.5)]
@@ -268,7 +268,7 @@ public class AverageRunLengthTests
     }
 
     // Champ & Woodall (1987) in-control ARLs of rule combinations, recalled from memory [M] (only 91.75 is confirmed in
-    // spc.md); reproduced by the chain to the recalled two decimals, which a memory error would be unlikely to do.
+    // docs/statistics.md); reproduced by the chain to the recalled two decimals, which a memory error would be unlikely to do.
     [Theory]
     [InlineData(new[] { "WE1", "WE2" }, 225.44)]
     [InlineData(new[] { "WE1", "WE3" }, 166.05)]

@@ -2,7 +2,7 @@ namespace FinWatch.Statistics.Tests.RunLength;
 
 /// <summary>
 /// Seeded Monte Carlo run lengths of a 3-sigma chart with Western Electric rules, applying each rule literally to the
-/// window of the most recent points (spc.md §3.1, windows truncated at the start); independent of the library's
+/// window of the most recent points (docs/statistics.md §3.1, windows truncated at the start); independent of the library's
 /// Markov-chain state encoding.
 /// </summary>
 internal static class WesternElectricSimulation

@@ -5,7 +5,7 @@ namespace FinWatch.Statistics.Tests.Shewhart;
 
 public class ShewhartChartsTests
 {
-    // NIST/SEMATECH e-Handbook of Statistical Methods §6.3.2.2, individuals chart of 10 batch flow rates (spc.md case 17):
+    // NIST/SEMATECH e-Handbook of Statistical Methods §6.3.2.2, individuals chart of 10 batch flow rates (docs/statistics.md case 17):
     // x̄ = 50.81, MR̄ = 1.8778, UCL = 55.8041, LCL = 45.8159 with d2 = 1.128 (table mode); in control.
     private static readonly double[] FlowRate = [49.6, 47.6, 49.9, 51.3, 47.8, 51.2, 52.6, 52.4, 53.6, 52.1];
 
@@ -21,7 +21,7 @@ public class ShewhartChartsTests
         Assert.True(double.IsNaN(chart.Secondary.Values[0]));
         Assert.Empty(chart.Primary.BeyondLimits());
         Assert.Empty(chart.Secondary.BeyondLimits());
-        // MR chart UCL = D4(2)·MR̄ = 3.267·1.8778 (printed D4, spc.md 2.1).
+        // MR chart UCL = D4(2)·MR̄ = 3.267·1.8778 (printed D4, docs/statistics.md §2.1).
         Assert.Equal(3.267 * (16.9 / 9), chart.Secondary.Upper[1], 10);
         Assert.Equal(0, chart.Secondary.Lower[1]);
     }
@@ -29,8 +29,8 @@ public class ShewhartChartsTests
     [Fact]
     public void Individuals_NistFlowRateExactMode_GivesTheExactD2Limit()
     {
-        // spc.md 1.4 quotes 55.8025 for d2 = 2/√π; the arithmetic x̄ + 3·MR̄/(2/√π) = 50.81 + 3·1.87778/1.128379 gives
-        // 55.80241, so the check is the formula (exact) and the note's figure to within 2e-4.
+        // docs/statistics.md §1.4 quotes 55.8025 for d2 = 2/√π; the arithmetic x̄ + 3·MR̄/(2/√π) = 50.81 + 3·1.87778/1.128379 gives
+        // 55.80241, so the check is the formula (exact) and the figure of docs/statistics.md to within 2e-4.
         var chart = ShewhartCharts.Individuals(FlowRate, LimitRequest.FromData);
         Assert.Equal(50.81 + (3 * (16.9 / 9) / (2 / Math.Sqrt(Math.PI))), chart.Primary.Upper[0], 10);
         Assert.Equal(55.8025, chart.Primary.Upper[0], 0.0002);
@@ -40,7 +40,7 @@ public class ShewhartChartsTests
     [Fact]
     public void Individuals_GapInTheSeries_TakesTheMovingRangeAcrossIt()
     {
-        // spc.md 3.3 item 8: the moving range after a gap is taken between the values either side of it.
+        // docs/statistics.md §3.3 item 8: the moving range after a gap is taken between the values either side of it.
         var chart = ShewhartCharts.Individuals([1.0, double.NaN, 4.0, 2.0], LimitRequest.FromData);
         Assert.True(double.IsNaN(chart.Secondary!.Values[1]));
         Assert.Equal(3.0, chart.Secondary.Values[2]);
@@ -54,7 +54,7 @@ public class ShewhartChartsTests
     {
         double[] values = [10, 11, 10, 11, 30, 31];
         var chart = ShewhartCharts.Individuals(values, new LimitRequest(LimitSource.Baseline, BaselineCount: 4));
-        // Baseline mean of 10, 11, 10, 11 is 10.5; the three moving ranges inside it are 1 (spc.md 2.4).
+        // Baseline mean of 10, 11, 10, 11 is 10.5; the three moving ranges inside it are 1 (docs/statistics.md §2.4).
         Assert.Equal(10.5, chart.Center, 12);
         Assert.Equal(1 / (2 / Math.Sqrt(Math.PI)), chart.Sigma!.Value, 12);
         Assert.Equal([4, 5], chart.Primary.BeyondLimits());
@@ -78,7 +78,7 @@ public class ShewhartChartsTests
         var chart = ShewhartCharts.Individuals([0.0, 3.5, -1.0], new LimitRequest(LimitSource.Known, KnownMean: 0, KnownSigma: 1));
         Assert.Equal(3.0, chart.Primary.Upper[0]);
         Assert.Equal([1], chart.Primary.BeyondLimits());
-        // MR chart with known sigma: centre d2·σ, UCL (d2 + 3·d3)·σ (spc.md 2.1).
+        // MR chart with known sigma: centre d2·σ, UCL (d2 + 3·d3)·σ (docs/statistics.md §2.1).
         var c = ControlChartConstants.Get(2);
         Assert.Equal(c.RangeMean, chart.Secondary!.Center[0], 12);
         Assert.Equal(c.RangeMean + (3 * c.RangeSd), chart.Secondary.Upper[0], 12);
@@ -87,7 +87,7 @@ public class ShewhartChartsTests
     [Fact]
     public void Individuals_PointExactlyOnTheLimit_IsNotBeyond()
     {
-        // spc.md 2.4 and 3.3 item 1: "beyond the limits" is strict.
+        // docs/statistics.md §2.4 and 3.3 item 1: "beyond the limits" is strict.
         var chart = ShewhartCharts.Individuals([3.0, -3.0, 3.0000001], new LimitRequest(LimitSource.Known, KnownMean: 0, KnownSigma: 1));
         Assert.Equal([2], chart.Primary.BeyondLimits());
     }
@@ -123,7 +123,7 @@ public class ShewhartChartsTests
     [Fact]
     public void Subgroups_EqualSizesTableMode_MatchTextbookFormulas()
     {
-        // With equal n the limits must be x̄̄ ± A2·R̄, D3·R̄, D4·R̄ (Montgomery ch. 6; spc.md 2.2) with the printed factors.
+        // With equal n the limits must be x̄̄ ± A2·R̄, D3·R̄, D4·R̄ (Montgomery ch. 6; docs/statistics.md §2.2) with the printed factors.
         double[][] groups = [[1, 2, 3, 4, 5], [2, 2, 4, 5, 7], [0, 3, 3, 3, 6], [1, 1, 2, 6, 5]];
         var rbar = groups.Average(g => g.Max() - g.Min());
         var grand = groups.SelectMany(g => g).Average();
@@ -139,7 +139,7 @@ public class ShewhartChartsTests
     [Fact]
     public void Subgroups_EqualSizesStandardDeviation_MatchTextbookFormulas()
     {
-        // x̄̄ ± A3·s̄, B3·s̄, B4·s̄ (Montgomery ch. 6; spc.md 2.2), printed factors for n = 5: A3 1.427, B4 2.089.
+        // x̄̄ ± A3·s̄, B3·s̄, B4·s̄ (Montgomery ch. 6; docs/statistics.md §2.2), printed factors for n = 5: A3 1.427, B4 2.089.
         double[][] groups = [[1, 2, 3, 4, 5], [2, 2, 4, 5, 7], [0, 3, 3, 3, 6]];
         var sbar = groups.Average(SampleSd);
         var grand = groups.SelectMany(g => g).Average();
@@ -152,7 +152,7 @@ public class ShewhartChartsTests
     [Fact]
     public void Subgroups_UnequalSizes_FollowTheSigmaHatConvention()
     {
-        // spc.md 2.3: σ̂ = mean of R_i/d2(n_i) over subgroups with n_i ≥ 2; limits x̄̄ ± 3σ̂/√n_i; a one-value subgroup is
+        // docs/statistics.md §2.3: σ̂ = mean of R_i/d2(n_i) over subgroups with n_i ≥ 2; limits x̄̄ ± 3σ̂/√n_i; a one-value subgroup is
         // plotted against ±3σ̂ and has no range point; an empty subgroup has no point.
         double[][] groups = [[1, 3, 2], [4, double.NaN, 6, 5, 5], [2], []];
         var d3 = ControlChartConstants.Get(3).RangeMean;
@@ -181,7 +181,7 @@ public class ShewhartChartsTests
     [Fact]
     public void Subgroups_ZoneScores_AreThirdsOfTheDistanceToTheLimit()
     {
-        // spc.md 3.3: z = (x − CL)/sigma_point with sigma_point = sigma_hat/√n (a third of the distance to the limit).
+        // docs/statistics.md §3.3: z = (x − CL)/sigma_point with sigma_point = sigma_hat/√n (a third of the distance to the limit).
         double[][] groups = [[1, 2, 3, 4], [2, 3, 4, 5], [0, 1, 2, 3]];
         var chart = ShewhartCharts.Subgroups(groups, ShewhartChartType.MeanRange, LimitRequest.FromData);
         var sigmaPoint = chart.Sigma!.Value / 2;

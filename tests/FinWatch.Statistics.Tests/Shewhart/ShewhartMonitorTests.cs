@@ -19,7 +19,7 @@ public class ShewhartMonitorTests
         return values;
     }
 
-    // Consistency property (issue 4: incremental equals batch): appending point by point to frozen limits gives the same
+    // Consistency property (incremental equals batch): appending point by point to frozen limits gives the same
     // limits, zone scores, beyond-limit points and rule signals as charting the whole series at once.
     [Property(MaxTest = 60)]
     public bool Append_PointByPoint_EqualsBatchEvaluation(int seed)

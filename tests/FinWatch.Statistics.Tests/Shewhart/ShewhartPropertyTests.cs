@@ -14,8 +14,8 @@ public class ShewhartPropertyTests
             .ToList();
     }
 
-    // Issue 4 property: the within-subgroup sigma depends on each subgroup's spread only, so the order of the subgroups
-    // (and the order of values inside each) does not change it (spc.md 2.3 estimator).
+    // Property: the within-subgroup sigma depends on each subgroup's spread only, so the order of the subgroups
+    // (and the order of values inside each) does not change it (docs/statistics.md §2.3 estimator).
     [Property(MaxTest = 200)]
     public bool Sigma_ShuffledSubgroups_IsUnchanged(int seed)
     {

@@ -15,7 +15,7 @@ public class SummaryLimitsTests
     [Fact]
     public void MeanStandardDeviation_FromSummaries_EqualsTheRawDataChart()
     {
-        // spc.md 2.3 from summaries against the engine's own Xbar-S on the raw values (unequal sizes 1..13).
+        // docs/statistics.md §2.3 from summaries against the engine's own Xbar-S on the raw values (unequal sizes 1..13).
         var random = new Random(3);
         var groups = Enumerable.Range(0, 40).Select(i => Enumerable.Range(0, 1 + (i % 13)).Select(_ => 5 + random.NextDouble()).ToArray()).ToList();
         var chart = ShewhartCharts.Subgroups(groups, ShewhartChartType.MeanStandardDeviation, LimitRequest.FromData);
