@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Net.Http.Json;
 using System.Text.Json;
+using System.Text.RegularExpressions;
 using FinWatch.Testing;
 using Microsoft.Playwright;
 
@@ -55,7 +56,8 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
         await OpenAsync($"chart.html?context={worst}&range=all");
         await WaitLiveAsync();
         await Assertions.Expect(Page.Locator("#legend")).ToContainTextAsync("points shown");
-        await Assertions.Expect(Page.Locator("#capability-numbers")).ToContainTextAsync("Cpk");
+        await Assertions.Expect(Page.Locator("#capability-numbers")).ToContainTextAsync(new Regex(@"Cpk \d"));
+        await Assertions.Expect(Page.Locator("#capability-numbers")).ToContainTextAsync(new Regex(@"σ within \d"));
         await ShotAsync("chart");
 
         await OpenAsync("alerts.html");
@@ -84,6 +86,8 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
         await top.PressAsync("Tab");
         await Assertions.Expect(Page.Locator("#dvt-sat")).Not.ToContainTextAsync("±0.0 mV");
         await Assertions.Expect(Page.Locator("#caution")).ToContainTextAsync("estimate");
+        await Assertions.Expect(Page.Locator("#model-version")).Not.ToContainTextAsync("undefined");
+        await Assertions.Expect(Page.Locator("#contrib")).Not.ToContainTextAsync("—"); // every contribution is a number
         await ShotAsync("whatif");
 
         await OpenAsync("entry.html");

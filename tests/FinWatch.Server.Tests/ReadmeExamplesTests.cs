@@ -73,11 +73,11 @@ public partial class ReadmeExamplesTests : IntegrationTest
     [Fact]
     public async Task ReadmeExample_AnalysisRequest_IsAccepted()
     {
-        var analysis = Blocks().Single(b => b.Lang == "json" && b.Body.Contains("\"sigmaMultiplier\"", StringComparison.Ordinal)).Body;
+        var analysis = Blocks().Single(b => b.Lang == "json" && b.Body.Contains("\"sigma_multiplier\"", StringComparison.Ordinal)).Body;
         var response = await Client.PostAsync("/api/spc/analyses", new StringContent(analysis, Encoding.UTF8, "application/json"));
         var body = await ReadJsonAsync(response);
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
-        Assert.Equal("baseline", body.GetProperty("chart").GetProperty("limitsSource").GetString());
+        Assert.Equal("baseline", body.GetProperty("chart").GetProperty("limits_source").GetString());
         Assert.Equal(10, body.GetProperty("ewma").GetProperty("z").GetArrayLength());
     }
 
@@ -86,11 +86,11 @@ public partial class ReadmeExamplesTests : IntegrationTest
     {
         var product = Blocks().Single(b => b.Lang == "json" && b.Body.Contains("\"gate_faces\"", StringComparison.Ordinal)).Body;
         (await Client.PostAsync("/api/products", new StringContent(product, Encoding.UTF8, "application/json"))).EnsureSuccessStatusCode();
-        var predict = Blocks().Single(b => b.Lang == "json" && b.Body.Contains("\"topWidthNm\"", StringComparison.Ordinal)).Body;
+        var predict = Blocks().Single(b => b.Lang == "json" && b.Body.TrimStart().StartsWith("{ \"product\"", StringComparison.Ordinal)).Body;
         var response = await Client.PostAsync("/api/model/predict", new StringContent(predict, Encoding.UTF8, "application/json"));
         var body = await ReadJsonAsync(response);
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         // Mid width 7.8 nm against 8.0 nm nominal: a narrower fin raises the threshold (G.4: dVT,sat/dw_mid < 0).
-        Assert.True(body.GetProperty("deltaVtSatMv").GetDouble() > 0);
+        Assert.True(body.GetProperty("delta_vt_sat_mv").GetDouble() > 0);
     }
 }

@@ -8,16 +8,25 @@ namespace FinWatch.Server.Infrastructure;
 
 public static class ApiDefaultsExtensions
 {
-    /// <summary>JSON in snake_case (field names carry their unit: <c>top_width_nm</c>), problem details for every error, OpenAPI.</summary>
+    /// <summary>
+    /// The API's one JSON dialect, for the endpoints, the OpenAPI document (which reads the same options) and the live hub:
+    /// field names, map keys and enum values in snake_case (field names carry their unit: <c>top_width_nm</c>). A map's
+    /// keys go through the policy too, so a map keyed by data that must keep its spelling (lot ids) needs another shape.
+    /// </summary>
+    public static JsonSerializerOptions UseFinWatchJson(this JsonSerializerOptions options)
+    {
+        options.PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower;
+        options.DictionaryKeyPolicy = JsonNamingPolicy.SnakeCaseLower;
+        options.Converters.Add(new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower, allowIntegerValues: false));
+        options.DefaultIgnoreCondition = JsonIgnoreCondition.Never;
+        options.NumberHandling = JsonNumberHandling.Strict;
+        return options;
+    }
+
+    /// <summary>JSON in the API's dialect (<see cref="UseFinWatchJson"/>), problem details for every error, OpenAPI.</summary>
     public static WebApplicationBuilder AddFinWatchApiDefaults(this WebApplicationBuilder builder)
     {
-        builder.Services.ConfigureHttpJsonOptions(o =>
-        {
-            o.SerializerOptions.PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower;
-            o.SerializerOptions.DictionaryKeyPolicy = null;
-            o.SerializerOptions.DefaultIgnoreCondition = JsonIgnoreCondition.Never;
-            o.SerializerOptions.NumberHandling = JsonNumberHandling.Strict;
-        });
+        builder.Services.ConfigureHttpJsonOptions(o => o.SerializerOptions.UseFinWatchJson());
         // A request that cannot be bound (malformed JSON, a wrong type, text where a number belongs) becomes a 400 problem
         // that says what could not be read and where, instead of a bare "Bad Request".
         builder.Services.Configure<RouteHandlerOptions>(o => o.ThrowOnBadRequest = true);

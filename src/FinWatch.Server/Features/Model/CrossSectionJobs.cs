@@ -89,7 +89,7 @@ public sealed class CrossSectionJobs(ILogger<CrossSectionJobs> logger) : IDispos
     private sealed class SyncProgress(Job job) : IProgress<SolverProgress>
     {
         public void Report(SolverProgress p) =>
-            job.Progress = new CrossSectionProgress(p.Stage.ToString(), p.BiasIndex, p.BiasCount, p.GateVoltageV, p.Iteration);
+            job.Progress = new CrossSectionProgress(p.Stage, p.BiasIndex, p.BiasCount, p.GateVoltageV, p.Iteration);
     }
 
     private sealed class Job(string id, string shapeKey)

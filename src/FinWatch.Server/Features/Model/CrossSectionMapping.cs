@@ -17,12 +17,12 @@ public static class CrossSectionMapping
             }
         }
 
-        Positive("topWidthNm", r.TopWidthNm, 100);
-        Positive("bottomWidthNm", r.BottomWidthNm, 100);
-        Positive("heightNm", r.HeightNm, 100);
+        Positive("top_width_nm", r.TopWidthNm, 100);
+        Positive("bottom_width_nm", r.BottomWidthNm, 100);
+        Positive("height_nm", r.HeightNm, 100);
         if (r.CornerRadiusNm is { } radius && !(radius >= 0 && radius <= 50))
         {
-            e["cornerRadiusNm"] = ["cornerRadiusNm is 0 to 50 nm"];
+            e["corner_radius_nm"] = ["corner_radius_nm is 0 to 50 nm"];
         }
 
         if (r.Layers is { Length: > 0 } layers)
@@ -31,18 +31,18 @@ public static class CrossSectionMapping
             {
                 if (layers[i].ThicknessNm is not { } t || !(t > 0 && t <= 10) || layers[i].K is not { } k || !(k >= 1 && k <= 100))
                 {
-                    e[$"layers[{i}]"] = ["each layer needs thicknessNm (0 to 10 nm) and k (1 to 100)"];
+                    e[$"layers[{i}]"] = ["each layer needs thickness_nm (0 to 10 nm) and k (1 to 100)"];
                 }
             }
         }
         else
         {
-            Positive("eotNm", r.EotNm, 10);
+            Positive("eot_nm", r.EotNm, 10);
         }
 
         if (r.DopingCm3 is { } n && !(n >= 0 && n <= 1e20))
         {
-            e["dopingCm3"] = ["dopingCm3 is 0 to 1e20 cm⁻³ (acceptors)"];
+            e["doping_cm3"] = ["doping_cm3 is 0 to 1e20 cm⁻³ (acceptors)"];
         }
 
         if (r.Gates is not (null or "tri" or "double"))
@@ -52,7 +52,7 @@ public static class CrossSectionMapping
 
         if (r.GridNm is { } h && !(h >= 0.1 && h <= 1))
         {
-            e["gridNm"] = ["gridNm is 0.1 to 1 nm"];
+            e["grid_nm"] = ["grid_nm is 0.1 to 1 nm"];
         }
 
         return e;

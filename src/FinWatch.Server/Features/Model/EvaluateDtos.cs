@@ -1,53 +1,51 @@
-using System.Text.Json.Serialization;
-
 namespace FinWatch.Server.Features.Model;
 
 /// <summary>POST /api/model/evaluate: one device, the model's whole working (fin-model.md sections A to E).</summary>
 public sealed record EvaluateRequest
 {
-    [JsonPropertyName("topWidthNm")] public double? TopWidthNm { get; init; }
-    [JsonPropertyName("bottomWidthNm")] public double? BottomWidthNm { get; init; }
-    [JsonPropertyName("heightNm")] public double? HeightNm { get; init; }
-    [JsonPropertyName("cornerRadiusNm")] public double? CornerRadiusNm { get; init; }
-    [JsonPropertyName("eotNm")] public double? EotNm { get; init; }
-    [JsonPropertyName("gateLengthNm")] public double? GateLengthNm { get; init; }
-    [JsonPropertyName("dopingCm3")] public double? DopingCm3 { get; init; }
+    public double? TopWidthNm { get; init; }
+    public double? BottomWidthNm { get; init; }
+    public double? HeightNm { get; init; }
+    public double? CornerRadiusNm { get; init; }
+    public double? EotNm { get; init; }
+    public double? GateLengthNm { get; init; }
+    public double? DopingCm3 { get; init; }
 
     /// <summary>"tri", or "double" for the sidewalls only under a hard mask.</summary>
-    [JsonPropertyName("gates")] public string? Gates { get; init; }
+    public string? Gates { get; init; }
 
     /// <summary>Sidewall surface: "110" (the usual ⟨110⟩ fin on a (100) wafer) or "100".</summary>
-    [JsonPropertyName("orientation")] public string? Orientation { get; init; }
+    public string? Orientation { get; init; }
 
-    [JsonPropertyName("vdsLinV")] public double? VdsLinV { get; init; }
-    [JsonPropertyName("vdsSatV")] public double? VdsSatV { get; init; }
+    public double? VdsLinV { get; init; }
+    public double? VdsSatV { get; init; }
 }
 
 public sealed record GeometryResponse(
-    [property: JsonPropertyName("taperDeg")] double TaperDeg,
-    [property: JsonPropertyName("midWidthNm")] double MidWidthNm,
-    [property: JsonPropertyName("areaNm2")] double AreaNm2,
-    [property: JsonPropertyName("gatedPerimeterNm")] double GatedPerimeterNm,
-    [property: JsonPropertyName("maxCornerRadiusNm")] double MaxCornerRadiusNm);
+    double TaperDeg,
+    double MidWidthNm,
+    double AreaNm2,
+    double GatedPerimeterNm,
+    double MaxCornerRadiusNm);
 
 public sealed record SliceResponse(
-    [property: JsonPropertyName("heightNm")] double HeightNm,
-    [property: JsonPropertyName("widthNm")] double? WidthNm,
-    [property: JsonPropertyName("vtLinV")] double VtLinV,
-    [property: JsonPropertyName("currentShare")] double CurrentShare,
-    [property: JsonPropertyName("corner")] bool Corner);
+    double HeightNm,
+    double? WidthNm,
+    double VtLinV,
+    double CurrentShare,
+    bool Corner);
 
 public sealed record EvaluateResponse(
-    [property: JsonPropertyName("geometry")] GeometryResponse Geometry,
-    [property: JsonPropertyName("scaleLengthNm")] double ScaleLengthNm,
-    [property: JsonPropertyName("qcShiftMv")] double QcShiftMv,
-    [property: JsonPropertyName("sceShiftLinMv")] double? SceShiftLinMv,
-    [property: JsonPropertyName("sceShiftSatMv")] double? SceShiftSatMv,
-    [property: JsonPropertyName("vtLinV")] double? VtLinV,
-    [property: JsonPropertyName("vtSatV")] double? VtSatV,
-    [property: JsonPropertyName("swingLinMvPerDec")] double? SwingLinMvPerDec,
-    [property: JsonPropertyName("diblMvPerV")] double? DiblMvPerV,
-    [property: JsonPropertyName("slices")] IReadOnlyList<SliceResponse> Slices,
-    [property: JsonPropertyName("assumptions")] IReadOnlyDictionary<string, double> Assumptions,
-    [property: JsonPropertyName("warnings")] IReadOnlyList<string> Warnings,
-    [property: JsonPropertyName("note")] string Note);
+    GeometryResponse Geometry,
+    double ScaleLengthNm,
+    double QcShiftMv,
+    double? SceShiftLinMv,
+    double? SceShiftSatMv,
+    double? VtLinV,
+    double? VtSatV,
+    double? SwingLinMvPerDec,
+    double? DiblMvPerV,
+    IReadOnlyList<SliceResponse> Slices,
+    IReadOnlyDictionary<string, double> Assumptions,
+    IReadOnlyList<string> Warnings,
+    string Note);

@@ -28,19 +28,19 @@ public static class EvaluateModel
             }
         }
 
-        Range("topWidthNm", r.TopWidthNm, 0, 100);
-        Range("bottomWidthNm", r.BottomWidthNm, 0, 100);
-        Range("heightNm", r.HeightNm, 0, 300);
+        Range("top_width_nm", r.TopWidthNm, 0, 100);
+        Range("bottom_width_nm", r.BottomWidthNm, 0, 100);
+        Range("height_nm", r.HeightNm, 0, 300);
         if (r.CornerRadiusNm is { } radius && !(radius >= 0 && radius <= 50))
         {
-            e["cornerRadiusNm"] = ["cornerRadiusNm is 0 to 50 nm"];
+            e["corner_radius_nm"] = ["corner_radius_nm is 0 to 50 nm"];
         }
 
-        Range("eotNm", r.EotNm, 0, 10);
-        Range("gateLengthNm", r.GateLengthNm, 0, 1000);
+        Range("eot_nm", r.EotNm, 0, 10);
+        Range("gate_length_nm", r.GateLengthNm, 0, 1000);
         if (r.DopingCm3 is { } n && !(n >= 0 && n <= 1e20))
         {
-            e["dopingCm3"] = ["dopingCm3 is 0 to 1e20 cm⁻³"];
+            e["doping_cm3"] = ["doping_cm3 is 0 to 1e20 cm⁻³"];
         }
 
         if (r.Gates is not (null or "tri" or "double"))
@@ -53,11 +53,11 @@ public static class EvaluateModel
             e["orientation"] = ["orientation is '110' or '100' (the sidewall surface)"];
         }
 
-        Range("vdsLinV", r.VdsLinV, 0, 5, required: false);
-        Range("vdsSatV", r.VdsSatV, 0, 5, required: false);
+        Range("vds_lin_v", r.VdsLinV, 0, 5, required: false);
+        Range("vds_sat_v", r.VdsSatV, 0, 5, required: false);
         if ((r.VdsLinV ?? 0.05) >= (r.VdsSatV ?? 0.75))
         {
-            e["vdsSatV"] = ["vdsSatV must be above vdsLinV"];
+            e["vds_sat_v"] = ["vds_sat_v must be above vds_lin_v"];
         }
 
         return e;
@@ -116,12 +116,12 @@ public static class EvaluateModel
             details.Select(d => new SliceResponse(d.HeightNm, d.IsCorner ? null : d.WidthNm, d.ThresholdLinV, d.CurrentShareLin, d.IsCorner)).ToList(),
             new Dictionary<string, double>
             {
-                ["gateLengthNm"] = parameters.GateLengthNm,
-                ["dopingCm3"] = parameters.DopingPerCm3,
-                ["vdsLinV"] = parameters.DrainVoltageLinV,
-                ["vdsSatV"] = parameters.DrainVoltageSatV,
-                ["barrierHeightV"] = barrier,
-                ["criticalSheetDensityCm2"] = parameters.CriticalSheetDensityPerCm2,
+                ["gate_length_nm"] = parameters.GateLengthNm,
+                ["doping_cm3"] = parameters.DopingPerCm3,
+                ["vds_lin_v"] = parameters.DrainVoltageLinV,
+                ["vds_sat_v"] = parameters.DrainVoltageSatV,
+                ["barrier_height_v"] = barrier,
+                ["critical_sheet_density_cm2"] = parameters.CriticalSheetDensityPerCm2,
                 ["slices"] = parameters.SliceCount,
             },
             warnings,

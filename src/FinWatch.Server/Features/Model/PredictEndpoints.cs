@@ -31,7 +31,7 @@ public static class PredictEndpoints
         PredictRequest r, FinWatchDbContext db, ProductModels models, CancellationToken cancellationToken)
     {
         var errors = new Dictionary<string, string[]>();
-        foreach (var (name, v, max) in new[] { ("topWidthNm", r.TopWidthNm, 100.0), ("bottomWidthNm", r.BottomWidthNm, 100.0), ("heightNm", r.HeightNm, 300.0) })
+        foreach (var (name, v, max) in new[] { ("top_width_nm", r.TopWidthNm, 100.0), ("bottom_width_nm", r.BottomWidthNm, 100.0), ("height_nm", r.HeightNm, 300.0) })
         {
             if (v is not { } x || !(x > 0 && x <= max))
             {
@@ -41,21 +41,21 @@ public static class PredictEndpoints
 
         if (r.CornerRadiusNm is { } radius && !(radius >= 0 && radius <= 50))
         {
-            errors["cornerRadiusNm"] = ["cornerRadiusNm is 0 to 50 nm"];
+            errors["corner_radius_nm"] = ["corner_radius_nm is 0 to 50 nm"];
         }
 
         if (r.EotNm is { } eot && !(eot > 0 && eot <= 10))
         {
-            errors["eotNm"] = ["eotNm is 0 to 10 nm"];
+            errors["eot_nm"] = ["eot_nm is 0 to 10 nm"];
         }
 
         if (r.MetrologySd is { } m)
         {
-            foreach (var (name, v) in new[] { ("topWidthNm", m.TopWidthNm), ("bottomWidthNm", m.BottomWidthNm), ("heightNm", m.HeightNm), ("cornerRadiusNm", m.CornerRadiusNm) })
+            foreach (var (name, v) in new[] { ("top_width_nm", m.TopWidthNm), ("bottom_width_nm", m.BottomWidthNm), ("height_nm", m.HeightNm), ("corner_radius_nm", m.CornerRadiusNm) })
             {
                 if (v is { } sd && !(sd >= 0 && sd <= 10))
                 {
-                    errors[$"metrologySd.{name}"] = [$"metrologySd.{name} is 0 to 10 nm (one standard deviation)"];
+                    errors[$"metrology_sd.{name}"] = [$"metrology_sd.{name} is 0 to 10 nm (one standard deviation)"];
                 }
             }
         }

@@ -5,6 +5,7 @@ using System.Text.RegularExpressions;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Parameters;
+using FinWatch.Server.Infrastructure;
 using FinWatch.Statistics.Shewhart;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Mvc;
@@ -20,9 +21,8 @@ public static partial class ContextEndpoints
     public static IServiceCollection AddMonitor(this IServiceCollection services, IConfiguration configuration)
     {
         services.AddOptions<MonitorOptions>().BindConfiguration(MonitorOptions.Section).ValidateDataAnnotations().ValidateOnStart();
-        // The hub speaks the same JSON as the HTTP API (snake_case), so a page handles a pushed point like a fetched one.
-        var signalR = services.AddSignalR()
-            .AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.SnakeCaseLower);
+        // The hub speaks the same JSON as the HTTP API, so a page handles a pushed point like a fetched one.
+        var signalR = services.AddSignalR().AddJsonProtocol(o => o.PayloadSerializerOptions.UseFinWatchJson());
         if (configuration[SignalRScaleOut.RedisKey] is { Length: > 0 } redis)
         {
             // Several instances: each sends through Redis, so a screen on any instance gets points ingested on any other.
@@ -217,7 +217,7 @@ public static partial class ContextEndpoints
     private static string NormaliseRules(string rules) => string.Join(',', ContextRules.Parse(rules).Select(Statistics.Rules.RunRules.Id));
 
     private static async Task<Results<Ok<List<PointMessage>>, ProblemHttpResult>> PointsAsync(
-        string code, long? afterSeq, DateTimeOffset? from, DateTimeOffset? to, int? limit, FinWatchDbContext db, CancellationToken cancellationToken)
+        string code, [FromQuery(Name = "after_seq")] long? afterSeq, DateTimeOffset? from, DateTimeOffset? to, int? limit, FinWatchDbContext db, CancellationToken cancellationToken)
     {
         var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
         if (context is null)

@@ -31,10 +31,10 @@ public static class ShiftReportCsv
             ("dvt_risks", ["lot_id", "wafer_slot", "chamber", "measured_at", "predicted_dvt_sat_mv", "context", "electrical_concern_mv", "also_in_contexts"],
                 [.. r.DvtRisks.Select(d => new[] { d.LotId, I(d.WaferSlot), d.Chamber, T(d.MeasuredAt), N(d.PredictedDvtSatMv), d.Context, N(d.ElectricalConcernMv), string.Join("; ", d.AlsoInContexts) })]),
             ("capability_changes", ["context", "parameter", "unit", "lsl", "usl", "shift_points", "shift_mean", "shift_sigma_within", "shift_cpk", "shift_reason",
-                "previous_7_days_points", "previous_7_days_mean", "previous_7_days_sigma_within", "previous_7_days_cpk", "previous_7_days_reason", "cpk_change"],
+                "previous_seven_days_points", "previous_seven_days_mean", "previous_seven_days_sigma_within", "previous_seven_days_cpk", "previous_seven_days_reason", "cpk_change"],
                 [.. r.CapabilityChanges.Select(c => new[] { c.Context, c.Parameter, c.Unit, N(c.Lsl), N(c.Usl),
                     I(c.Shift.Points), N(c.Shift.Mean), N(c.Shift.SigmaWithin), N(c.Shift.Cpk), c.Shift.Reason,
-                    I(c.Previous7Days.Points), N(c.Previous7Days.Mean), N(c.Previous7Days.SigmaWithin), N(c.Previous7Days.Cpk), c.Previous7Days.Reason, N(c.CpkChange) })]),
+                    I(c.PreviousSevenDays.Points), N(c.PreviousSevenDays.Mean), N(c.PreviousSevenDays.SigmaWithin), N(c.PreviousSevenDays.Cpk), c.PreviousSevenDays.Reason, N(c.CpkChange) })]),
         };
 
         var width = 2 + sections.Max(s => s.Columns.Length);

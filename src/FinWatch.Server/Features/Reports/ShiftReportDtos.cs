@@ -1,4 +1,3 @@
-using System.Text.Json.Serialization;
 using FinWatch.Server.Features.Monitor;
 
 namespace FinWatch.Server.Features.Reports;
@@ -38,7 +37,7 @@ public sealed record DvtRiskRow(string LotId, int? WaferSlot, string? Chamber, D
 
 /// <summary>Cpk over the shift's points against the seven days before the shift, for a context whose parameter has a spec.</summary>
 public sealed record CapabilityChangeRow(string Context, string Parameter, string Unit, double? Lsl, double? Usl,
-    CapabilityWindowRow Shift, [property: JsonPropertyName("previous_7_days")] CapabilityWindowRow Previous7Days, double? CpkChange);
+    CapabilityWindowRow Shift, CapabilityWindowRow PreviousSevenDays, double? CpkChange);
 
 /// <summary>
 /// Cpk = min(USL − x̄, x̄ − LSL)/(3σ_within) of the context's points in a window: x̄ the mean of the points, σ_within as

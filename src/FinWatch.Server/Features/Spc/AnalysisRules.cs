@@ -76,7 +76,7 @@ public static class AnalysisRules
         CheckLimits(r.Limits, count, Add);
         if (r.SigmaMultiplier is { } m && !(m > 0 && m <= 10))
         {
-            Add("sigmaMultiplier", "the sigma multiplier must be above 0 and at most 10");
+            Add("sigma_multiplier", "the sigma multiplier must be above 0 and at most 10");
         }
 
         foreach (var id in r.Rules ?? [])
@@ -96,7 +96,7 @@ public static class AnalysisRules
 
             if (ewma.L is not { } l || !(l > 0))
             {
-                Add("ewma.L", "L is required and must be positive");
+                Add("ewma.l", "L is required and must be positive");
             }
 
             if (ewma.Sigma is { } s && !(s > 0))
@@ -124,7 +124,7 @@ public static class AnalysisRules
 
             if (cusum.HeadStart is { } hs && !(hs >= 0 && (cusum.H is not { } hh || hs <= hh)))
             {
-                Add("cusum.headStart", "the head start must lie between 0 and h");
+                Add("cusum.head_start", "the head start must lie between 0 and h");
             }
 
             if (cusum.Sigma is { } s && !(s > 0))
@@ -144,10 +144,10 @@ public static class AnalysisRules
 
         if (r.PercentileCapability is { } pc)
         {
-            CheckSpec("percentileCapability", pc.Lsl, pc.Usl, Add);
+            CheckSpec("percentile_capability", pc.Lsl, pc.Usl, Add);
             if (pc.Distribution is not (null or "lognormal"))
             {
-                Add("percentileCapability.distribution", "the percentile method fits 'lognormal' only");
+                Add("percentile_capability.distribution", "the percentile method fits 'lognormal' only");
             }
         }
 

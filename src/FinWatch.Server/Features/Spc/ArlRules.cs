@@ -51,7 +51,7 @@ public static class ArlRules
 
             if (c.HeadStart is { } hs && !(hs >= 0 && hs < (c.H ?? double.PositiveInfinity)))
             {
-                e[$"cusum[{i}].headStart"] = ["the head start lies in [0, h)"];
+                e[$"cusum[{i}].head_start"] = ["the head start lies in [0, h)"];
             }
         }
 
@@ -64,7 +64,7 @@ public static class ArlRules
 
             if (w.L is not { } l || !(l > 0 && l <= 6))
             {
-                e[$"ewma[{i}].L"] = ["L is required, 0 < L ≤ 6"];
+                e[$"ewma[{i}].l"] = ["L is required, 0 < L ≤ 6"];
             }
         }
 

@@ -1,4 +1,3 @@
-using System.Text.Json.Serialization;
 using FinWatch.Data;
 using FinWatch.Server.Features.Series;
 using FinWatch.Statistics.Forecast;
@@ -9,29 +8,29 @@ using Microsoft.EntityFrameworkCore;
 namespace FinWatch.Server.Features.Spc;
 
 public sealed record ForecastResponse(
-    [property: JsonPropertyName("status")] string Status,
-    [property: JsonPropertyName("message")] string Message,
-    [property: JsonPropertyName("n")] int N,
-    [property: JsonPropertyName("slope")] double? Slope,
-    [property: JsonPropertyName("pValue")] double? PValue,
-    [property: JsonPropertyName("limit")] string? Limit,
-    [property: JsonPropertyName("limitValue")] double? LimitValue,
-    [property: JsonPropertyName("estimate")] double? Estimate,
-    [property: JsonPropertyName("low")] double? Low,
-    [property: JsonPropertyName("high")] double? High,
-    [property: JsonPropertyName("notes")] IReadOnlyList<string> Notes);
+    DriftForecastStatus Status,
+    string Message,
+    int N,
+    double? Slope,
+    double? PValue,
+    LimitKind? Limit,
+    double? LimitValue,
+    double? Estimate,
+    double? Low,
+    double? High,
+    IReadOnlyList<string> Notes);
 
 /// <summary>The drift forecast of a stored series in lots and in hours, from the lot means of the last <c>window</c> lots.</summary>
 public sealed record DriftResponse(
-    [property: JsonPropertyName("context")] StoredContext Context,
-    [property: JsonPropertyName("window")] int Window,
-    [property: JsonPropertyName("lots")] int Lots,
-    [property: JsonPropertyName("lcl")] double? Lcl,
-    [property: JsonPropertyName("ucl")] double? Ucl,
-    [property: JsonPropertyName("lsl")] double? Lsl,
-    [property: JsonPropertyName("usl")] double? Usl,
-    [property: JsonPropertyName("inLots")] ForecastResponse InLots,
-    [property: JsonPropertyName("inHours")] ForecastResponse InHours);
+    StoredContext Context,
+    int Window,
+    int Lots,
+    double? Lcl,
+    double? Ucl,
+    double? Lsl,
+    double? Usl,
+    ForecastResponse InLots,
+    ForecastResponse InHours);
 
 public static class ForecastEndpoints
 {
@@ -95,6 +94,6 @@ public static class ForecastEndpoints
     }
 
     private static ForecastResponse Map(DriftForecastResult r) => new(
-        r.Status.ToString(), r.Message, r.N, r.Slope, r.PValue, r.Limit?.ToString(), r.LimitValue,
+        r.Status, r.Message, r.N, r.Slope, r.PValue, r.Limit, r.LimitValue,
         r.DistanceEstimate, r.DistanceLow, r.DistanceHigh, r.Notes);
 }

@@ -57,7 +57,7 @@ public static class RunAnalysis
 
     internal static ChartResponse ToChart(ShewhartChart c, string name, ConstantsMode mode, IReadOnlyList<ExclusionRequest> excluded, List<string> warnings) =>
         new(name,
-            c.Source.ToString().ToLowerInvariant(),
+            c.Source,
             mode == ConstantsMode.Table ? "table" : "exact",
             Nullable(c.Center),
             c.Sigma,

@@ -39,18 +39,18 @@ public static class SpcEndpoints
         // A run length beyond 1e12 points cannot be resolved in double precision; it is reported as null, not infinity.
         double?[] Each(Func<double, double> arl) => shifts.Select(d => RunAnalysis.Nullable(arl(d))).ToArray();
         var shewhart = (request.Shewhart ?? []).Select(l => new ArlSeries(
-            new Dictionary<string, object> { ["L"] = l }, Each(d => AverageRunLength.Shewhart(l, d)))).ToList();
+            new Dictionary<string, object> { ["l"] = l }, Each(d => AverageRunLength.Shewhart(l, d)))).ToList();
         var cusum = (request.Cusum ?? []).Select(c => new ArlSeries(
-            new Dictionary<string, object> { ["k"] = c.K!.Value, ["h"] = c.H!.Value, ["headStart"] = c.HeadStart ?? 0 },
+            new Dictionary<string, object> { ["k"] = c.K!.Value, ["h"] = c.H!.Value, ["head_start"] = c.HeadStart ?? 0 },
             Each(d => AverageRunLength.Cusum(c.K!.Value, c.H!.Value, d, c.HeadStart ?? 0)))).ToList();
         var ewma = (request.Ewma ?? []).Select(e => new ArlSeries(
-            new Dictionary<string, object> { ["lambda"] = e.Lambda!.Value, ["L"] = e.L!.Value },
+            new Dictionary<string, object> { ["lambda"] = e.Lambda!.Value, ["l"] = e.L!.Value },
             Each(d => AverageRunLength.Ewma(e.Lambda!.Value, e.L!.Value, d)))).ToList();
         ArlSeries? withRules = null;
         if (request.Rules is { Length: > 0 } ids)
         {
             var rules = ArlRules.ExpandWesternElectric(ids);
-            withRules = new ArlSeries(new Dictionary<string, object> { ["L"] = 3.0, ["rules"] = rules },
+            withRules = new ArlSeries(new Dictionary<string, object> { ["l"] = 3.0, ["rules"] = rules },
                 Each(d => AverageRunLength.ShewhartWithRules(rules, d)));
         }
 
@@ -59,11 +59,14 @@ public static class SpcEndpoints
 
     private static Ok<ConstantsResponse> Constants()
     {
+        // The API's names are lower case, and the symbols d2 and D2 (d3 and D3) differ only in case: the lower-case
+        // constants keep their symbols, the capital factors A2 … D4 are written a2_capital … d4_capital.
         static List<IReadOnlyDictionary<string, double>> Rows(ConstantsMode mode) => ControlChartConstants.All(mode)
             .Select(c => (IReadOnlyDictionary<string, double>)new Dictionary<string, double>(StringComparer.Ordinal)
             {
-                ["n"] = c.N, ["d2"] = c.RangeMean, ["d3"] = c.RangeSd, ["c4"] = c.C4, ["A2"] = c.A2, ["A3"] = c.A3,
-                ["B3"] = c.B3, ["B4"] = c.B4, ["B5"] = c.B5, ["B6"] = c.B6, ["D1"] = c.D1, ["D2"] = c.D2, ["D3"] = c.D3, ["D4"] = c.D4,
+                ["n"] = c.N, ["d2"] = c.RangeMean, ["d3"] = c.RangeSd, ["c4"] = c.C4, ["a2_capital"] = c.A2, ["a3_capital"] = c.A3,
+                ["b3_capital"] = c.B3, ["b4_capital"] = c.B4, ["b5_capital"] = c.B5, ["b6_capital"] = c.B6,
+                ["d1_capital"] = c.D1, ["d2_capital"] = c.D2, ["d3_capital"] = c.D3, ["d4_capital"] = c.D4,
             })
             .ToList();
         return TypedResults.Ok(new ConstantsResponse(Rows(ConstantsMode.Exact), Rows(ConstantsMode.Table),

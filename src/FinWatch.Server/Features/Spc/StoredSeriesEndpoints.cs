@@ -1,5 +1,4 @@
 using FinWatch.Server.Features.Access;
-using System.Text.Json.Serialization;
 using FinWatch.Data;
 using FinWatch.Server.Features.Series;
 using FinWatch.Server.Infrastructure;
@@ -11,28 +10,28 @@ namespace FinWatch.Server.Features.Spc;
 
 /// <summary>What a chart point of a stored series stands for.</summary>
 public sealed record StoredPoint(
-    [property: JsonPropertyName("measuredAt")] DateTime MeasuredAt,
-    [property: JsonPropertyName("lotId")] string LotId,
-    [property: JsonPropertyName("waferSlot")] int WaferSlot,
-    [property: JsonPropertyName("siteId")] string? SiteId,
-    [property: JsonPropertyName("etchChamber")] string? EtchChamber,
-    [property: JsonPropertyName("linerChamber")] string? LinerChamber,
-    [property: JsonPropertyName("n")] int N);
+    DateTime MeasuredAt,
+    string LotId,
+    int WaferSlot,
+    string? SiteId,
+    string? EtchChamber,
+    string? LinerChamber,
+    int N);
 
 public sealed record StoredContext(
-    [property: JsonPropertyName("product")] string Product,
-    [property: JsonPropertyName("step")] string Step,
-    [property: JsonPropertyName("parameter")] string Parameter,
-    [property: JsonPropertyName("unit")] string Unit,
-    [property: JsonPropertyName("chamber")] string? Chamber,
-    [property: JsonPropertyName("level")] string Level,
-    [property: JsonPropertyName("truncated")] bool Truncated);
+    string Product,
+    string Step,
+    string Parameter,
+    string Unit,
+    string? Chamber,
+    string Level,
+    bool Truncated);
 
 /// <summary>The analysis of a stored series: its context, what each position is, and the analysis in the contract's shape.</summary>
 public sealed record StoredAnalysisResponse(
-    [property: JsonPropertyName("context")] StoredContext Context,
-    [property: JsonPropertyName("points")] IReadOnlyList<StoredPoint> Points,
-    [property: JsonPropertyName("analysis")] AnalysisResponse Analysis);
+    StoredContext Context,
+    IReadOnlyList<StoredPoint> Points,
+    AnalysisResponse Analysis);
 
 /// <summary>
 /// GET /api/series/chart and /api/series/capability: the same engine and response shapes as POST /api/spc/analyses, on

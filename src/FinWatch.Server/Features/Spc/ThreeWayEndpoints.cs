@@ -1,4 +1,3 @@
-using System.Text.Json.Serialization;
 using FinWatch.Data;
 using FinWatch.Server.Features.Series;
 using FinWatch.Statistics.Constants;
@@ -9,17 +8,17 @@ namespace FinWatch.Server.Features.Spc;
 
 /// <summary>The three-way chart of a stored series: lot means, wafer-to-wafer within lots, site-to-site within wafers.</summary>
 public sealed record ThreeWayResponse(
-    [property: JsonPropertyName("context")] StoredContext Context,
-    [property: JsonPropertyName("lots")] IReadOnlyList<string> Lots,
-    [property: JsonPropertyName("betweenLots")] ChartResponse BetweenLots,
-    [property: JsonPropertyName("withinLot")] ChartLineResponse WithinLot,
-    [property: JsonPropertyName("withinLotBeyondLimits")] int[] WithinLotBeyondLimits,
-    [property: JsonPropertyName("withinWafer")] ChartLineResponse WithinWafer,
-    [property: JsonPropertyName("withinWaferBeyondLimits")] int[] WithinWaferBeyondLimits,
-    [property: JsonPropertyName("waferLot")] int[] WaferLot,
-    [property: JsonPropertyName("sigmaSite")] double? SigmaSite,
-    [property: JsonPropertyName("sigmaWafer")] double? SigmaWafer,
-    [property: JsonPropertyName("sigmaLot")] double? SigmaLot);
+    StoredContext Context,
+    IReadOnlyList<string> Lots,
+    ChartResponse BetweenLots,
+    ChartLineResponse WithinLot,
+    int[] WithinLotBeyondLimits,
+    ChartLineResponse WithinWafer,
+    int[] WithinWaferBeyondLimits,
+    int[] WaferLot,
+    double? SigmaSite,
+    double? SigmaWafer,
+    double? SigmaLot);
 
 public static class ThreeWayEndpoints
 {

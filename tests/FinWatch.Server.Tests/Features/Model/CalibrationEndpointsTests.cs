@@ -43,8 +43,8 @@ public class CalibrationEndpointsTests : IntegrationTest
         }
 
         Assert.Equal(20, p["gate_length"].GetProperty("prior").GetDouble());
-        Assert.True(r.GetProperty("rmsResidualAfterMv").GetDouble() < 1.0);
-        Assert.True(r.GetProperty("rmsResidualBeforeMv").GetDouble() > 50);
+        Assert.True(r.GetProperty("rms_residual_after_mv").GetDouble() < 1.0);
+        Assert.True(r.GetProperty("rms_residual_before_mv").GetDouble() > 50);
         Assert.Equal(6, r.GetProperty("wafers").GetArrayLength());
         Assert.Equal(2, r.GetProperty("wafers")[0].GetProperty("sites").GetInt32());
         Assert.Equal("first e-test lots", r.GetProperty("reason").GetString());
@@ -60,11 +60,11 @@ public class CalibrationEndpointsTests : IntegrationTest
         (await PostCalibrationAsync(ElectricalCsv(TruthTheta()))).EnsureSuccessStatusCode();
 
         var after = await ReadJsonAsync(await Client.GetAsync($"/api/model/sensitivities?product={TestProducts.TriGate}"));
-        Assert.Equal("TP-TRI calibration", after.GetProperty("parameterSet").GetString());
-        Assert.StartsWith("v1 of ", after.GetProperty("parameterSetVersion").GetString(), StringComparison.Ordinal);
+        Assert.Equal("TP-TRI calibration", after.GetProperty("parameter_set").GetString());
+        Assert.StartsWith("v1 of ", after.GetProperty("parameter_set_version").GetString(), StringComparison.Ordinal);
         // A longer L_eff (22 against 20 nm) weakens the roll-off, so the width sensitivity is smaller in size (B.5, G.4).
         static double Width(JsonElement s) => s.GetProperty("rows").EnumerateArray().Single(x => x.GetProperty("input").GetString() == "mid_width")
-            .GetProperty("dVtSatMv").GetDouble();
+            .GetProperty("delta_vt_sat_mv").GetDouble();
         Assert.True(Math.Abs(Width(after)) < Math.Abs(Width(before)));
 
         (await PostCsvAsync(SiteRow.Csv([new SiteRow { LotId = "C0009", TopWidthNm = "5.8", BottomWidthNm = "9.8" }]))).EnsureSuccessStatusCode();
@@ -84,7 +84,7 @@ public class CalibrationEndpointsTests : IntegrationTest
         var list = h.GetProperty("calibrations").EnumerateArray().ToList();
         Assert.Equal([2, 1], list.Select(c => c.GetProperty("version").GetInt32()));
         Assert.Equal("more lots", list[0].GetProperty("reason").GetString());
-        Assert.Equal("test administrator", list[0].GetProperty("createdBy").GetString()); // the test identity that made the request (TestAuthHandler)
+        Assert.Equal("test administrator", list[0].GetProperty("created_by").GetString()); // the test identity that made the request (TestAuthHandler)
     }
 
     // The reason is stored in 2000 characters (a limit PostgreSQL enforces and SQLite does not): longer is a row-0 error.
@@ -94,6 +94,15 @@ public class CalibrationEndpointsTests : IntegrationTest
         await IngestFinsAsync();
         var errors = await AssertRejectedAsync(await PostCalibrationAsync(ElectricalCsv(TruthTheta()), "reason=" + new string('r', 2001)));
         Assert.True(HasError(errors, 0, "reason"), Describe(errors));
+        Assert.Equal(0, await Factory.QueryAsync(db => db.ModelParameterSets.CountAsync()));
+    }
+
+    [Fact]
+    public async Task Calibrate_MeasurementSdOutOfRange_IsRejectedNamingTheQueryParameter()
+    {
+        await IngestFinsAsync();
+        var errors = await AssertRejectedAsync(await PostCalibrationAsync(ElectricalCsv(TruthTheta()), "reason=r&measurement_sd_mv=500"));
+        Assert.True(HasError(errors, 0, "measurement_sd_mv"), Describe(errors));
         Assert.Equal(0, await Factory.QueryAsync(db => db.ModelParameterSets.CountAsync()));
     }
 

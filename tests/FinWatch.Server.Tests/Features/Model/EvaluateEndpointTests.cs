@@ -20,10 +20,10 @@ public class EvaluateEndpointTests : IntegrationTest
     public async Task Evaluate_VeryLongGate_GivesTheIdealSwingAndNoRollOff()
     {
         // Ideal long-channel swing (kT/q)·ln 10 = 59.5 mV/dec at 300 K (Sze & Ng, Physics of Semiconductor Devices).
-        var r = await EvaluateAsync(new { topWidthNm = 8.0, bottomWidthNm = 8.0, heightNm = 40.0, cornerRadiusNm = 0.0, eotNm = 1.0, gateLengthNm = 1000.0, dopingCm3 = 0.0, gates = "double", orientation = "110" });
-        Assert.Equal(59.5, r.GetProperty("swingLinMvPerDec").GetDouble(), 0.2);
-        Assert.Equal(0, r.GetProperty("sceShiftLinMv").GetDouble(), 0.01);
-        Assert.Equal(0, r.GetProperty("diblMvPerV").GetDouble(), 0.01);
+        var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, corner_radius_nm = 0.0, eot_nm = 1.0, gate_length_nm = 1000.0, doping_cm3 = 0.0, gates = "double", orientation = "110" });
+        Assert.Equal(59.5, r.GetProperty("swing_lin_mv_per_dec").GetDouble(), 0.2);
+        Assert.Equal(0, r.GetProperty("sce_shift_lin_mv").GetDouble(), 0.01);
+        Assert.Equal(0, r.GetProperty("dibl_mv_per_v").GetDouble(), 0.01);
         Assert.Contains("not use it in place of electrical test", r.GetProperty("note").GetString(), StringComparison.Ordinal);
     }
 
@@ -32,11 +32,11 @@ public class EvaluateEndpointTests : IntegrationTest
     {
         // Double gate: the exact lowest mode lies above the thin-oxide form √(ε_Si·t_si·t_ox/(2ε_ox)) (Yan, Ourmazd & Lee 1992)
         // and below the Suzuki et al. (1993) form with its (1 + ε_ox·t_si/(4ε_Si·t_ox)) factor (fin-model.md B.2).
-        var r = await EvaluateAsync(new { topWidthNm = 8.0, bottomWidthNm = 8.0, heightNm = 40.0, eotNm = 1.0, gateLengthNm = 20.0, gates = "double" });
+        var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0, gates = "double" });
         const double w = 8, tox = 1, eSi = 11.7, eOx = 3.9;
         var thin = Math.Sqrt(eSi * w * tox / (2 * eOx));
         var suzuki = Math.Sqrt(eSi * w * tox / (2 * eOx) * (1 + (eOx * w / (4 * eSi * tox))));
-        Assert.InRange(r.GetProperty("scaleLengthNm").GetDouble(), thin, suzuki);
+        Assert.InRange(r.GetProperty("scale_length_nm").GetDouble(), thin, suzuki);
     }
 
     [Fact]
@@ -44,40 +44,40 @@ public class EvaluateEndpointTests : IntegrationTest
     {
         // Particle in a box: E₁ = ħ²π²/(2 m_z w²) falls as 1/w², so narrower fins shift more (fin-model.md C.1); the DOS form
         // of C.3 gives 42.6 mV at 5 nm and 19.3 mV at 8 nm for (110) sidewalls ([D] prototype values of the note).
-        var narrow = await EvaluateAsync(new { topWidthNm = 5.0, bottomWidthNm = 5.0, heightNm = 40.0, eotNm = 1.0, gateLengthNm = 20.0 });
-        var wide = await EvaluateAsync(new { topWidthNm = 8.0, bottomWidthNm = 8.0, heightNm = 40.0, eotNm = 1.0, gateLengthNm = 20.0 });
-        Assert.Equal(42.6, narrow.GetProperty("qcShiftMv").GetDouble(), 0.1);
-        Assert.Equal(19.3, wide.GetProperty("qcShiftMv").GetDouble(), 0.1);
+        var narrow = await EvaluateAsync(new { top_width_nm = 5.0, bottom_width_nm = 5.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0 });
+        var wide = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0 });
+        Assert.Equal(42.6, narrow.GetProperty("qc_shift_mv").GetDouble(), 0.1);
+        Assert.Equal(19.3, wide.GetProperty("qc_shift_mv").GetDouble(), 0.1);
     }
 
     [Fact]
     public async Task Evaluate_TaperedFin_ReportsGeometryAndSlices()
     {
-        var r = await EvaluateAsync(new { topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, cornerRadiusNm = 2.0, eotNm = 0.9, gateLengthNm = 20.0, dopingCm3 = 1e17 });
+        var r = await EvaluateAsync(new { top_width_nm = 6.0, bottom_width_nm = 10.0, height_nm = 42.0, corner_radius_nm = 2.0, eot_nm = 0.9, gate_length_nm = 20.0, doping_cm3 = 1e17 });
         // Taper atan((Wb − Wt)/(2H)) = atan(4/84) (fin-model.md A.1, elementary).
-        Assert.Equal(Math.Atan(4.0 / 84) * 180 / Math.PI, r.GetProperty("geometry").GetProperty("taperDeg").GetDouble(), 9);
-        Assert.Equal(8.0, r.GetProperty("geometry").GetProperty("midWidthNm").GetDouble(), 12);
+        Assert.Equal(Math.Atan(4.0 / 84) * 180 / Math.PI, r.GetProperty("geometry").GetProperty("taper_deg").GetDouble(), 9);
+        Assert.Equal(8.0, r.GetProperty("geometry").GetProperty("mid_width_nm").GetDouble(), 12);
         var slices = r.GetProperty("slices").EnumerateArray().ToList();
-        Assert.Equal(1.0, slices.Sum(s => s.GetProperty("currentShare").GetDouble()), 1e-9);
+        Assert.Equal(1.0, slices.Sum(s => s.GetProperty("current_share").GetDouble()), 1e-9);
         Assert.True(slices[^1].GetProperty("corner").GetBoolean());
         // Saturation lowers the threshold (DIBL > 0), as the quasi-2-D model gives for any finite L/λ (B.5).
-        Assert.True(r.GetProperty("vtSatV").GetDouble() < r.GetProperty("vtLinV").GetDouble());
-        Assert.True(r.GetProperty("diblMvPerV").GetDouble() > 0);
+        Assert.True(r.GetProperty("vt_sat_v").GetDouble() < r.GetProperty("vt_lin_v").GetDouble());
+        Assert.True(r.GetProperty("dibl_mv_per_v").GetDouble() > 0);
     }
 
     [Fact]
     public async Task Evaluate_OutsideTheValidityRange_WarnsInsteadOfStayingSilent()
     {
-        var r = await EvaluateAsync(new { topWidthNm = 20.0, bottomWidthNm = 20.0, heightNm = 20.0, eotNm = 2.0, gateLengthNm = 15.0 });
+        var r = await EvaluateAsync(new { top_width_nm = 20.0, bottom_width_nm = 20.0, height_nm = 20.0, eot_nm = 2.0, gate_length_nm = 15.0 });
         var warnings = r.GetProperty("warnings").EnumerateArray().Select(w => w.GetString()).ToList();
         Assert.Contains(warnings, w => w!.Contains("5–10 nm", StringComparison.Ordinal));
         Assert.Contains(warnings, w => w!.Contains("EOT", StringComparison.Ordinal));
     }
 
     [Theory]
-    [InlineData("{\"bottomWidthNm\":8,\"heightNm\":40,\"eotNm\":1,\"gateLengthNm\":20}", "topWidthNm")]
-    [InlineData("{\"topWidthNm\":8,\"bottomWidthNm\":8,\"heightNm\":40,\"eotNm\":1}", "gateLengthNm")]
-    [InlineData("{\"topWidthNm\":8,\"bottomWidthNm\":8,\"heightNm\":40,\"eotNm\":1,\"gateLengthNm\":20,\"orientation\":\"111\"}", "orientation")]
+    [InlineData("{\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_length_nm\":20}", "top_width_nm")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1}", "gate_length_nm")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_length_nm\":20,\"orientation\":\"111\"}", "orientation")]
     public async Task Evaluate_BadRequest_Returns400NamingTheField(string json, string field)
     {
         using var content = new StringContent(json, System.Text.Encoding.UTF8, "application/json");

@@ -29,7 +29,7 @@ public class ModelEndpointsTests : IntegrationTest
     {
         var response = await Client.PostAsJsonAsync("/api/model/cross-section", new
         {
-            topWidthNm = 8.0, bottomWidthNm = 8.0, heightNm = 20.0, cornerRadiusNm = 0.0, eotNm = 1.0, dopingCm3 = 0.0, gates = "tri", gridNm = 0.5,
+            top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 20.0, corner_radius_nm = 0.0, eot_nm = 1.0, doping_cm3 = 0.0, gates = "tri", grid_nm = 0.5,
         });
         Assert.Equal(HttpStatusCode.Accepted, response.StatusCode);
         var started = await ReadJsonAsync(response);
@@ -40,21 +40,21 @@ public class ModelEndpointsTests : IntegrationTest
         var result = job.GetProperty("result");
         // An undoped fin with a mid-gap gate turns on near the volume-inversion potential v_t·ln(n_th/nᵢ) ≈ 0.44 V
         // (fin-model.md B.5 and F.6); the coarse test mesh moves it by a few mV.
-        Assert.InRange(result.GetProperty("vtV").GetDouble(), 0.35, 0.55);
+        Assert.InRange(result.GetProperty("vt_v").GetDouble(), 0.35, 0.55);
         // Ideal long-channel swing (kT/q)·ln 10 = 59.5 mV/dec at 300 K (Sze & Ng); the 2-D solve is long-channel.
-        Assert.InRange(result.GetProperty("swingMvPerDec").GetDouble(), 58.5, 62);
+        Assert.InRange(result.GetProperty("swing_mv_per_dec").GetDouble(), 58.5, 62);
         var maps = result.GetProperty("maps");
-        Assert.Equal(maps.GetProperty("yNm").GetArrayLength(), maps.GetProperty("potentialV").GetArrayLength());
-        Assert.Equal(maps.GetProperty("xNm").GetArrayLength(), maps.GetProperty("electronDensityCm3")[0].GetArrayLength());
+        Assert.Equal(maps.GetProperty("y_nm").GetArrayLength(), maps.GetProperty("potential_v").GetArrayLength());
+        Assert.Equal(maps.GetProperty("x_nm").GetArrayLength(), maps.GetProperty("electron_density_cm3")[0].GetArrayLength());
         var sweep = result.GetProperty("sweep");
-        Assert.Equal(sweep.GetProperty("vgV").GetArrayLength(), sweep.GetProperty("electronsPerCm").GetArrayLength());
+        Assert.Equal(sweep.GetProperty("vg_v").GetArrayLength(), sweep.GetProperty("electrons_per_cm").GetArrayLength());
 
         // The same shape again comes from the cache.
         var again = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/cross-section", new
         {
-            topWidthNm = 8.0, bottomWidthNm = 8.0, heightNm = 20.0, cornerRadiusNm = 0.0, eotNm = 1.0, dopingCm3 = 0.0, gates = "tri", gridNm = 0.5,
+            top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 20.0, corner_radius_nm = 0.0, eot_nm = 1.0, doping_cm3 = 0.0, gates = "tri", grid_nm = 0.5,
         }));
-        Assert.True(again.GetProperty("fromCache").GetBoolean());
+        Assert.True(again.GetProperty("from_cache").GetBoolean());
         Assert.Equal("done", again.GetProperty("status").GetString());
     }
 
@@ -63,7 +63,7 @@ public class ModelEndpointsTests : IntegrationTest
     {
         var started = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/cross-section", new
         {
-            topWidthNm = 10.0, bottomWidthNm = 14.0, heightNm = 60.0, cornerRadiusNm = 2.0, eotNm = 1.0, dopingCm3 = 1e18, gridNm = 0.1,
+            top_width_nm = 10.0, bottom_width_nm = 14.0, height_nm = 60.0, corner_radius_nm = 2.0, eot_nm = 1.0, doping_cm3 = 1e18, grid_nm = 0.1,
         }));
         var id = started.GetProperty("id").GetString()!;
         var cancel = await Client.DeleteAsync($"/api/model/cross-section/{id}");
@@ -73,10 +73,10 @@ public class ModelEndpointsTests : IntegrationTest
     }
 
     [Theory]
-    [InlineData("{\"bottomWidthNm\":8,\"heightNm\":40,\"eotNm\":1}", "topWidthNm")]
-    [InlineData("{\"topWidthNm\":8,\"bottomWidthNm\":8,\"heightNm\":40,\"eotNm\":1,\"gates\":\"quad\"}", "gates")]
-    [InlineData("{\"topWidthNm\":8,\"bottomWidthNm\":8,\"heightNm\":40}", "eotNm")]
-    [InlineData("{\"topWidthNm\":8,\"bottomWidthNm\":8,\"heightNm\":40,\"eotNm\":1,\"gridNm\":0.01}", "gridNm")]
+    [InlineData("{\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1}", "top_width_nm")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gates\":\"quad\"}", "gates")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40}", "eot_nm")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"grid_nm\":0.01}", "grid_nm")]
     public async Task CrossSection_BadRequest_Returns400NamingTheField(string json, string field)
     {
         using var content = new StringContent(json, System.Text.Encoding.UTF8, "application/json");

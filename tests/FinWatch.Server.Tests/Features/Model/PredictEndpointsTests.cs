@@ -15,12 +15,12 @@ public class PredictEndpointsTests : IntegrationTest
     {
         // G.2 step 6: shifts are differences from the nominal computed with the same code, so the nominal gives 0.
         var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
-            new { product = TestProducts.TriGate, topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, cornerRadiusNm = 2.0 }));
-        Assert.Equal(0, r.GetProperty("deltaVtLinMv").GetDouble());
-        Assert.Equal(0, r.GetProperty("deltaVtSatMv").GetDouble());
-        Assert.Equal(0, r.GetProperty("contributionsSatMv").GetProperty("linearTotal").GetDouble());
+            new { product = TestProducts.TriGate, top_width_nm = 6.0, bottom_width_nm = 10.0, height_nm = 42.0, corner_radius_nm = 2.0 }));
+        Assert.Equal(0, r.GetProperty("delta_vt_lin_mv").GetDouble());
+        Assert.Equal(0, r.GetProperty("delta_vt_sat_mv").GetDouble());
+        Assert.Equal(0, r.GetProperty("contributions_sat_mv").GetProperty("linear_total").GetDouble());
         Assert.Contains("electrical test", r.GetProperty("note").GetString(), StringComparison.Ordinal);
-        Assert.StartsWith("FinWatch.Physics.Analytic/", r.GetProperty("codeVersion").GetString(), StringComparison.Ordinal);
+        Assert.StartsWith("FinWatch.Physics.Analytic/", r.GetProperty("code_version").GetString(), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -29,13 +29,13 @@ public class PredictEndpointsTests : IntegrationTest
         // 0.2 nm narrower at both top and bottom (mid width −0.2 nm, same taper): G.4 gives dVT,lin/dw_mid ≈ −14.8 mV/nm and
         // dVT,sat/dw_mid ≈ −26.5 mV/nm ([D] prototype values of the note), so about +3.0 and +5.3 mV.
         var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
-            new { product = TestProducts.TriGate, topWidthNm = 5.8, bottomWidthNm = 9.8, heightNm = 42.0, cornerRadiusNm = 2.0 }));
-        Assert.Equal(2.96, r.GetProperty("deltaVtLinMv").GetDouble(), 0.3);
-        Assert.Equal(5.3, r.GetProperty("deltaVtSatMv").GetDouble(), 0.5);
-        var c = r.GetProperty("contributionsLinMv");
-        Assert.True(c.GetProperty("midWidth").GetDouble() > 2);
-        Assert.Equal(c.GetProperty("linearTotal").GetDouble(), c.GetProperty("midWidth").GetDouble() + c.GetProperty("taper").GetDouble()
-            + c.GetProperty("height").GetDouble() + c.GetProperty("cornerRadius").GetDouble() + c.GetProperty("dielectric").GetDouble(), 9);
+            new { product = TestProducts.TriGate, top_width_nm = 5.8, bottom_width_nm = 9.8, height_nm = 42.0, corner_radius_nm = 2.0 }));
+        Assert.Equal(2.96, r.GetProperty("delta_vt_lin_mv").GetDouble(), 0.3);
+        Assert.Equal(5.3, r.GetProperty("delta_vt_sat_mv").GetDouble(), 0.5);
+        var c = r.GetProperty("contributions_lin_mv");
+        Assert.True(c.GetProperty("mid_width").GetDouble() > 2);
+        Assert.Equal(c.GetProperty("linear_total").GetDouble(), c.GetProperty("mid_width").GetDouble() + c.GetProperty("taper").GetDouble()
+            + c.GetProperty("height").GetDouble() + c.GetProperty("corner_radius").GetDouble() + c.GetProperty("dielectric").GetDouble(), 9);
     }
 
     [Fact]
@@ -44,32 +44,33 @@ public class PredictEndpointsTests : IntegrationTest
         // Only a height error: σ(ΔVT) = |dVT/dH|·σ_H (G.4 propagation), with dVT,sat/dH from the sensitivities endpoint.
         var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict", new
         {
-            product = TestProducts.TriGate, topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, cornerRadiusNm = 2.0,
-            metrologySd = new { heightNm = 1.5 },
+            product = TestProducts.TriGate, top_width_nm = 6.0, bottom_width_nm = 10.0, height_nm = 42.0, corner_radius_nm = 2.0,
+            metrology_sd = new { height_nm = 1.5 },
         }));
         var s = await ReadJsonAsync(await Client.GetAsync($"/api/model/sensitivities?product={TestProducts.TriGate}"));
-        var dH = s.GetProperty("rows").EnumerateArray().Single(x => x.GetProperty("input").GetString() == "height").GetProperty("dVtSatMv").GetDouble();
-        Assert.Equal(Math.Abs(dH) * 1.5, r.GetProperty("uncertainty").GetProperty("deltaVtSatSdMv").GetDouble(), 1e-9);
+        var dH = s.GetProperty("rows").EnumerateArray().Single(x => x.GetProperty("input").GetString() == "height").GetProperty("delta_vt_sat_mv").GetDouble();
+        Assert.Equal(Math.Abs(dH) * 1.5, r.GetProperty("uncertainty").GetProperty("delta_vt_sat_sd_mv").GetDouble(), 1e-9);
 
         var bad = await Client.PostAsJsonAsync("/api/model/predict", new
         {
-            product = TestProducts.TriGate, topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, metrologySd = new { topWidthNm = -1.0 },
+            product = TestProducts.TriGate, top_width_nm = 6.0, bottom_width_nm = 10.0, height_nm = 42.0, metrology_sd = new { top_width_nm = -1.0 },
         });
         Assert.Equal(HttpStatusCode.BadRequest, bad.StatusCode);
+        Assert.True((await ReadJsonAsync(bad)).GetProperty("errors").TryGetProperty("metrology_sd.top_width_nm", out _));
     }
 
     [Fact]
     public async Task Predict_RadiusLargerThanTheTopAllows_Warns()
     {
         var r = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
-            new { product = TestProducts.TriGate, topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0, cornerRadiusNm = 4.5 }));
+            new { product = TestProducts.TriGate, top_width_nm = 6.0, bottom_width_nm = 10.0, height_nm = 42.0, corner_radius_nm = 4.5 }));
         Assert.Contains(r.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("larger than the top allows", StringComparison.Ordinal));
     }
 
     [Fact]
     public async Task Predict_UnknownProduct_Returns400()
     {
-        var response = await Client.PostAsJsonAsync("/api/model/predict", new { product = "NOPE", topWidthNm = 6.0, bottomWidthNm = 10.0, heightNm = 42.0 });
+        var response = await Client.PostAsJsonAsync("/api/model/predict", new { product = "NOPE", top_width_nm = 6.0, bottom_width_nm = 10.0, height_nm = 42.0 });
         Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
     }
 
@@ -80,10 +81,10 @@ public class PredictEndpointsTests : IntegrationTest
         // EOT −37 / −93 mV per nm, L_eff +5.7 / +14.0 mV per nm.
         var r = await ReadJsonAsync(await Client.GetAsync($"/api/model/sensitivities?product={TestProducts.TriGate}"));
         var rows = r.GetProperty("rows").EnumerateArray().ToDictionary(x => x.GetProperty("input").GetString()!);
-        Assert.Equal(-14.8, rows["mid_width"].GetProperty("dVtLinMv").GetDouble(), 0.1);
-        Assert.Equal(-26.5, rows["mid_width"].GetProperty("dVtSatMv").GetDouble(), 0.1);
-        Assert.Equal(-37, rows["eot"].GetProperty("dVtLinMv").GetDouble(), 1.0);
-        Assert.Equal(5.7, rows["gate_length"].GetProperty("dVtLinMv").GetDouble(), 0.1);
+        Assert.Equal(-14.8, rows["mid_width"].GetProperty("delta_vt_lin_mv").GetDouble(), 0.1);
+        Assert.Equal(-26.5, rows["mid_width"].GetProperty("delta_vt_sat_mv").GetDouble(), 0.1);
+        Assert.Equal(-37, rows["eot"].GetProperty("delta_vt_lin_mv").GetDouble(), 1.0);
+        Assert.Equal(5.7, rows["gate_length"].GetProperty("delta_vt_lin_mv").GetDouble(), 0.1);
     }
 
     [Fact]
@@ -105,13 +106,13 @@ public class PredictEndpointsTests : IntegrationTest
         var stored = await Factory.QueryAsync(db => Microsoft.EntityFrameworkCore.EntityFrameworkQueryableExtensions.ToListAsync(
             db.Measurements.OrderBy(m => m.SiteId)));
         var predicted = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/predict",
-            new { product = TestProducts.TriGate, topWidthNm = 5.8, bottomWidthNm = 9.8, heightNm = 42.0, cornerRadiusNm = 2.0 }));
-        Assert.Equal(predicted.GetProperty("deltaVtSatMv").GetDouble(), stored[0].DeltaVtSatMv!.Value, 9);
-        Assert.Equal(predicted.GetProperty("deltaVtLinMv").GetDouble(), stored[0].DeltaVtLinMv!.Value, 9);
+            new { product = TestProducts.TriGate, top_width_nm = 5.8, bottom_width_nm = 9.8, height_nm = 42.0, corner_radius_nm = 2.0 }));
+        Assert.Equal(predicted.GetProperty("delta_vt_sat_mv").GetDouble(), stored[0].DeltaVtSatMv!.Value, 9);
+        Assert.Equal(predicted.GetProperty("delta_vt_lin_mv").GetDouble(), stored[0].DeltaVtLinMv!.Value, 9);
         Assert.NotNull(stored[0].ModelStampId);
         Assert.Null(stored[1].DeltaVtSatMv); // no radius measured: no prediction
         var stamp = await Factory.QueryAsync(db => Microsoft.EntityFrameworkCore.EntityFrameworkQueryableExtensions.SingleAsync(db.ModelStamps));
-        Assert.Equal(predicted.GetProperty("codeVersion").GetString(), stamp.CodeVersion);
+        Assert.Equal(predicted.GetProperty("code_version").GetString(), stamp.CodeVersion);
 
         var series = await ReadJsonAsync(await Client.GetAsync($"/api/series?product={TestProducts.TriGate}&step=FIN-PROFILE&parameter=delta_vt_sat_mv"));
         Assert.Equal(1, series.GetProperty("count").GetInt32());

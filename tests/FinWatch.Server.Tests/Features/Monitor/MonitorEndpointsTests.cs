@@ -38,6 +38,14 @@ public class MonitorEndpointsTests : IntegrationTest
     }
 
     [Fact]
+    public async Task Points_AfterSeq_GivesOnlyTheLaterPoints()
+    {
+        await BaselineAndContextAsync();
+        var points = await ReadJsonAsync(await Client.GetAsync("/api/contexts/TRI-TOP/points?after_seq=15"));
+        Assert.Equal([16L, 17L, 18L, 19L, 20L], points.EnumerateArray().Select(p => p.GetProperty("seq").GetInt64()));
+    }
+
+    [Fact]
     public async Task PointBeyondTheLimit_RaisesOneAlert_LaterSignalsAddToIt()
     {
         await BaselineAndContextAsync();

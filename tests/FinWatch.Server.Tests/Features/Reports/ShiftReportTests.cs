@@ -114,7 +114,7 @@ public class ShiftReportTests : IntegrationTest
         var cap = Assert.Single(Items(r, "capability_changes"));
         Assert.Equal("nm", cap.GetProperty("unit").GetString());
         var shift = cap.GetProperty("shift");
-        var previous = cap.GetProperty("previous_7_days");
+        var previous = cap.GetProperty("previous_seven_days");
         Assert.Equal(5, shift.GetProperty("points").GetInt32());
         Assert.Equal(5, previous.GetProperty("points").GetInt32());
         Assert.Equal(6.3, shift.GetProperty("mean").GetDouble(), 1e-9);
@@ -161,8 +161,8 @@ public class ShiftReportTests : IntegrationTest
         Assert.Equal(3, shift.GetProperty("points").GetInt32());
         Assert.Equal(JsonValueKind.Null, shift.GetProperty("cpk").ValueKind);
         Assert.Contains("3 points", shift.GetProperty("reason").GetString(), StringComparison.Ordinal);
-        Assert.Equal(10, cap.GetProperty("previous_7_days").GetProperty("points").GetInt32());
-        Assert.Equal(0.35 / (3 * SigmaWithin), cap.GetProperty("previous_7_days").GetProperty("cpk").GetDouble(), 1e-9);
+        Assert.Equal(10, cap.GetProperty("previous_seven_days").GetProperty("points").GetInt32());
+        Assert.Equal(0.35 / (3 * SigmaWithin), cap.GetProperty("previous_seven_days").GetProperty("cpk").GetDouble(), 1e-9);
         Assert.Equal(JsonValueKind.Null, cap.GetProperty("cpk_change").ValueKind);
     }
 
@@ -266,7 +266,7 @@ public class ShiftReportTests : IntegrationTest
         var cap = Assert.Single(sections["capability_changes"]);
         Assert.Equal("", cap["shift_cpk"]);
         Assert.Contains("3 points", cap["shift_reason"], StringComparison.Ordinal);
-        Assert.Equal(0.35 / (3 * SigmaWithin), double.Parse(cap["previous_7_days_cpk"], CultureInfo.InvariantCulture), 1e-9);
+        Assert.Equal(0.35 / (3 * SigmaWithin), double.Parse(cap["previous_seven_days_cpk"], CultureInfo.InvariantCulture), 1e-9);
         Assert.Equal(Encoding.UTF8.GetString(bytes).Split("\r\n").Length - 1, records.Count); // CRLF after every record, no bare LF inside
     }
 }

@@ -19,13 +19,13 @@ public class ForecastEndpointsTests : IntegrationTest
         // The top width loses 0.05 nm a lot, so the taper atan((Wb − Wt)/2H) grows lot by lot.
         await SeedAsync(l => 6.5 - (0.05 * l));
         var r = await ReadJsonAsync(await Client.GetAsync("/api/series/forecast?product=TP-TRI&step=FIN-PROFILE&parameter=taper_deg&window=20"));
-        var inLots = r.GetProperty("inLots");
-        Assert.NotEqual("NoTrend", inLots.GetProperty("status").GetString());
+        var inLots = r.GetProperty("in_lots");
+        Assert.NotEqual("no_trend", inLots.GetProperty("status").GetString());
         Assert.True(inLots.GetProperty("slope").GetDouble() > 0);
-        Assert.True(inLots.GetProperty("pValue").GetDouble() < 0.05);
+        Assert.True(inLots.GetProperty("p_value").GetDouble() < 0.05);
         Assert.Equal(20, r.GetProperty("lots").GetInt32());
         // The hours view has the same trend at 1/6 of the per-lot slope (lots are 6 h apart).
-        Assert.Equal(inLots.GetProperty("slope").GetDouble() / 6, r.GetProperty("inHours").GetProperty("slope").GetDouble(), 9);
+        Assert.Equal(inLots.GetProperty("slope").GetDouble() / 6, r.GetProperty("in_hours").GetProperty("slope").GetDouble(), 9);
     }
 
     [Fact]
@@ -33,7 +33,7 @@ public class ForecastEndpointsTests : IntegrationTest
     {
         await SeedAsync(l => 6.0 + (0.03 * ((l * 7) % 5)));
         var r = await ReadJsonAsync(await Client.GetAsync("/api/series/forecast?product=TP-TRI&step=FIN-PROFILE&parameter=top_width_nm"));
-        Assert.Equal("NoTrend", r.GetProperty("inLots").GetProperty("status").GetString());
-        Assert.Contains("trend", r.GetProperty("inLots").GetProperty("message").GetString(), StringComparison.OrdinalIgnoreCase);
+        Assert.Equal("no_trend", r.GetProperty("in_lots").GetProperty("status").GetString());
+        Assert.Contains("trend", r.GetProperty("in_lots").GetProperty("message").GetString(), StringComparison.OrdinalIgnoreCase);
     }
 }

@@ -29,10 +29,10 @@ public class SpcEndpointsTests : IntegrationTest
         Assert.Equal(45.8159, chart.GetProperty("primary").GetProperty("lcl").GetDouble(), 4);
         Assert.Equal(1.8778, chart.GetProperty("secondary").GetProperty("center").GetDouble(), 4);
         Assert.Equal(JsonValueKind.Null, chart.GetProperty("secondary").GetProperty("values")[0].ValueKind);
-        Assert.Empty(chart.GetProperty("beyondLimitsPrimary").EnumerateArray());
-        Assert.Equal("data", chart.GetProperty("limitsSource").GetString());
+        Assert.Empty(chart.GetProperty("beyond_limits_primary").EnumerateArray());
+        Assert.Equal("data", chart.GetProperty("limits_source").GetString());
         var flags = r.GetProperty("rules").GetProperty("flags");
-        Assert.Equal(["WE1", "WE2", "WE3", "WE4"], flags.EnumerateObject().Select(p => p.Name));
+        Assert.Equal(["we1", "we2", "we3", "we4"], flags.EnumerateObject().Select(p => p.Name));
         Assert.All(flags.EnumerateObject(), p => Assert.Empty(p.Value.EnumerateArray()));
         Assert.All(r.GetProperty("rules").GetProperty("first").EnumerateObject(), p => Assert.Equal(JsonValueKind.Null, p.Value.ValueKind));
     }
@@ -47,10 +47,10 @@ public class SpcEndpointsTests : IntegrationTest
             limits = new { source = "known", mean = 0.0, sigma = 1.0 },
             rules = new[] { "WE1" },
         });
-        Assert.Equal([3], r.GetProperty("chart").GetProperty("beyondLimitsPrimary").EnumerateArray().Select(e => e.GetInt32()));
+        Assert.Equal([3], r.GetProperty("chart").GetProperty("beyond_limits_primary").EnumerateArray().Select(e => e.GetInt32()));
         Assert.Equal(JsonValueKind.Null, r.GetProperty("chart").GetProperty("primary").GetProperty("values")[1].ValueKind);
-        Assert.Equal(3, r.GetProperty("rules").GetProperty("first").GetProperty("WE1").GetInt32());
-        Assert.Equal("known", r.GetProperty("chart").GetProperty("limitsSource").GetString());
+        Assert.Equal(3, r.GetProperty("rules").GetProperty("first").GetProperty("we1").GetInt32());
+        Assert.Equal("known", r.GetProperty("chart").GetProperty("limits_source").GetString());
     }
 
     [Fact]
@@ -63,11 +63,11 @@ public class SpcEndpointsTests : IntegrationTest
             rules = new[] { "WE1", "N3" },
             capability = new { lsl = 4.0, usl = 6.0 },
         });
-        Assert.Equal(JsonValueKind.Null, r.GetProperty("rules").GetProperty("flags").GetProperty("WE1").ValueKind);
-        Assert.Equal(JsonValueKind.Array, r.GetProperty("rules").GetProperty("flags").GetProperty("N3").ValueKind);
+        Assert.Equal(JsonValueKind.Null, r.GetProperty("rules").GetProperty("flags").GetProperty("we1").ValueKind);
+        Assert.Equal(JsonValueKind.Array, r.GetProperty("rules").GetProperty("flags").GetProperty("n3").ValueKind);
         var cap = r.GetProperty("capability");
-        Assert.Equal(JsonValueKind.Null, cap.GetProperty("Cp").ValueKind);
-        Assert.Equal(JsonValueKind.Null, cap.GetProperty("Cpk").ValueKind);
+        Assert.Equal(JsonValueKind.Null, cap.GetProperty("cp").ValueKind);
+        Assert.Equal(JsonValueKind.Null, cap.GetProperty("cpk").ValueKind);
         Assert.NotEmpty(cap.GetProperty("notes").EnumerateArray());
     }
 
@@ -95,7 +95,7 @@ public class SpcEndpointsTests : IntegrationTest
     public async Task Analyses_EwmaWithLambdaOne_FollowsTheValues()
     {
         // With λ = 1 the EWMA statistic is the value itself (Roberts 1959 recursion; spc.md 4.1).
-        var r = await AnalyseAsync(new { values = FlowRate, ewma = new { lambda = 1.0, L = 3.0 } });
+        var r = await AnalyseAsync(new { values = FlowRate, ewma = new { lambda = 1.0, l = 3.0 } });
         Assert.Equal(FlowRate, r.GetProperty("ewma").GetProperty("z").EnumerateArray().Select(e => e.GetDouble()));
     }
 
@@ -107,29 +107,32 @@ public class SpcEndpointsTests : IntegrationTest
             values = FlowRate,
             cusum = new { k = 0.5, h = 4.0 },
             capability = new { lsl = 44.0, usl = 58.0 },
-            percentileCapability = new { lsl = 44.0, usl = 58.0, distribution = "lognormal" },
+            percentile_capability = new { lsl = 44.0, usl = 58.0, distribution = "lognormal" },
             normality = true,
         });
-        Assert.Equal(10, r.GetProperty("cusum").GetProperty("cPlus").GetArrayLength());
-        Assert.Equal(JsonValueKind.Array, r.GetProperty("cusum").GetProperty("signalsUpper").ValueKind);
+        Assert.Equal(10, r.GetProperty("cusum").GetProperty("c_plus").GetArrayLength());
+        Assert.Equal(JsonValueKind.Array, r.GetProperty("cusum").GetProperty("signals_upper").ValueKind);
         var cap = r.GetProperty("capability");
         // Cp = (USL − LSL)/(6·σ_within) with σ_within = MR̄/d2 (spc.md 5.1).
         var sigmaWithin = (16.9 / 9) / (2 / Math.Sqrt(Math.PI));
-        Assert.Equal(14 / (6 * sigmaWithin), cap.GetProperty("Cp").GetDouble(), 10);
-        Assert.Equal(2, cap.GetProperty("ci").GetProperty("Cp").GetArrayLength());
-        Assert.True(r.GetProperty("normality").GetProperty("pValue").GetDouble() is >= 0 and <= 1);
-        Assert.True(r.GetProperty("percentileCapability").GetProperty("cpkPercentile").GetDouble() > 0);
+        Assert.Equal(14 / (6 * sigmaWithin), cap.GetProperty("cp").GetDouble(), 10);
+        Assert.Equal(2, cap.GetProperty("ci").GetProperty("cp").GetArrayLength());
+        Assert.True(r.GetProperty("normality").GetProperty("p_value").GetDouble() is >= 0 and <= 1);
+        Assert.True(r.GetProperty("percentile_capability").GetProperty("cpk_percentile").GetDouble() > 0);
     }
 
     [Theory]
     [InlineData("{\"values\":[1,2],\"chart\":\"P-chart\"}", "chart")]
-    [InlineData("{\"values\":[1,1e300,2],\"ewma\":{\"lambda\":0.2,\"L\":3}}", "values")]
+    [InlineData("{\"values\":[1,1e300,2],\"ewma\":{\"lambda\":0.2,\"l\":3}}", "values")]
     [InlineData("{\"values\":[1,2],\"subgroups\":[[1,2]]}", "values")]
     [InlineData("{\"values\":[1,2,3],\"limits\":{\"source\":\"baseline\",\"count\":9}}", "limits.count")]
     [InlineData("{\"values\":[1,2,3],\"rules\":[\"WE9\"]}", "rules")]
-    [InlineData("{\"values\":[1,2,3],\"ewma\":{\"lambda\":1.5,\"L\":3}}", "ewma.lambda")]
+    [InlineData("{\"values\":[1,2,3],\"ewma\":{\"lambda\":1.5,\"l\":3}}", "ewma.lambda")]
     [InlineData("{\"values\":[1,2,3],\"capability\":{\"lsl\":5,\"usl\":1}}", "capability")]
     [InlineData("{\"values\":[1,2,3],\"limits\":{\"source\":\"data\",\"exclude\":[{\"index\":1}]}}", "limits.exclude[0].reason")]
+    [InlineData("{\"values\":[1,2,3],\"sigma_multiplier\":0}", "sigma_multiplier")]
+    [InlineData("{\"values\":[1,2,3],\"cusum\":{\"k\":0.5,\"h\":4,\"head_start\":9}}", "cusum.head_start")]
+    [InlineData("{\"values\":[1,2,3],\"percentile_capability\":{\"lsl\":1,\"usl\":5,\"distribution\":\"weibull\"}}", "percentile_capability.distribution")]
     public async Task Analyses_BadRequest_Returns400NamingTheField(string json, string field)
     {
         using var content = new StringContent(json, System.Text.Encoding.UTF8, "application/json");
@@ -147,7 +150,7 @@ public class SpcEndpointsTests : IntegrationTest
         var a = await AnalyseAsync(new { values = FlowRate, capability = new { lsl = 44.0, usl = 58.0 } });
         var b = await AnalyseAsync(new { values = shifted, capability = new { lsl = 44.0 + 1e9, usl = 58.0 + 1e9 } });
         Assert.Equal(a.GetProperty("chart").GetProperty("sigma").GetDouble(), b.GetProperty("chart").GetProperty("sigma").GetDouble(), 5);
-        Assert.Equal(a.GetProperty("capability").GetProperty("Cpk").GetDouble(), b.GetProperty("capability").GetProperty("Cpk").GetDouble(), 5);
+        Assert.Equal(a.GetProperty("capability").GetProperty("cpk").GetDouble(), b.GetProperty("capability").GetProperty("cpk").GetDouble(), 5);
     }
 
     [Fact]
@@ -165,7 +168,7 @@ public class SpcEndpointsTests : IntegrationTest
             shifts = new[] { 0.0, 1.0 },
             shewhart = new[] { 3.0 },
             cusum = new[] { new { k = 0.5, h = 4.0 } },
-            ewma = new[] { new { lambda = 0.1, L = 2.814 } },
+            ewma = new[] { new { lambda = 0.1, l = 2.814 } },
             rules = new[] { "westernElectric" },
         });
         var r = await ReadJsonAsync(response);
@@ -180,7 +183,7 @@ public class SpcEndpointsTests : IntegrationTest
         var ewma = r.GetProperty("ewma")[0].GetProperty("arl");
         Assert.Equal(500, ewma[0].GetDouble(), 1.0);
         Assert.Equal(10.3, ewma[1].GetDouble(), 0.05);
-        Assert.Equal(91.75, r.GetProperty("shewhartWithRules").GetProperty("arl")[0].GetDouble(), 0.1);
+        Assert.Equal(91.75, r.GetProperty("shewhart_with_rules").GetProperty("arl")[0].GetDouble(), 0.1);
     }
 
     [Fact]
@@ -210,7 +213,7 @@ public class SpcEndpointsTests : IntegrationTest
         // Montgomery Appendix VI, n = 2: d2 1.128, D4 3.267, A2 1.880.
         Assert.Equal(2, printed.GetProperty("n").GetInt32());
         Assert.Equal(1.128, printed.GetProperty("d2").GetDouble());
-        Assert.Equal(3.267, printed.GetProperty("D4").GetDouble());
+        Assert.Equal(3.267, printed.GetProperty("d4_capital").GetDouble());
         Assert.Equal(2 / Math.Sqrt(Math.PI), r.GetProperty("exact")[0].GetProperty("d2").GetDouble(), 12);
     }
 }

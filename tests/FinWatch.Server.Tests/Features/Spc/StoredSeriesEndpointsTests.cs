@@ -25,7 +25,7 @@ public class StoredSeriesEndpointsTests : IntegrationTest
         // Every wafer has sites 6.01 … 6.05: each mean is 6.03 and each range 0.04.
         Assert.Equal(6.03, chart.GetProperty("center").GetDouble(), 10);
         Assert.Equal(0.04, chart.GetProperty("secondary").GetProperty("center").GetDouble(), 10);
-        Assert.True(r.GetProperty("analysis").GetProperty("rules").GetProperty("flags").TryGetProperty("WE2", out _));
+        Assert.True(r.GetProperty("analysis").GetProperty("rules").GetProperty("flags").TryGetProperty("we2", out _));
     }
 
     [Fact]
@@ -44,8 +44,8 @@ public class StoredSeriesEndpointsTests : IntegrationTest
         // The test product's taper spec is upper 4.0° only (TestProducts): Cp is undefined, Cpk = Cpu.
         var r = await ReadJsonAsync(await Client.GetAsync("/api/series/capability?product=TP-TRI&step=FIN-PROFILE&parameter=taper_deg"));
         var cap = r.GetProperty("analysis").GetProperty("capability");
-        Assert.Equal(System.Text.Json.JsonValueKind.Null, cap.GetProperty("Cp").ValueKind);
-        Assert.Equal(cap.GetProperty("Cpu").GetDouble(), cap.GetProperty("Cpk").GetDouble(), 12);
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, cap.GetProperty("cp").ValueKind);
+        Assert.Equal(cap.GetProperty("cpu").GetDouble(), cap.GetProperty("cpk").GetDouble(), 12);
         Assert.Equal(120, cap.GetProperty("n").GetInt32());
     }
 
@@ -64,9 +64,9 @@ public class StoredSeriesEndpointsTests : IntegrationTest
         var r = await ReadJsonAsync(response);
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         Assert.Equal(12, r.GetProperty("lots").GetArrayLength());
-        Assert.Equal(12, r.GetProperty("betweenLots").GetProperty("primary").GetProperty("values").GetArrayLength());
-        Assert.Equal(24, r.GetProperty("withinWafer").GetProperty("values").GetArrayLength());
+        Assert.Equal(12, r.GetProperty("between_lots").GetProperty("primary").GetProperty("values").GetArrayLength());
+        Assert.Equal(24, r.GetProperty("within_wafer").GetProperty("values").GetArrayLength());
         // Every wafer has the same sites, so the wafer means within a lot do not differ: range 0.
-        Assert.Equal(0, r.GetProperty("withinLot").GetProperty("values")[0].GetDouble(), 12);
+        Assert.Equal(0, r.GetProperty("within_lot").GetProperty("values")[0].GetDouble(), 12);
     }
 }

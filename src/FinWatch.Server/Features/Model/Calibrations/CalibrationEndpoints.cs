@@ -3,6 +3,7 @@ using System.Globalization;
 using FinWatch.Data;
 using FinWatch.Server.Features.Measurements;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Mvc;
 using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Model.Calibrations;
@@ -25,12 +26,12 @@ public static class CalibrationEndpoints
     }
 
     private static async Task<Results<Ok<CalibrationResponse>, Created<CalibrationResponse>, ProblemHttpResult>> CalibrateAsync(
-        HttpContext http, CalibrateModel calibrate, string? reason, bool? preview, double? measurementSdMv, CancellationToken cancellationToken)
+        HttpContext http, CalibrateModel calibrate, string? reason, bool? preview, [FromQuery(Name = "measurement_sd_mv")] double? measurementSdMv, CancellationToken cancellationToken)
     {
         if (measurementSdMv is { } sd && !(sd >= 0.1 && sd <= 100))
         {
             return TypedResults.Problem(MeasurementsEndpoints.Rejection(new IngestRejected(0, 1,
-                [RowError.For(0, "measurementSdMv", sd.ToString(CultureInfo.InvariantCulture), "the threshold's test uncertainty is 0.1 to 100 mV")])));
+                [RowError.For(0, "measurement_sd_mv", sd.ToString(CultureInfo.InvariantCulture), "the threshold's test uncertainty is 0.1 to 100 mV")])));
         }
 
         var (stream, name) = await MeasurementsEndpoints.OpenCsvAsync(http, MaxBodyBytes, cancellationToken);

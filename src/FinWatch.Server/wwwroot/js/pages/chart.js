@@ -200,7 +200,7 @@ async function drawCapability() {
   const width = (max - min) / bins || 1;
   const counts = new Array(bins).fill(0);
   for (const v of values) counts[Math.min(bins - 1, Math.floor((v - min) / width))]++;
-  const sd = c?.sigmaOverall;
+  const sd = c?.sigma_overall;
   const curve = [];
   if (c?.mean != null && sd > 0) {
     for (let i = 0; i <= 100; i++) {
@@ -225,9 +225,9 @@ async function drawCapability() {
   });
   const ci = (k) => (c?.ci?.[k] ? ` (${(c.confidence * 100).toFixed(0)} % CI ${number(c.ci[k][0], 2)}–${number(c.ci[k][1], 2)})` : '');
   fill(box,
-    el('p', {}, `Cpk ${number(c?.Cpk, 2)}${ci('Cpk')} · Cp ${number(c?.Cp, 2)} · Ppk ${number(c?.Ppk, 2)} · n = ${c?.n ?? 0} wafers (the indices use every wafer mean in the range; the histogram shows the chart's points)`),
-    el('p', {}, `mean ${withUnit(c?.mean, context.unit)} · σ within ${withUnit(c?.sigmaWithin, context.unit)} · σ overall ${withUnit(c?.sigmaOverall, context.unit)}`),
-    cap.normality?.pValue != null ? el('p', {}, `Anderson–Darling A²* = ${number(cap.normality.a2Star, 3)}, p = ${number(cap.normality.pValue, 3)}${cap.normality.pValue < 0.05 ? ': not normal at 5 %, read Cpk with care' : ''}`) : '',
+    el('p', {}, `Cpk ${number(c?.cpk, 2)}${ci('cpk')} · Cp ${number(c?.cp, 2)} · Ppk ${number(c?.ppk, 2)} · n = ${c?.n ?? 0} wafers (the indices use every wafer mean in the range; the histogram shows the chart's points)`),
+    el('p', {}, `mean ${withUnit(c?.mean, context.unit)} · σ within ${withUnit(c?.sigma_within, context.unit)} · σ overall ${withUnit(c?.sigma_overall, context.unit)}`),
+    cap.normality?.p_value != null ? el('p', {}, `Anderson–Darling A²* = ${number(cap.normality.a2_star, 3)}, p = ${number(cap.normality.p_value, 3)}${cap.normality.p_value < 0.05 ? ': not normal at 5 %, read Cpk with care' : ''}`) : '',
     (c?.notes ?? []).map((n) => el('p', { class: 'muted' }, n)));
 }
 

@@ -92,7 +92,7 @@ function render(r) {
     r.capability_changes.map((c) => el('tr', { dataset: { context: c.context } },
       el('td', {}, chartLink(c.context)),
       el('td', { class: 'num' }, `${c.lsl == null ? '—' : withUnit(c.lsl, c.unit)} … ${c.usl == null ? '—' : withUnit(c.usl, c.unit)}`),
-      capabilityCell(c.shift, c.unit), capabilityCell(c.previous_7_days, c.unit),
+      capabilityCell(c.shift, c.unit), capabilityCell(c.previous_seven_days, c.unit),
       el('td', { class: 'num' }, c.cpk_change == null ? '—' : `${c.cpk_change >= 0 ? '+' : ''}${number(c.cpk_change, 2)} (Cpk)`))),
     'No chart watches a parameter with specification limits.'));
 }

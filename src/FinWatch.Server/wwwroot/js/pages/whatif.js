@@ -1,5 +1,5 @@
 // What-if: move the fin profile away from a product's nominal and see the model's predicted ΔVT, Δswing and ΔDIBL
-// (POST /api/model/predict, camelCase), with the contribution of each input. An engineering estimate, said so.
+// (POST /api/model/predict), with the contribution of each input. An engineering estimate, said so.
 import { el, fill, $, param } from '../core/dom.js';
 import { getJson, sendJson, ApiError } from '../core/api.js';
 import { frame } from '../core/shell.js';
@@ -10,15 +10,15 @@ frame('whatif.html');
 
 // id, label, request field, unit, server limits [low, high] (low exclusive for the widths and height), step.
 const inputs = [
-  { id: 'top-width', label: 'Top width', field: 'topWidthNm', unit: 'nm', min: 0.01, max: 100, step: 0.01, q: 'wt' },
-  { id: 'bottom-width', label: 'Bottom width', field: 'bottomWidthNm', unit: 'nm', min: 0.01, max: 100, step: 0.01, q: 'wb' },
-  { id: 'fin-height', label: 'Fin height', field: 'heightNm', unit: 'nm', min: 0.1, max: 300, step: 0.1, q: 'h' },
-  { id: 'corner-radius', label: 'Corner radius', field: 'cornerRadiusNm', unit: 'nm', min: 0, max: 50, step: 0.01, q: 'r' },
-  { id: 'eot', label: 'Gate dielectric EOT', field: 'eotNm', unit: 'nm', min: 0.05, max: 10, step: 0.01, q: 'eot' },
+  { id: 'top-width', label: 'Top width', field: 'top_width_nm', unit: 'nm', min: 0.01, max: 100, step: 0.01, q: 'wt' },
+  { id: 'bottom-width', label: 'Bottom width', field: 'bottom_width_nm', unit: 'nm', min: 0.01, max: 100, step: 0.01, q: 'wb' },
+  { id: 'fin-height', label: 'Fin height', field: 'height_nm', unit: 'nm', min: 0.1, max: 300, step: 0.1, q: 'h' },
+  { id: 'corner-radius', label: 'Corner radius', field: 'corner_radius_nm', unit: 'nm', min: 0, max: 50, step: 0.01, q: 'r' },
+  { id: 'eot', label: 'Gate dielectric EOT', field: 'eot_nm', unit: 'nm', min: 0.05, max: 10, step: 0.01, q: 'eot' },
 ];
 const contributionLabels = [
-  ['midWidth', 'mid width'], ['taper', 'taper (at fixed mid width)'], ['height', 'fin height'],
-  ['cornerRadius', 'corner radius'], ['dielectric', 'gate dielectric (EOT)'],
+  ['mid_width', 'mid width'], ['taper', 'taper (at fixed mid width)'], ['height', 'fin height'],
+  ['corner_radius', 'corner radius'], ['dielectric', 'gate dielectric (EOT)'],
 ];
 
 const productSelect = $('#product');
@@ -181,15 +181,15 @@ function show(r) {
     el('div', { class: 'shift-value' }, value == null ? '—' : signed(value, unit, digits)),
     value == null ? el('div', { class: 'muted' }, 'not defined for this profile') : null);
   fill($('#shifts'),
-    tile('dvt-lin', 'ΔVT linear', r.deltaVtLinMv, 'mV', 1),
-    tile('dvt-sat', 'ΔVT saturation', r.deltaVtSatMv, 'mV', 1),
-    tile('dswing', 'Δ subthreshold swing', r.deltaSwingLinMvPerDec, 'mV/dec', 2),
-    tile('ddibl', 'ΔDIBL', r.deltaDiblMvPerV, 'mV/V', 1));
+    tile('dvt-lin', 'ΔVT linear', r.delta_vt_lin_mv, 'mV', 1),
+    tile('dvt-sat', 'ΔVT saturation', r.delta_vt_sat_mv, 'mV', 1),
+    tile('dswing', 'Δ subthreshold swing', r.delta_swing_lin_mv_per_dec, 'mV/dec', 2),
+    tile('ddibl', 'ΔDIBL', r.delta_dibl_mv_per_v, 'mV/V', 1));
   fill($('#warnings'), r.warnings.length
     ? el('div', { class: 'problem', id: 'validity-warnings' }, el('strong', {}, 'Outside the model’s validity:'), el('ul', {}, r.warnings.map((w) => el('li', {}, w))))
     : el('p', { class: 'muted', id: 'validity-warnings' }, 'No validity warnings for this profile.'));
   fill($('#caution'), el('strong', {}, 'Engineering estimate, not an electrical test result. '), r.note);
-  fill($('#model-version'), `Model parameter set ${r.parameterSet}, ${r.parameterSetVersion}; code ${r.codeVersion}. Dashed: the nominal profile of ${r.product}; filled: the chosen profile with the nominal liner.`);
+  fill($('#model-version'), `Model parameter set ${r.parameter_set}, ${r.parameter_set_version}; code ${r.code_version}. Dashed: the nominal profile of ${r.product}; filled: the chosen profile with the nominal liner.`);
   contributions(r);
 }
 
@@ -200,9 +200,9 @@ function signed(value, unit, digits) {
 
 function contributions(r) {
   const regime = $('#contrib-regime').value;
-  const c = regime === 'lin' ? r.contributionsLinMv : r.contributionsSatMv;
-  const exact = regime === 'lin' ? r.deltaVtLinMv : r.deltaVtSatMv;
-  const largest = Math.max(1e-9, ...contributionLabels.map(([k]) => Math.abs(c[k])), Math.abs(c.linearTotal));
+  const c = regime === 'lin' ? r.contributions_lin_mv : r.contributions_sat_mv;
+  const exact = regime === 'lin' ? r.delta_vt_lin_mv : r.delta_vt_sat_mv;
+  const largest = Math.max(1e-9, ...contributionLabels.map(([k]) => Math.abs(c[k])), Math.abs(c.linear_total));
   const line = (key, label, value, cls) => {
     const bar = el('span', { class: `bar${value < 0 ? ' negative' : ''}` });
     const half = (Math.abs(value) / largest) * 50;
@@ -216,10 +216,10 @@ function contributions(r) {
   };
   fill($('#contrib'),
     contributionLabels.map(([k, label]) => line(k, label, c[k])),
-    line('linearTotal', 'sum (linear estimate)', c.linearTotal, 'total'));
+    line('linear_total', 'sum (linear estimate)', c.linear_total, 'total'));
   fill($('#contrib-note'),
-    `Bars right of the centre line raise VT, left lower it (rust). The contributions come from the sensitivity table at the nominal and add up to the linear estimate ${signed(c.linearTotal, 'mV', 2)}; `,
-    `the full model gives ${exact == null ? '—' : signed(exact, 'mV', 2)} (difference ${exact == null ? '—' : withUnit(exact - c.linearTotal, 'mV', 2)}, the non-linear part).`);
+    `Bars right of the centre line raise VT, left lower it (rust). The contributions come from the sensitivity table at the nominal and add up to the linear estimate ${signed(c.linear_total, 'mV', 2)}; `,
+    `the full model gives ${exact == null ? '—' : signed(exact, 'mV', 2)} (difference ${exact == null ? '—' : withUnit(exact - c.linear_total, 'mV', 2)}, the non-linear part).`);
 }
 
 if (products.length) setProduct(productSelect.value, true);
