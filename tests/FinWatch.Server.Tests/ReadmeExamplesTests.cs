@@ -5,7 +5,7 @@ using System.Text.RegularExpressions;
 
 namespace FinWatch.Server.Tests;
 
-/// <summary>The examples in README.md work as printed: the product is created, the CSV and the JSON are accepted.</summary>
+/// <summary>The examples in README.md and docs/ work as printed: the product is created, the CSV and the JSON are accepted.</summary>
 public partial class ReadmeExamplesTests : IntegrationTest
 {
     protected override bool CreateProducts => false;
@@ -15,8 +15,7 @@ public partial class ReadmeExamplesTests : IntegrationTest
 
     private static List<(string Lang, string Body)> Blocks()
     {
-        var readme = File.ReadAllText(Path.Combine(TestPaths.RepositoryRoot(), "README.md"));
-        return CodeBlock().Matches(readme).Select(m => (m.Groups["lang"].Value, m.Groups["body"].Value)).ToList();
+        return CodeBlock().Matches(TestPaths.DocumentationText()).Select(m => (m.Groups["lang"].Value, m.Groups["body"].Value)).ToList();
     }
 
     [Fact]

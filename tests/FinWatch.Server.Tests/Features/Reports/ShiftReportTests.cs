@@ -324,10 +324,9 @@ public class ShiftOptionsTests
     }
 
     [Fact]
-    public void ReadmeExample_IsAValidPatternThatReplacesTheDefault()
+    public void DocumentedExample_IsAValidPatternThatReplacesTheDefault()
     {
-        var readme = File.ReadAllText(Path.Combine(TestPaths.RepositoryRoot(), "README.md"));
-        var block = Regex.Matches(readme, "```json\n(?<body>.*?)```", RegexOptions.Singleline)
+        var block = Regex.Matches(TestPaths.DocumentationText(), "```json\n(?<body>.*?)```", RegexOptions.Singleline)
             .Select(m => m.Groups["body"].Value).Single(b => b.Contains("\"Shifts\"", StringComparison.Ordinal));
         var configuration = new ConfigurationBuilder().AddJsonStream(new MemoryStream(Encoding.UTF8.GetBytes(block))).Build();
         var options = new ShiftOptions();
