@@ -64,17 +64,24 @@ public static class IngestBenchmark
     // writer's own output cut after N data lines, and the baseline gets the same first N rows as objects.
     private static List<DemoSiteRow> WriteCsv(string path, int rows)
     {
-        var scale = new DemoScale(LotsPerDay: 38);
-        var list = DemoFab.GenerateRows(DemoFab.DefaultSeed, scale).Take(rows).ToList();
+        var list = DemoFab.GenerateRows(DemoFab.DefaultSeed, Scale).Take(rows).ToList();
         if (list.Count < rows)
         {
             throw new InvalidOperationException($"the generator gave only {list.Count} rows");
         }
 
+        WriteDemoCsv(path, rows);
+        return list;
+    }
+
+    private static readonly DemoScale Scale = new(LotsPerDay: 38);
+
+    /// <summary>The demo writer's CSV cut after <paramref name="rows"/> data lines (the file every ingest run uploads).</summary>
+    internal static void WriteDemoCsv(string path, int rows)
+    {
         using var file = new StreamWriter(path, false, new UTF8Encoding(false), 1 << 16);
         using var limited = new LineLimitWriter(file, rows + 1);
-        DemoFab.WriteMeasurementsCsv(limited, DemoFab.DefaultSeed, scale);
-        return list;
+        DemoFab.WriteMeasurementsCsv(limited, DemoFab.DefaultSeed, Scale);
     }
 
     private static double Baseline(string dbPath, List<DemoSiteRow> data)

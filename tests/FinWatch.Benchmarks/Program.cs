@@ -2,6 +2,8 @@ using FinWatch.Benchmarks;
 
 // Benchmarks are not part of the test run. Usage (README, Performance):
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- ingest [rows]
+//   dotnet run -c Release --project tests/FinWatch.Benchmarks -- csv [rows] [rounds]
+//   dotnet run -c Release --project tests/FinWatch.Benchmarks -- csv-agree [inputs] [seed]
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- rules
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- model
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- solver
@@ -10,6 +12,8 @@ using FinWatch.Benchmarks;
 return args.FirstOrDefault() switch
 {
     "ingest" => await IngestBenchmark.RunAsync(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 1_000_000),
+    "csv" => await CsvReadBenchmark.RunAsync((int)Arg(1, 1_000_000), (int)Arg(2, 7)),
+    "csv-agree" => await CsvAgreement.RunAsync((int)Arg(1, 5000), (int)Arg(2, 1)),
     "rules" => RulesBenchmark.Run(),
     "model" => ModelBenchmark.Run(),
     "solver" => SolverBenchmark.Run(),
@@ -20,7 +24,7 @@ return args.FirstOrDefault() switch
 
 static int Usage()
 {
-    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | rules | model | solver | push [minutes] [clients] [lots-per-minute] | timerange [rows]");
+    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | csv [rows] [rounds] | csv-agree [inputs] [seed] | rules | model | solver | push [minutes] [clients] [lots-per-minute] | timerange [rows]");
     return 2;
 }
 

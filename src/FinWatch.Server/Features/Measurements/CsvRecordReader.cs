@@ -14,9 +14,17 @@ public sealed class CsvRecordReader : IDisposable
 
     // Invalid byte sequences decode to U+FFFF, a noncharacter that never appears in interchanged text, so the parser can
     // report the row and line where they occur (a throwing decoder fails a whole buffer ahead of the parser).
-    private const char InvalidUtf8 = '\uFFFF';
+    internal const char InvalidUtf8 = '\uFFFF';
 
-    private static readonly Encoding MarkingUtf8 = Encoding.GetEncoding(
+    internal const string NotUtf8 = "the file is not valid UTF-8 here (an invalid byte sequence); save it as UTF-8";
+
+    internal const string Unclosed = "a quoted field is not closed before the end of the file (is the file truncated?)";
+
+    internal const string QuoteInUnquoted = "a quote inside an unquoted field (quote the whole field and double the quote)";
+
+    internal static readonly string TooLong = $"the row is longer than {MaxRecordChars} characters; this does not look like a FinWatch CSV file";
+
+    internal static readonly Encoding MarkingUtf8 = Encoding.GetEncoding(
         "utf-8", EncoderFallback.ExceptionFallback, new DecoderReplacementFallback(InvalidUtf8.ToString()));
 
     private readonly TextReader reader;
@@ -90,7 +98,7 @@ public sealed class CsvRecordReader : IDisposable
             {
                 if (!await EnsureAsync(cancellationToken))
                 {
-                    throw Error("a quoted field is not closed before the end of the file (is the file truncated?)");
+                    throw Error(Unclosed);
                 }
 
                 var c = Take();
@@ -121,7 +129,7 @@ public sealed class CsvRecordReader : IDisposable
                         return true;
                     }
 
-                    throw Error($"unexpected character '{Printable(next)}' after a closing quote");
+                    throw Error(AfterClosingQuote(next));
                 }
 
                 if (c == '\n' || (c == '\r' && !await PeekIsAsync('\n', cancellationToken)))
@@ -155,7 +163,7 @@ public sealed class CsvRecordReader : IDisposable
 
             if (c == '"')
             {
-                throw Error("a quote inside an unquoted field (quote the whole field and double the quote)");
+                throw Error(QuoteInUnquoted);
             }
 
             field.Append(Take());
@@ -166,13 +174,13 @@ public sealed class CsvRecordReader : IDisposable
     {
         if (++recordChars > MaxRecordChars)
         {
-            throw Error($"the row is longer than {MaxRecordChars} characters; this does not look like a FinWatch CSV file");
+            throw Error(TooLong);
         }
 
         var c = buffer[pos++];
         if (c == InvalidUtf8)
         {
-            throw Error("the file is not valid UTF-8 here (an invalid byte sequence); save it as UTF-8");
+            throw Error(NotUtf8);
         }
 
         return c;
@@ -215,7 +223,7 @@ public sealed class CsvRecordReader : IDisposable
 
     private CsvFormatException Error(string message) => new(Math.Max(Records, 1), line, message);
 
-    private static string Printable(char c) => char.IsControl(c) ? $"U+{(int)c:X4}" : c.ToString();
+    internal static string AfterClosingQuote(char c) => $"unexpected character '{(char.IsControl(c) ? $"U+{(int)c:X4}" : c.ToString())}' after a closing quote";
 
     public void Dispose() => reader.Dispose();
 }
