@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Physics;
 using FinWatch.Physics.Analytic;
 
@@ -17,14 +18,13 @@ public static class EvaluateModel
     public const string Caution =
         "Engineering estimate from the analytic model of fin-model.md (mid-gap gate, uncalibrated physics defaults); compare shifts against the nominal fin, not absolute values, and do not use it in place of electrical test or the fab's own procedures.";
 
-    public static Dictionary<string, string[]> Check(EvaluateRequest r)
+    public static void Check(EvaluateRequest r, ValidationErrors e)
     {
-        var e = new Dictionary<string, string[]>();
         void Range(string name, double? v, double low, double high, bool required = true)
         {
             if (v is null ? required : !(v > low && v <= high))
             {
-                e[name] = [$"{name} is {(required ? "required, " : "")}{low} < value ≤ {high}"];
+                e[name] = $"{name} is {(required ? "required, " : "")}{low} < value ≤ {high}";
             }
         }
 
@@ -33,34 +33,33 @@ public static class EvaluateModel
         Range("height_nm", r.HeightNm, 0, 300);
         if (r.CornerRadiusNm is { } radius && !(radius >= 0 && radius <= 50))
         {
-            e["corner_radius_nm"] = ["corner_radius_nm is 0 to 50 nm"];
+            e["corner_radius_nm"] = "corner_radius_nm is 0 to 50 nm";
         }
 
         Range("eot_nm", r.EotNm, 0, 10);
         Range("gate_length_nm", r.GateLengthNm, 0, 1000);
         if (r.DopingCm3 is { } n && !(n >= 0 && n <= 1e20))
         {
-            e["doping_cm3"] = ["doping_cm3 is 0 to 1e20 cm⁻³"];
+            e["doping_cm3"] = "doping_cm3 is 0 to 1e20 cm⁻³";
         }
 
         if (r.Gates is not (null or "tri" or "double"))
         {
-            e["gates"] = ["gates is 'tri' or 'double'"];
+            e["gates"] = "gates is 'tri' or 'double'";
         }
 
         if (r.Orientation is not (null or "110" or "100"))
         {
-            e["orientation"] = ["orientation is '110' or '100' (the sidewall surface)"];
+            e["orientation"] = "orientation is '110' or '100' (the sidewall surface)";
         }
 
         Range("vds_lin_v", r.VdsLinV, 0, 5, required: false);
         Range("vds_sat_v", r.VdsSatV, 0, 5, required: false);
         if ((r.VdsLinV ?? 0.05) >= (r.VdsSatV ?? 0.75))
         {
-            e["vds_sat_v"] = ["vds_sat_v must be above vds_lin_v"];
+            e["vds_sat_v"] = "vds_sat_v must be above vds_lin_v";
         }
 
-        return e;
     }
 
     public static EvaluateResponse Run(EvaluateRequest r)
