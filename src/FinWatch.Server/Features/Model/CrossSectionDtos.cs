@@ -23,7 +23,7 @@ public sealed record CrossSectionRequest : IValidatedRequest
     /// <summary>"tri" (top and sidewalls) or "double" (sidewalls only, hard mask on top).</summary>
     public string? Gates { get; init; }
 
-    /// <summary>Mesh spacing, 0.1 to 1 nm (default 0.2 nm, fin-model.md F.7).</summary>
+    /// <summary>Mesh spacing, 0.1 to 1 nm (default 0.2 nm, docs/model.md §F.7).</summary>
     public double? GridNm { get; init; }
 }
 

@@ -24,7 +24,7 @@ public static class PredictEndpoints
     {
         var group = app.MapGroup("/api/model").WithTags("Model");
         group.MapPost("/predict", PredictAsync).WithSummary("Predicted ΔVT, Δswing and ΔDIBL of a profile against its product's nominal, with contributions");
-        group.MapGet("/sensitivities", SensitivitiesAsync).WithSummary("dV/dx of the product's model at its nominal (fin-model.md G.4)");
+        group.MapGet("/sensitivities", SensitivitiesAsync).WithSummary("dV/dx of the product's model at its nominal");
         return app;
     }
 

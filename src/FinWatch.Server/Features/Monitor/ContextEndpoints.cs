@@ -306,7 +306,7 @@ public static partial class ContextEndpoints
         return TypedResults.Created($"/api/contexts/{Uri.EscapeDataString(code)}/limits", Describe(context, limit));
     }
 
-    /// <summary>Centre and σ of a context's chosen points: Xbar-S from summaries or I-MR (spc.md 2.1, 2.3).</summary>
+    /// <summary>Centre and σ of a context's chosen points: Xbar-S from summaries or I-MR (docs/statistics.md §2.1, 2.3).</summary>
     public static (double Centre, double? Sigma) Estimate(ChartContext context, IReadOnlyList<ChartPoint> used) =>
         used.Count == 0 ? (double.NaN, null)
             : context.ChartType == "xbar"

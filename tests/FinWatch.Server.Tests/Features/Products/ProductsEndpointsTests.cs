@@ -91,7 +91,7 @@ public class ProductsEndpointsTests : IntegrationTest
             code = "X5",
             name = "too round",
             gate_faces = "tri-gate",
-            // r_max = (Wt/2)·tan(45° + θ/2) ≈ 3.15 nm for Wt 6, Wb 10, H 42 (fin-model.md A.4).
+            // r_max = (Wt/2)·tan(45° + θ/2) ≈ 3.15 nm for Wt 6, Wb 10, H 42 (docs/model.md §A.4).
             nominal = new { top_width_nm = 6.0, bottom_width_nm = 10.0, fin_height_nm = 42.0, corner_radius_nm = 3.5, liner_thickness_nm = 2.5 },
         };
         var response = await Client.PostAsJsonAsync("/api/products", request);

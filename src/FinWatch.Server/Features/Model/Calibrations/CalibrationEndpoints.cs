@@ -21,7 +21,7 @@ public static class CalibrationEndpoints
         var group = app.MapGroup("/api/model/calibrations").WithTags("Model");
         group.MapPost("/", CalibrateAsync).RequireAuthorization(Permissions.Engineer)
             .Accepts<IFormFile>("text/csv", "multipart/form-data")
-            .WithSummary("Fit the product's calibration (fin-model.md G.3) to an electrical-test CSV; stores the next parameter-set version unless preview=true");
+            .WithSummary("Fit the product's calibration to an electrical-test CSV; stores the next parameter-set version unless preview=true");
         group.MapGet("/", HistoryAsync).WithSummary("A product's calibrations, newest (current) first");
         return app;
     }
