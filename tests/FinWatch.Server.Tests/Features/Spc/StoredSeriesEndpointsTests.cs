@@ -57,7 +57,7 @@ public class StoredSeriesEndpointsTests : IntegrationTest
     }
 
     [Theory]
-    [InlineData("&ewma_lambda=2", "ewma_lambda")]
+    [InlineData("&ewma_lambda=2&ewma_l=3", "ewma_lambda")]
     [InlineData("&sigma_multiplier=0", "sigma_multiplier")]
     [InlineData("&baseline_count=100000", "baseline_count")]
     public async Task Chart_BadAnalysisSetting_Returns400NamingTheQueryParameter(string setting, string field)
