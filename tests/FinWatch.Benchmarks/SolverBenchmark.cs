@@ -5,7 +5,7 @@ using FinWatch.Physics.Solver;
 namespace FinWatch.Benchmarks;
 
 /// <summary>
-/// 2-D Poisson–Boltzmann threshold extraction (fin-model.md F.7 case: 8 × 40 nm undoped fin, 1 nm SiO₂, 0.2 nm mesh),
+/// 2-D Poisson–Boltzmann threshold extraction (docs/model.md §F.7 case: 8 × 40 nm undoped fin, 1 nm SiO₂, 0.2 nm mesh),
 /// and the banded Cholesky of the solver against a plain dense Cholesky of the same order and matrix structure
 /// (a 5-point operator on the same grid), measured side by side on meshes where the dense solve still finishes, with
 /// the O(n³) dense cost extrapolated to the 0.2 nm mesh.

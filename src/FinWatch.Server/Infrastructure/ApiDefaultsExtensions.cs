@@ -39,7 +39,6 @@ public static class ApiDefaultsExtensions
                 ctx.ProblemDetails.Detail = bad.InnerException is JsonException json ? $"{bad.Message} {json.Message}" : bad.Message;
             }
         });
-        builder.Services.AddValidation();
         builder.Services.AddOpenApi();
         builder.Services.TryAddSingleton(TimeProvider.System);
         return builder;

@@ -8,7 +8,7 @@ namespace FinWatch.Server.Infrastructure;
 public static class DataExtensions
 {
     /// <summary>
-    /// Registers the database: the one place the provider is chosen (shared/STYLE.md 3.8). Both providers' contexts are
+    /// Registers the database: the one place the provider is chosen . Both providers' contexts are
     /// registered; <see cref="FinWatchDbContext"/> and <see cref="IDatabaseDialect"/> resolve to the configured one.
     /// </summary>
     public static WebApplicationBuilder AddFinWatchData(this WebApplicationBuilder builder)

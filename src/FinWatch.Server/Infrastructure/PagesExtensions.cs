@@ -14,7 +14,7 @@ public static class PagesExtensions
             // Pages and modules change with every release; the browser revalidates them instead of guessing.
             OnPrepareResponse = c => c.Context.Response.Headers.CacheControl = "no-cache",
         });
-        // UseDefaultFiles rewrites "/" to "/index.html"; routing must come after it (shared/RECIPES.md).
+        // UseDefaultFiles rewrites "/" to "/index.html"; routing must come after it.
         app.UseRouting();
         return app;
     }

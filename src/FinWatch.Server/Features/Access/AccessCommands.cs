@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using Microsoft.AspNetCore.Identity;
@@ -59,7 +60,7 @@ public static class AccessCommands
         return Report(keyErrors, "");
     }
 
-    private static int Report(Dictionary<string, string[]> errors, string done)
+    private static int Report(ValidationErrors errors, string done)
     {
         if (errors.Count == 0)
         {
@@ -67,7 +68,7 @@ public static class AccessCommands
             return 0;
         }
 
-        foreach (var (field, messages) in errors)
+        foreach (var (field, messages) in errors.ToDictionary())
         {
             Console.Error.WriteLine($"{field}: {string.Join("; ", messages)}");
         }
@@ -95,7 +96,7 @@ public static class AccessCommands
             options.BootstrapAdminName, Roles.Administrator, options.BootstrapAdminPassword, "bootstrap (configuration)", scope.ServiceProvider.GetRequiredService<TimeProvider>());
         if (errors.Count > 0)
         {
-            throw new InvalidOperationException("FinWatch:Auth:BootstrapAdminName/Password: " + string.Join("; ", errors.SelectMany(e => e.Value)));
+            throw new InvalidOperationException("FinWatch:Auth:BootstrapAdminName/Password: " + string.Join("; ", errors.ToDictionary().SelectMany(e => e.Value)));
         }
     }
 }

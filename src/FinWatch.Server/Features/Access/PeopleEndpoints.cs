@@ -1,9 +1,9 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Audit;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Identity;
-using Microsoft.AspNetCore.Mvc;
 using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Access;
@@ -49,22 +49,22 @@ public static class PeopleEndpoints
         TypedResults.Ok((await users.Users.OrderBy(u => u.UserName).ToListAsync()).Select(u => Describe(u, clock)).ToList());
 
     /// <summary>Creates a person (also used by the <c>admin add</c> command); the errors are keyed by field.</summary>
-    public static async Task<(FinWatchUser? User, Dictionary<string, string[]> Errors)> AddPersonAsync(
+    public static async Task<(FinWatchUser? User, ValidationErrors Errors)> AddPersonAsync(
         UserManager<FinWatchUser> users, FinWatchDbContext db, string? name, string? role, string? password, string by, TimeProvider clock)
     {
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         if (string.IsNullOrWhiteSpace(name) || name.Trim().Length > 100)
         {
-            errors["name"] = ["name is 1 to 100 letters, digits, spaces, '.', '-' or '_'"];
+            errors["name"] = "name is 1 to 100 letters, digits, spaces, '.', '-' or '_'";
         }
         else if (await users.FindByNameAsync(name.Trim()) is not null)
         {
-            errors["name"] = [$"'{name.Trim()}' exists already"];
+            errors["name"] = $"'{name.Trim()}' exists already";
         }
 
         if (role is null || !Roles.IsPersonRole(role))
         {
-            errors["role"] = [$"role is one of {string.Join(", ", Roles.Ladder)}"];
+            errors["role"] = $"role is one of {string.Join(", ", Roles.Ladder)}";
         }
 
         if (errors.Count > 0)
@@ -76,7 +76,8 @@ public static class PeopleEndpoints
         var created = await users.CreateAsync(user, password ?? "");
         if (!created.Succeeded)
         {
-            return (null, new Dictionary<string, string[]> { [created.Errors.Any(e => e.Code.StartsWith("Password", StringComparison.Ordinal)) ? "password" : "name"] = [.. created.Errors.Select(e => e.Description)] });
+            errors.Set(created.Errors.Any(e => e.Code.StartsWith("Password", StringComparison.Ordinal)) ? "password" : "name", created.Errors.Select(e => e.Description));
+            return (null, errors);
         }
 
         AuditLog.Add(db, by, "person", user.UserName, "created", null, Describe(user, clock), clock);
@@ -88,7 +89,7 @@ public static class PeopleEndpoints
         PersonRequest r, UserManager<FinWatchUser> users, FinWatchDbContext db, TimeProvider clock, HttpContext http)
     {
         var (user, errors) = await AddPersonAsync(users, db, r.Name, r.Role, r.Password, http.User.Who(), clock);
-        return user is null ? TypedResults.ValidationProblem(errors) : TypedResults.Created($"/api/people/{Uri.EscapeDataString(user.UserName!)}", Describe(user, clock));
+        return user is null ? Problems.Invalid(errors) : TypedResults.Created($"/api/people/{Uri.EscapeDataString(user.UserName!)}", Describe(user, clock));
     }
 
     private static async Task<Results<Ok<PersonResponse>, ValidationProblem, ProblemHttpResult>> UpdateAsync(
@@ -102,12 +103,12 @@ public static class PeopleEndpoints
 
         if (r.Role is not null && !Roles.IsPersonRole(r.Role))
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["role"] = [$"role is one of {string.Join(", ", Roles.Ladder)}"] });
+            return Problems.Invalid("role", $"role is one of {string.Join(", ", Roles.Ladder)}");
         }
 
         if (user.UserName == http.User.Who() && (r.Disabled == true || (r.Role is not null && r.Role != Roles.Administrator)))
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["name"] = ["you cannot disable yourself or take away your own administration"] });
+            return Problems.Invalid("name", "you cannot disable yourself or take away your own administration");
         }
 
         var before = Describe(user, clock);
@@ -137,7 +138,9 @@ public static class PeopleEndpoints
         var reset = await users.ResetPasswordAsync(user, token, r.Password ?? "");
         if (!reset.Succeeded)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["password"] = [.. reset.Errors.Select(e => e.Description)] });
+            var errors = new ValidationErrors();
+            errors.Set("password", reset.Errors.Select(e => e.Description));
+            return Problems.Invalid(errors);
         }
 
         await users.SetLockoutEndDateAsync(user, null);
@@ -151,18 +154,18 @@ public static class PeopleEndpoints
         TypedResults.Ok((await db.ApiKeys.AsNoTracking().OrderBy(k => k.Id).ToListAsync()).Select(Describe).ToList());
 
     /// <summary>Creates a key (also used by the <c>keys add</c> command).</summary>
-    public static async Task<(CreatedKeyResponse? Created, Dictionary<string, string[]> Errors)> AddKeyAsync(
+    public static async Task<(CreatedKeyResponse? Created, ValidationErrors Errors)> AddKeyAsync(
         FinWatchDbContext db, string? name, string? scope, string by, TimeProvider clock)
     {
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         if (string.IsNullOrWhiteSpace(name) || name.Length > 100)
         {
-            errors["name"] = ["name says which tool, script or screen holds the key (1 to 100 characters)"];
+            errors["name"] = "name says which tool, script or screen holds the key (1 to 100 characters)";
         }
 
         if (scope is null || !ApiKeys.Scopes.Contains(scope))
         {
-            errors["scope"] = [$"scope is {string.Join(" or ", ApiKeys.Scopes)}"];
+            errors["scope"] = $"scope is {string.Join(" or ", ApiKeys.Scopes)}";
         }
 
         if (errors.Count > 0)
@@ -184,7 +187,7 @@ public static class PeopleEndpoints
     private static async Task<Results<Created<CreatedKeyResponse>, ValidationProblem>> CreateKeyAsync(KeyRequest r, FinWatchDbContext db, TimeProvider clock, HttpContext http)
     {
         var (created, errors) = await AddKeyAsync(db, r.Name, r.Scope, http.User.Who(), clock);
-        return created is null ? TypedResults.ValidationProblem(errors) : TypedResults.Created($"/api/keys/{created.Details.Id}", created);
+        return created is null ? Problems.Invalid(errors) : TypedResults.Created($"/api/keys/{created.Details.Id}", created);
     }
 
     private static async Task<Results<Ok<KeyResponse>, ProblemHttpResult>> RevokeAsync(int id, FinWatchDbContext db, TimeProvider clock, HttpContext http)
@@ -207,8 +210,5 @@ public static class PeopleEndpoints
         return TypedResults.Ok(Describe(key));
     }
 
-    private static ProblemHttpResult NotFound(string what) => TypedResults.Problem(new ProblemDetails
-    {
-        Type = "/problems/not-found", Status = StatusCodes.Status404NotFound, Title = "Not found.", Detail = $"There is no person or key '{what}'.",
-    });
+    private static ProblemHttpResult NotFound(string what) => Problems.NotFound("Not found.", $"There is no person or key '{what}'.");
 }

@@ -27,10 +27,7 @@ public static class LotsEndpoints
         var size = pageSize ?? 50;
         if (p < 1 || size < 1 || size > MaxPageSize || (from is { } f && to is { } t && f > t))
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]>
-            {
-                ["paging"] = [$"page must be ≥ 1, page_size 1 to {MaxPageSize}, and from not after to"],
-            });
+            return Problems.Invalid("paging", $"page must be ≥ 1, page_size 1 to {MaxPageSize}, and from not after to");
         }
 
         var q = from l in db.LotSteps.AsNoTracking()
@@ -83,13 +80,7 @@ public static class LotsEndpoints
             .ToListAsync(cancellationToken);
         if (rows.Count == 0)
         {
-            return TypedResults.Problem(new ProblemDetails
-            {
-                Type = "/problems/not-found",
-                Title = "No such lot.",
-                Status = StatusCodes.Status404NotFound,
-                Detail = $"No measurements are stored for lot '{lot}'.",
-            });
+            return Problems.NotFound("No such lot.", $"No measurements are stored for lot '{lot}'.");
         }
 
         var productId = rows[0].ProductId;

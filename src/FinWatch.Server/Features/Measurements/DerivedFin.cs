@@ -3,7 +3,7 @@ using FinWatch.Physics;
 namespace FinWatch.Server.Features.Measurements;
 
 /// <summary>
-/// The geometry derived on ingest (fin-model.md section A); each value is null when an input it needs was not measured.
+/// The geometry derived on ingest (docs/model.md §A); each value is null when an input it needs was not measured.
 /// </summary>
 public readonly record struct DerivedFin(
     double? TaperDeg, double? MidWidthNm, double? AreaNm2, double? GatedPerimeterNm, double? MaxCornerRadiusNm, GeometryFlags Flags)

@@ -5,7 +5,7 @@ using FinWatch.Physics.Analytic;
 namespace FinWatch.Server.Features.Measurements;
 
 /// <summary>The product facts that validation and derivation need, looked up by the code used in files.</summary>
-/// <param name="Model">The product's analytic threshold model (fin-model.md G.2), used for the predicted shifts.</param>
+/// <param name="Model">The product's analytic threshold model (docs/model.md §G.2), used for the predicted shifts.</param>
 public sealed record ProductRef(int Id, string Code, GatedFaces Faces, ThresholdModel? Model = null);
 
 /// <summary>

@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Physics.Solver;
 
 namespace FinWatch.Server.Features.Model;
@@ -7,8 +8,10 @@ namespace FinWatch.Server.Features.Model;
 /// (docs/model.md F). Lengths in nm. The dielectric is <c>layers</c> (innermost first) or, when absent, one SiO₂ layer of
 /// <c>eot_nm</c>.
 /// </summary>
-public sealed record CrossSectionRequest
+public sealed record CrossSectionRequest : IValidatedRequest
 {
+    public void Validate(ValidationErrors errors) => CrossSectionMapping.Check(this, errors);
+
     public double? TopWidthNm { get; init; }
     public double? BottomWidthNm { get; init; }
     public double? HeightNm { get; init; }
@@ -20,7 +23,7 @@ public sealed record CrossSectionRequest
     /// <summary>"tri" (top and sidewalls) or "double" (sidewalls only, hard mask on top).</summary>
     public string? Gates { get; init; }
 
-    /// <summary>Mesh spacing, 0.1 to 1 nm (default 0.2 nm, fin-model.md F.7).</summary>
+    /// <summary>Mesh spacing, 0.1 to 1 nm (default 0.2 nm, docs/model.md §F.7).</summary>
     public double? GridNm { get; init; }
 }
 

@@ -10,7 +10,7 @@ namespace FinWatch.Server.Features.Model;
 public sealed class CrossSectionJobs(ILogger<CrossSectionJobs> logger) : IDisposable
 {
     public const string Caution =
-        "Engineering estimate from a classical 2-D model relative to the product's own references (fin-model.md F.10 lists what it leaves out); it does not replace electrical test or the fab's own procedures.";
+        "Engineering estimate from a classical 2-D model relative to the product's own references (it leaves out quantum confinement, short-channel effects and interface charge; the limitations list says what else); it does not replace electrical test or the fab's own procedures.";
 
     private readonly ConcurrentDictionary<string, Job> jobs = new(StringComparer.Ordinal);
     private readonly ConcurrentDictionary<string, CrossSectionResult> cache = new(StringComparer.Ordinal);

@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Physics;
 using FinWatch.Physics.Solver;
 
@@ -6,14 +7,13 @@ namespace FinWatch.Server.Features.Model;
 /// <summary>Request checks and the mapping between the API's shapes and the solver's.</summary>
 public static class CrossSectionMapping
 {
-    public static Dictionary<string, string[]> Check(CrossSectionRequest r)
+    public static void Check(CrossSectionRequest r, ValidationErrors e)
     {
-        var e = new Dictionary<string, string[]>();
         void Positive(string name, double? v, double max)
         {
             if (v is not { } x || !(x > 0 && x <= max))
             {
-                e[name] = [$"{name} is required, 0 < value ≤ {max} nm"];
+                e[name] = $"{name} is required, 0 < value ≤ {max} nm";
             }
         }
 
@@ -22,7 +22,7 @@ public static class CrossSectionMapping
         Positive("height_nm", r.HeightNm, 100);
         if (r.CornerRadiusNm is { } radius && !(radius >= 0 && radius <= 50))
         {
-            e["corner_radius_nm"] = ["corner_radius_nm is 0 to 50 nm"];
+            e["corner_radius_nm"] = "corner_radius_nm is 0 to 50 nm";
         }
 
         if (r.Layers is { Length: > 0 } layers)
@@ -31,7 +31,7 @@ public static class CrossSectionMapping
             {
                 if (layers[i].ThicknessNm is not { } t || !(t > 0 && t <= 10) || layers[i].K is not { } k || !(k >= 1 && k <= 100))
                 {
-                    e[$"layers[{i}]"] = ["each layer needs thickness_nm (0 to 10 nm) and k (1 to 100)"];
+                    e[$"layers[{i}]"] = "each layer needs thickness_nm (0 to 10 nm) and k (1 to 100)";
                 }
             }
         }
@@ -42,20 +42,19 @@ public static class CrossSectionMapping
 
         if (r.DopingCm3 is { } n && !(n >= 0 && n <= 1e20))
         {
-            e["doping_cm3"] = ["doping_cm3 is 0 to 1e20 cm⁻³ (acceptors)"];
+            e["doping_cm3"] = "doping_cm3 is 0 to 1e20 cm⁻³ (acceptors)";
         }
 
         if (r.Gates is not (null or "tri" or "double"))
         {
-            e["gates"] = ["gates is 'tri' or 'double'"];
+            e["gates"] = "gates is 'tri' or 'double'";
         }
 
         if (r.GridNm is { } h && !(h >= 0.1 && h <= 1))
         {
-            e["grid_nm"] = ["grid_nm is 0.1 to 1 nm"];
+            e["grid_nm"] = "grid_nm is 0.1 to 1 nm";
         }
 
-        return e;
     }
 
     public static FinSolverRequest ToSolver(CrossSectionRequest r) => new()

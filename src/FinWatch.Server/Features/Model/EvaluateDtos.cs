@@ -1,8 +1,12 @@
+using FinWatch.Server.Infrastructure;
+
 namespace FinWatch.Server.Features.Model;
 
-/// <summary>POST /api/model/evaluate: one device, the model's whole working (fin-model.md sections A to E).</summary>
-public sealed record EvaluateRequest
+/// <summary>POST /api/model/evaluate: one device, the model's whole working (docs/model.md §A–E).</summary>
+public sealed record EvaluateRequest : IValidatedRequest
 {
+    public void Validate(ValidationErrors errors) => EvaluateModel.Check(this, errors);
+
     public double? TopWidthNm { get; init; }
     public double? BottomWidthNm { get; init; }
     public double? HeightNm { get; init; }

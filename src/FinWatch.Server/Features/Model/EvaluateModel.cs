@@ -1,30 +1,30 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Physics;
 using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Server.Features.Model;
 
 /// <summary>
-/// The evaluate use case: the analytic model's working for one device, each value as fin-model.md sections A to E define
+/// The evaluate use case: the analytic model's working for one device, each value as docs/model.md §A–E define
 /// it, with the note's physics defaults for what the request does not give (G.3; calibration comes later).
 /// </summary>
 public static class EvaluateModel
 {
     /// <summary>The caution shown with every prediction made under a product's parameter set (predict, sensitivities, calibrations, stored shifts).</summary>
     public const string PredictionCaution =
-        "Engineering estimate from the analytic model of fin-model.md under the product's current parameter set (physics defaults until a calibration exists): shifts relative to the product's nominal fin, not measured thresholds; do not use it in place of electrical test or the fab's own procedures.";
+        "Engineering estimate from the analytic model of the fin under the product's current parameter set (physics defaults until a calibration exists): shifts relative to the product's nominal fin, not measured thresholds; do not use it in place of electrical test or the fab's own procedures.";
 
     /// <summary>The caution of the whole-working evaluation, which always uses the uncalibrated physics defaults.</summary>
     public const string Caution =
-        "Engineering estimate from the analytic model of fin-model.md (mid-gap gate, uncalibrated physics defaults); compare shifts against the nominal fin, not absolute values, and do not use it in place of electrical test or the fab's own procedures.";
+        "Engineering estimate from the analytic model of the fin (mid-gap gate, uncalibrated physics defaults); compare shifts against the nominal fin, not absolute values, and do not use it in place of electrical test or the fab's own procedures.";
 
-    public static Dictionary<string, string[]> Check(EvaluateRequest r)
+    public static void Check(EvaluateRequest r, ValidationErrors e)
     {
-        var e = new Dictionary<string, string[]>();
         void Range(string name, double? v, double low, double high, bool required = true)
         {
             if (v is null ? required : !(v > low && v <= high))
             {
-                e[name] = [$"{name} is {(required ? "required, " : "")}{low} < value ≤ {high}"];
+                e[name] = $"{name} is {(required ? "required, " : "")}{low} < value ≤ {high}";
             }
         }
 
@@ -33,34 +33,33 @@ public static class EvaluateModel
         Range("height_nm", r.HeightNm, 0, 300);
         if (r.CornerRadiusNm is { } radius && !(radius >= 0 && radius <= 50))
         {
-            e["corner_radius_nm"] = ["corner_radius_nm is 0 to 50 nm"];
+            e["corner_radius_nm"] = "corner_radius_nm is 0 to 50 nm";
         }
 
         Range("eot_nm", r.EotNm, 0, 10);
         Range("gate_length_nm", r.GateLengthNm, 0, 1000);
         if (r.DopingCm3 is { } n && !(n >= 0 && n <= 1e20))
         {
-            e["doping_cm3"] = ["doping_cm3 is 0 to 1e20 cm⁻³"];
+            e["doping_cm3"] = "doping_cm3 is 0 to 1e20 cm⁻³";
         }
 
         if (r.Gates is not (null or "tri" or "double"))
         {
-            e["gates"] = ["gates is 'tri' or 'double'"];
+            e["gates"] = "gates is 'tri' or 'double'";
         }
 
         if (r.Orientation is not (null or "110" or "100"))
         {
-            e["orientation"] = ["orientation is '110' or '100' (the sidewall surface)"];
+            e["orientation"] = "orientation is '110' or '100' (the sidewall surface)";
         }
 
         Range("vds_lin_v", r.VdsLinV, 0, 5, required: false);
         Range("vds_sat_v", r.VdsSatV, 0, 5, required: false);
         if ((r.VdsLinV ?? 0.05) >= (r.VdsSatV ?? 0.75))
         {
-            e["vds_sat_v"] = ["vds_sat_v must be above vds_lin_v"];
+            e["vds_sat_v"] = "vds_sat_v must be above vds_lin_v";
         }
 
-        return e;
     }
 
     public static EvaluateResponse Run(EvaluateRequest r)
@@ -71,7 +70,7 @@ public static class EvaluateModel
         var fin = new FinMeasurement(profile, eot, eot, faces);
         var parameters = new CalibrationParameters
         {
-            Name = "physics defaults (fin-model.md G.3)",
+            Name = "physics defaults",
             Version = "uncalibrated",
             Nominal = fin,
             GateLengthNm = r.GateLengthNm!.Value,
@@ -93,7 +92,7 @@ public static class EvaluateModel
         var warnings = Describe(ThresholdModel.RangeWarnings(fin)).ToList();
         if (ratio < 3 || result.MinLengthRatio < 3)
         {
-            warnings.Add("L/λ is below 3 somewhere in the fin: the first-mode short-channel model is not meaningful (fin-model.md B.5).");
+            warnings.Add("L/λ is below 3 somewhere in the fin: the first-mode short-channel model is not meaningful.");
         }
 
         if (result.PunchThrough)
@@ -137,7 +136,7 @@ public static class EvaluateModel
             {
                 yield return flag switch
                 {
-                    ModelWarnings.WidthOutOfRange => "The mid-height width is outside 5–10 nm, the range the model is meant for (fin-model.md H.1).",
+                    ModelWarnings.WidthOutOfRange => "The mid-height width is outside 5–10 nm, the range the model is meant for.",
                     ModelWarnings.HeightOutOfRange => "The fin height is outside 30–55 nm (H.1).",
                     ModelWarnings.TaperOutOfRange => "The taper is outside 0–6° (H.1); a re-entrant fin counts here.",
                     ModelWarnings.RadiusOutOfRange => "The corner radius is outside 0–4 nm (H.1).",

@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Data;
 using FinWatch.Physics;
 using FinWatch.Physics.Analytic;
@@ -23,30 +24,30 @@ public static class PredictEndpoints
     {
         var group = app.MapGroup("/api/model").WithTags("Model");
         group.MapPost("/predict", PredictAsync).WithSummary("Predicted ΔVT, Δswing and ΔDIBL of a profile against its product's nominal, with contributions");
-        group.MapGet("/sensitivities", SensitivitiesAsync).WithSummary("dV/dx of the product's model at its nominal (fin-model.md G.4)");
+        group.MapGet("/sensitivities", SensitivitiesAsync).WithSummary("dV/dx of the product's model at its nominal");
         return app;
     }
 
     private static async Task<Results<Ok<PredictResponse>, ValidationProblem>> PredictAsync(
         PredictRequest r, FinWatchDbContext db, ProductModels models, CancellationToken cancellationToken)
     {
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         foreach (var (name, v, max) in new[] { ("top_width_nm", r.TopWidthNm, 100.0), ("bottom_width_nm", r.BottomWidthNm, 100.0), ("height_nm", r.HeightNm, 300.0) })
         {
             if (v is not { } x || !(x > 0 && x <= max))
             {
-                errors[name] = [$"{name} is required, 0 < value ≤ {max} nm"];
+                errors[name] = $"{name} is required, 0 < value ≤ {max} nm";
             }
         }
 
         if (r.CornerRadiusNm is { } radius && !(radius >= 0 && radius <= 50))
         {
-            errors["corner_radius_nm"] = ["corner_radius_nm is 0 to 50 nm"];
+            errors["corner_radius_nm"] = "corner_radius_nm is 0 to 50 nm";
         }
 
         if (r.EotNm is { } eot && !(eot > 0 && eot <= 10))
         {
-            errors["eot_nm"] = ["eot_nm is 0 to 10 nm"];
+            errors["eot_nm"] = "eot_nm is 0 to 10 nm";
         }
 
         if (r.MetrologySd is { } m)
@@ -55,7 +56,7 @@ public static class PredictEndpoints
             {
                 if (v is { } sd && !(sd >= 0 && sd <= 10))
                 {
-                    errors[$"metrology_sd.{name}"] = [$"metrology_sd.{name} is 0 to 10 nm (one standard deviation)"];
+                    errors[$"metrology_sd.{name}"] = $"metrology_sd.{name} is 0 to 10 nm (one standard deviation)";
                 }
             }
         }
@@ -63,12 +64,12 @@ public static class PredictEndpoints
         var product = r.Product is null ? null : await db.Products.AsNoTracking().SingleOrDefaultAsync(p => p.Code == r.Product, cancellationToken);
         if (product is null)
         {
-            errors["product"] = [$"'{r.Product}' is not a product code"];
+            errors["product"] = Problems.NotAProduct(r.Product);
         }
 
         if (errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var model = await models.ForAsync(db, product!, cancellationToken);
@@ -100,7 +101,7 @@ public static class PredictEndpoints
         var p = product is null ? null : await db.Products.AsNoTracking().SingleOrDefaultAsync(x => x.Code == product, cancellationToken);
         if (p is null)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["product"] = [$"'{product}' is not a product code"] });
+            return Problems.Invalid("product", Problems.NotAProduct(product));
         }
 
         var model = await models.ForAsync(db, p, cancellationToken);

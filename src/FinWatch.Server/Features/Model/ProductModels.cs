@@ -7,7 +7,7 @@ using Microsoft.EntityFrameworkCore;
 namespace FinWatch.Server.Features.Model;
 
 /// <summary>
-/// The analytic model of each product: its nominal fin and model inputs as a parameter set — the fin-model.md G.3
+/// The analytic model of each product: its nominal fin and model inputs as a parameter set — the docs/model.md §G.3
 /// physics defaults, with the product's current calibration (its highest <see cref="ModelParameterSet"/> version)
 /// applied when one exists — built once per product version and parameter set, and cached.
 /// </summary>

@@ -5,7 +5,6 @@ using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Model;
 using Microsoft.AspNetCore.Http.HttpResults;
-using Microsoft.AspNetCore.Mvc;
 using FinWatch.Server.Infrastructure;
 using Microsoft.EntityFrameworkCore;
 
@@ -33,20 +32,20 @@ public static class AlertEndpoints
     private static async Task<Results<Ok<List<AlertMessage>>, ValidationProblem>> ListAsync(
         string? state, string? context, string? severity, bool? escalated, FinWatchDbContext db, CancellationToken cancellationToken)
     {
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         if (state is not null && state != "active" && !AlertStates.All.Contains(state))
         {
-            errors["state"] = [$"state is active (not closed), {string.Join(", ", AlertStates.All)}"];
+            errors["state"] = $"state is active (not closed), {string.Join(", ", AlertStates.All)}";
         }
 
         if (severity is not null && Array.IndexOf(Severity.Names, severity) < 1)
         {
-            errors["severity"] = ["severity is low, medium, high or critical (that level or above)"];
+            errors["severity"] = "severity is low, medium, high or critical (that level or above)";
         }
 
         if (errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var q = db.Alerts.AsNoTracking();
@@ -116,15 +115,15 @@ public static class AlertEndpoints
         }
 
         var context = await db.ChartContexts.AsNoTracking().SingleAsync(c => c.Id == alert.ContextId, cancellationToken);
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         if (alert.State != from)
         {
-            errors["state"] = [$"alert {id} is {alert.State}; only an {from} alert can become {to} (open → acknowledged → dispositioned → closed)"];
+            errors["state"] = $"alert {id} is {alert.State}; only an {from} alert can become {to} (open → acknowledged → dispositioned → closed)";
         }
 
         if (r.Comment is { Length: > 4000 })
         {
-            errors["comment"] = ["comment is at most 4000 characters"];
+            errors["comment"] = "comment is at most 4000 characters";
         }
 
         var plan = context.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries);
@@ -136,23 +135,23 @@ public static class AlertEndpoints
             var unknown = steps.Where(t => !plan.Contains(t.Step)).Select(t => t.Step).ToList();
             if (missing.Count > 0 || unknown.Count > 0)
             {
-                errors["steps"] = [$"report every step of the context's reaction plan as done or not done; missing: {string.Join(" | ", missing)}; not in the plan: {string.Join(" | ", unknown)}"];
+                errors["steps"] = $"report every step of the context's reaction plan as done or not done; missing: {string.Join(" | ", missing)}; not in the plan: {string.Join(" | ", unknown)}";
             }
 
             if (plan.Length == 0 && string.IsNullOrWhiteSpace(r.Comment))
             {
-                errors["comment"] = ["the context has no reaction plan; say in the comment what was done"];
+                errors["comment"] = "the context has no reaction plan; say in the comment what was done";
             }
         }
 
         if (to == AlertStates.Closed && string.IsNullOrWhiteSpace(r.Comment))
         {
-            errors["comment"] = ["say why the alert can be closed"];
+            errors["comment"] = "say why the alert can be closed";
         }
 
         if (errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
@@ -186,11 +185,5 @@ public static class AlertEndpoints
         return TypedResults.Ok(detail);
     }
 
-    private static ProblemHttpResult NotFound(long id) => TypedResults.Problem(new ProblemDetails
-    {
-        Type = "/problems/not-found",
-        Title = "No such alert.",
-        Status = StatusCodes.Status404NotFound,
-        Detail = $"There is no alert {id}.",
-    });
+    private static ProblemHttpResult NotFound(long id) => Problems.NotFound("No such alert.", $"There is no alert {id}.");
 }

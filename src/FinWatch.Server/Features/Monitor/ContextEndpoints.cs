@@ -79,41 +79,41 @@ public static partial class ContextEndpoints
     private static async Task<Results<Created<ContextResponse>, ValidationProblem>> CreateAsync(
         ContextRequest r, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator, HttpContext http, CancellationToken cancellationToken)
     {
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         if (r.Code is null || !CodePattern().IsMatch(r.Code))
         {
-            errors["code"] = ["code is 1 to 100 letters, digits, '.', '_' or '-', starting with a letter or digit"];
+            errors["code"] = "code is 1 to 100 letters, digits, '.', '_' or '-', starting with a letter or digit";
         }
         else if (await db.ChartContexts.AnyAsync(c => c.Code == r.Code, cancellationToken))
         {
-            errors["code"] = [$"a context '{r.Code}' exists already"];
+            errors["code"] = $"a context '{r.Code}' exists already";
         }
 
         var product = r.Product is null ? null : await db.Products.AsNoTracking().SingleOrDefaultAsync(p => p.Code == r.Product, cancellationToken);
         if (product is null)
         {
-            errors["product"] = [$"'{r.Product}' is not a product code"];
+            errors["product"] = Problems.NotAProduct(r.Product);
         }
 
         if (string.IsNullOrWhiteSpace(r.Step) || r.Step.Length > 64)
         {
-            errors["step"] = ["step is required (1 to 64 characters)"];
+            errors["step"] = "step is required (1 to 64 characters)";
         }
 
         if (r.Parameter is null || !FinParameters.TryGet(r.Parameter, out _))
         {
-            errors["parameter"] = [$"'{r.Parameter}' is not a parameter; the parameters are {FinParameters.NameList}"];
+            errors["parameter"] = $"'{r.Parameter}' is not a parameter; the parameters are {FinParameters.NameList}";
         }
 
         if (r.Chamber is { Length: > 64 })
         {
-            errors["chamber"] = ["chamber is at most 64 characters"];
+            errors["chamber"] = "chamber is at most 64 characters";
         }
 
         CheckCommon(r, errors, creating: true);
         if (errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
@@ -143,20 +143,20 @@ public static partial class ContextEndpoints
             return NotFound(code);
         }
 
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         CheckCommon(r, errors, creating: false);
         var productCode = await db.Products.Where(p => p.Id == context.ProductId).Select(p => p.Code).SingleAsync(cancellationToken);
         foreach (var (name, given, current) in new[] { ("product", r.Product, (string?)productCode), ("step", r.Step, context.Step), ("parameter", r.Parameter, context.Parameter), ("chamber", r.Chamber, context.Chamber) })
         {
             if (given is not null && given != current)
             {
-                errors[name] = [$"{name} cannot change: it defines what the chart watches; create a new context instead"];
+                errors[name] = $"{name} cannot change: it defines what the chart watches; create a new context instead";
             }
         }
 
         if (errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var before = await DescribeAsync(db, context, cancellationToken);
@@ -171,21 +171,21 @@ public static partial class ContextEndpoints
         return TypedResults.Ok(after);
     }
 
-    private static void CheckCommon(ContextRequest r, Dictionary<string, string[]> errors, bool creating)
+    private static void CheckCommon(ContextRequest r, ValidationErrors errors, bool creating)
     {
         if (r.ChartType is not null && !ContextRules.ChartTypes.Contains(r.ChartType))
         {
-            errors["chart_type"] = [$"chart_type is {string.Join(" or ", ContextRules.ChartTypes)}"];
+            errors["chart_type"] = $"chart_type is {string.Join(" or ", ContextRules.ChartTypes)}";
         }
 
         if (r.Subgroup is not null && !ContextRules.Subgroups.Contains(r.Subgroup))
         {
-            errors["subgroup"] = [$"subgroup is {string.Join(" or ", ContextRules.Subgroups)}"];
+            errors["subgroup"] = $"subgroup is {string.Join(" or ", ContextRules.Subgroups)}";
         }
 
         if (!creating && (r.ChartType is not null || r.Subgroup is not null))
         {
-            errors["chart_type"] = ["chart type and subgrouping are fixed once points exist; create a new context instead"];
+            errors["chart_type"] = "chart type and subgrouping are fixed once points exist; create a new context instead";
         }
 
         if (r.Rules is not null)
@@ -194,23 +194,23 @@ public static partial class ContextEndpoints
                 .Where(id => !Statistics.Rules.RunRules.TryParse(id, out _)).ToList();
             if (bad.Count > 0 || ContextRules.Parse(r.Rules).Count == 0)
             {
-                errors["rules"] = [$"unknown rules: {string.Join(", ", bad)}; use WE1..WE4, N1..N8, westernElectric or nelson, comma separated"];
+                errors["rules"] = $"unknown rules: {string.Join(", ", bad)}; use WE1..WE4, N1..N8, westernElectric or nelson, comma separated";
             }
         }
 
         if (r.ReactionPlan is { } plan && (plan.Count > 50 || plan.Any(s => s is null || s.Length > 500)))
         {
-            errors["reaction_plan"] = ["the reaction plan has at most 50 steps of at most 500 characters"];
+            errors["reaction_plan"] = "the reaction plan has at most 50 steps of at most 500 characters";
         }
 
         if (r.ElectricalConcernMv is { } e && !(e > 0 && e <= 1000))
         {
-            errors["electrical_concern_mv"] = ["electrical_concern_mv is above 0 and at most 1000 mV"];
+            errors["electrical_concern_mv"] = "electrical_concern_mv is above 0 and at most 1000 mV";
         }
 
         if (r.Title is { Length: > 200 })
         {
-            errors["title"] = ["title is at most 200 characters"];
+            errors["title"] = "title is at most 200 characters";
         }
     }
 
@@ -270,30 +270,30 @@ public static partial class ContextEndpoints
         var to = r.ToSeq ?? long.MaxValue;
         var points = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == context.Id && p.Seq >= from && p.Seq <= to)
             .OrderBy(p => p.Seq).ToListAsync(cancellationToken);
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         var exclude = r.Exclude ?? [];
         var seqs = points.Select(p => p.Seq).ToHashSet();
         var badExclusions = exclude.Where(e => !seqs.Contains(e.Seq) || string.IsNullOrWhiteSpace(e.Reason)).Select(e => e.Seq).ToList();
         if (badExclusions.Count > 0)
         {
-            errors["exclude"] = [$"each excluded point needs a seq in the chosen range and a reason; not so for {string.Join(", ", badExclusions)}"];
+            errors["exclude"] = $"each excluded point needs a seq in the chosen range and a reason; not so for {string.Join(", ", badExclusions)}";
         }
 
         if (string.IsNullOrWhiteSpace(r.Reason))
         {
-            errors["reason"] = ["say why these limits are computed (kept with the version)"];
+            errors["reason"] = "say why these limits are computed (kept with the version)";
         }
 
         var used = points.Where(p => !exclude.Any(e => e.Seq == p.Seq)).ToList();
         var (centre, sigma) = Estimate(context, used);
         if (sigma is not > 0)
         {
-            errors["points"] = [$"{used.Count} usable points in seq {from}..{(r.ToSeq is null ? "last" : r.ToSeq)}: too few to estimate σ (an xbar chart needs a subgroup of 2 or more sites, an individuals chart 2 points)"];
+            errors["points"] = $"{used.Count} usable points in seq {from}..{(r.ToSeq is null ? "last" : r.ToSeq)}: too few to estimate σ (an xbar chart needs a subgroup of 2 or more sites, an individuals chart 2 points)";
         }
 
         if (errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var version = 1 + (await db.LimitVersions.Where(l => l.ContextId == context.Id).MaxAsync(l => (int?)l.Version, cancellationToken) ?? 0);
@@ -306,7 +306,7 @@ public static partial class ContextEndpoints
         return TypedResults.Created($"/api/contexts/{Uri.EscapeDataString(code)}/limits", Describe(context, limit));
     }
 
-    /// <summary>Centre and σ of a context's chosen points: Xbar-S from summaries or I-MR (spc.md 2.1, 2.3).</summary>
+    /// <summary>Centre and σ of a context's chosen points: Xbar-S from summaries or I-MR (docs/statistics.md §2.1, 2.3).</summary>
     public static (double Centre, double? Sigma) Estimate(ChartContext context, IReadOnlyList<ChartPoint> used) =>
         used.Count == 0 ? (double.NaN, null)
             : context.ChartType == "xbar"
@@ -337,15 +337,12 @@ public static partial class ContextEndpoints
         var effective = r.EffectiveFrom ?? now;
         if (limit.Status != "draft")
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["version"] = [$"v{version} is {limit.Status}: approved limits are frozen; compute a new version to revise them"] });
+            return Problems.Invalid("version", $"v{version} is {limit.Status}: approved limits are frozen; compute a new version to revise them");
         }
 
         if (effective > now || effective.ToUnixTimeMilliseconds() < limit.ToMs)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]>
-            {
-                ["effective_from"] = [$"effective_from lies between the last point the limits were computed from ({DateTimeOffset.FromUnixTimeMilliseconds(limit.ToMs):u}) and now"],
-            });
+            return Problems.Invalid("effective_from", $"effective_from lies between the last point the limits were computed from ({DateTimeOffset.FromUnixTimeMilliseconds(limit.ToMs):u}) and now");
         }
 
         var before = Describe(context, limit);
@@ -398,11 +395,5 @@ public static partial class ContextEndpoints
             count, limit is null ? null : Describe(c, limit), last is null ? null : ContextRules.ToMessage(c, last, lastLimit));
     }
 
-    internal static ProblemHttpResult NotFound(string what) => TypedResults.Problem(new ProblemDetails
-    {
-        Type = "/problems/not-found",
-        Title = "Not found.",
-        Status = StatusCodes.Status404NotFound,
-        Detail = $"There is no chart context or limit version '{what}'.",
-    });
+    internal static ProblemHttpResult NotFound(string what) => Problems.NotFound("Not found.", $"There is no chart context or limit version '{what}'.");
 }

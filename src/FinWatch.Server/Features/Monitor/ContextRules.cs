@@ -14,7 +14,7 @@ public static class ContextRules
         [.. rules.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries)
             .SelectMany(id => RunRules.TryParse(id, out var r) ? r : []).Distinct()];
 
-    /// <summary>σ of a plotted point: σ/√n on an xbar chart (spc.md 2.3), σ itself on an individuals chart.</summary>
+    /// <summary>σ of a plotted point: σ/√n on an xbar chart (docs/statistics.md §2.3), σ itself on an individuals chart.</summary>
     public static double PointSigma(ChartContext context, LimitVersion limit, int n) =>
         context.ChartType == "xbar" ? limit.Sigma / Math.Sqrt(Math.Max(n, 1)) : limit.Sigma;
 

@@ -14,7 +14,7 @@ public static class ProductsEndpoints
 {
     public static IEndpointRouteBuilder MapProducts(this IEndpointRouteBuilder app)
     {
-        var group = app.MapGroup("/api/products").WithTags("Products");
+        var group = app.MapGroup("/api/products").WithTags("Products").ValidateRequests();
         group.MapGet("/", ListAsync).RequireAuthorization(Permissions.Floor).WithSummary("All products with nominal profile and specification limits");
         group.MapGet("/{code}", GetAsync).RequireAuthorization(Permissions.Floor).WithSummary("One product");
         group.MapPost("/", CreateAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Create a product");
@@ -35,14 +35,9 @@ public static class ProductsEndpoints
         return product is null ? NotFound(code) : TypedResults.Ok(ToResponse(product));
     }
 
-    private static async Task<Results<Created<ProductResponse>, ValidationProblem, ProblemHttpResult>> CreateAsync(
+    private static async Task<Results<Created<ProductResponse>, ProblemHttpResult>> CreateAsync(
         ProductRequest request, FinWatchDbContext db, TimeProvider clock, HttpContext http, CancellationToken cancellationToken)
     {
-        if (ProductRules.Check(request) is { Count: > 0 } errors)
-        {
-            return TypedResults.ValidationProblem(errors);
-        }
-
         if (await db.Products.AnyAsync(p => p.Code == request.Code, cancellationToken))
         {
             return TypedResults.Problem(new ProblemDetails
@@ -66,17 +61,9 @@ public static class ProductsEndpoints
     private static async Task<Results<Ok<ProductResponse>, ValidationProblem, ProblemHttpResult>> UpdateAsync(
         string code, ProductRequest request, FinWatchDbContext db, TimeProvider clock, HttpContext http, CancellationToken cancellationToken)
     {
-        if (ProductRules.Check(request) is { Count: > 0 } errors)
-        {
-            return TypedResults.ValidationProblem(errors);
-        }
-
         if (request.Code != code)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]>
-            {
-                ["code"] = [$"the code in the body ('{request.Code}') differs from the one in the path ('{code}'); codes cannot be renamed"],
-            });
+            return Problems.Invalid("code", $"the code in the body ('{request.Code}') differs from the one in the path ('{code}'); codes cannot be renamed");
         }
 
         var product = await db.Products.Include(p => p.Specs).SingleOrDefaultAsync(p => p.Code == code, cancellationToken);
@@ -92,13 +79,7 @@ public static class ProductsEndpoints
         return TypedResults.Ok(ToResponse(product));
     }
 
-    private static ProblemHttpResult NotFound(string code) => TypedResults.Problem(new ProblemDetails
-    {
-        Type = "/problems/not-found",
-        Title = "No such product.",
-        Status = StatusCodes.Status404NotFound,
-        Detail = $"There is no product with code '{code}'.",
-    });
+    private static ProblemHttpResult NotFound(string code) => Problems.NotFound("No such product.", $"There is no product with code '{code}'.");
 
     private static void Apply(Product product, ProductRequest request, long nowMs)
     {

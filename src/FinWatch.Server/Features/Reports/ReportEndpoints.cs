@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using System.Globalization;
 using System.Text;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -30,7 +31,7 @@ public static class ReportEndpoints
     {
         if (format is not null && format != "json" && format != "csv")
         {
-            return Invalid(new() { ["format"] = [$"format '{format}' is not known; use json (the default) or csv"] });
+            return Invalid(new() { ["format"] = $"format '{format}' is not known; use json (the default) or csv" });
         }
 
         var (r, problem) = await ReportAsync(date, shift, report, options.Value, clock, cancellationToken);
@@ -58,7 +59,7 @@ public static class ReportEndpoints
     /// The shift asked for: <c>date</c> (YYYY-MM-DD, the date the shift starts on in the configured zone) and
     /// <c>shift</c> (a name of the pattern) together; neither gives the last shift that has finished.
     /// </summary>
-    internal static (ShiftWindow? Window, Dictionary<string, string[]>? Errors) Resolve(string? date, string? shift, ShiftOptions options, TimeProvider clock)
+    internal static (ShiftWindow? Window, ValidationErrors? Errors) Resolve(string? date, string? shift, ShiftOptions options, TimeProvider clock)
     {
         var pattern = options.EffectivePattern;
         var zone = ShiftCalendar.TryZone(options.TimeZone, out var z) ? z : TimeZoneInfo.Utc;
@@ -67,31 +68,31 @@ public static class ReportEndpoints
             return (ShiftCalendar.LastFinished(pattern, zone, clock.GetUtcNow()), null);
         }
 
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         var names = string.Join(", ", pattern.Select(s => s.Name));
         DateOnly day = default;
         if (date is null)
         {
-            errors["date"] = ["date is required with shift: the date (YYYY-MM-DD) the shift starts on"];
+            errors["date"] = "date is required with shift: the date (YYYY-MM-DD) the shift starts on";
         }
         else if (!DateOnly.TryParseExact(date, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out day))
         {
-            errors["date"] = [$"date '{date}' is not a date; use YYYY-MM-DD, e.g. 2026-11-29"];
+            errors["date"] = $"date '{date}' is not a date; use YYYY-MM-DD, e.g. 2026-11-29";
         }
 
         var definition = shift is null ? null : pattern.FirstOrDefault(s => string.Equals(s.Name, shift, StringComparison.OrdinalIgnoreCase));
         if (shift is null)
         {
-            errors["shift"] = [$"shift is required with date: one of {names}"];
+            errors["shift"] = $"shift is required with date: one of {names}";
         }
         else if (definition is null)
         {
-            errors["shift"] = [$"shift '{shift}' is not a shift of the pattern; the shifts are {names}"];
+            errors["shift"] = $"shift '{shift}' is not a shift of the pattern; the shifts are {names}";
         }
 
         return errors.Count > 0 ? (null, errors) : (ShiftCalendar.Window(definition!, day, zone), null);
     }
 
-    private static ValidationProblem Invalid(Dictionary<string, string[]> errors) =>
-        TypedResults.ValidationProblem(errors, detail: string.Join(" ", errors.SelectMany(e => e.Value)), type: "/problems/invalid-shift");
+    private static ValidationProblem Invalid(ValidationErrors errors) =>
+        Problems.Invalid(errors, type: "/problems/invalid-shift", detailFromMessages: true);
 }

@@ -35,7 +35,7 @@ public static class SeriesEndpoints
 
         if (query is null || errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var rows = query.Rows(db);

@@ -15,29 +15,29 @@ public sealed record SeriesRow(long At, string Lot, int Slot, string Site, strin
 public sealed record SeriesQuery(string Product, int ProductId, string Step, FinParameter Parameter, string? Chamber, DateTimeOffset? From, DateTimeOffset? To)
 {
     /// <summary>Checks the common query parameters; returns the query or the problems keyed by parameter name.</summary>
-    public static async Task<(SeriesQuery? Query, Dictionary<string, string[]> Errors)> ResolveAsync(FinWatchDbContext db,
+    public static async Task<(SeriesQuery? Query, ValidationErrors Errors)> ResolveAsync(FinWatchDbContext db,
         string? product, string? step, string? parameter, string? chamber, DateTimeOffset? from, DateTimeOffset? to, CancellationToken cancellationToken)
     {
-        var errors = new Dictionary<string, string[]>();
+        var errors = new ValidationErrors();
         if (string.IsNullOrEmpty(product))
         {
-            errors["product"] = ["a product code is required"];
+            errors["product"] = "a product code is required";
         }
 
         if (string.IsNullOrEmpty(step))
         {
-            errors["step"] = ["a process step is required"];
+            errors["step"] = "a process step is required";
         }
 
         FinParameter? p = null;
         if (parameter is null || !FinParameters.TryGet(parameter, out p))
         {
-            errors["parameter"] = [$"'{parameter}' is not a parameter; expected one of {FinParameters.NameList}"];
+            errors["parameter"] = $"'{parameter}' is not a parameter; expected one of {FinParameters.NameList}";
         }
 
         if (from > to)
         {
-            errors["from"] = ["from must not be after to"];
+            errors["from"] = "from must not be after to";
         }
 
         var productId = errors.Count == 0
@@ -45,25 +45,25 @@ public sealed record SeriesQuery(string Product, int ProductId, string Step, Fin
             : null;
         if (errors.Count == 0 && productId is null)
         {
-            errors["product"] = [$"unknown product '{product}'"];
+            errors["product"] = $"unknown product '{product}'";
         }
 
         return errors.Count > 0 ? (null, errors) : (new SeriesQuery(product!, productId!.Value, step!, p!, chamber, from, to), errors);
     }
 
     /// <summary>Checks the level ("site" by default, or "wafer") and the point limit shared by the series endpoints.</summary>
-    public static (string Level, int Limit) CheckLevelAndLimit(string? level, int? limit, int defaultLimit, int maxLimit, Dictionary<string, string[]> errors)
+    public static (string Level, int Limit) CheckLevelAndLimit(string? level, int? limit, int defaultLimit, int maxLimit, ValidationErrors errors)
     {
         var lvl = level ?? "site";
         if (lvl is not ("site" or "wafer"))
         {
-            errors["level"] = ["level is 'site' or 'wafer'"];
+            errors["level"] = "level is 'site' or 'wafer'";
         }
 
         var max = limit ?? defaultLimit;
         if (max < 1 || max > maxLimit)
         {
-            errors["limit"] = [$"limit is 1 to {maxLimit}"];
+            errors["limit"] = $"limit is 1 to {maxLimit}";
         }
 
         return (lvl, max);

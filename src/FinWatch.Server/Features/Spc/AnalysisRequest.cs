@@ -1,11 +1,15 @@
+using FinWatch.Server.Infrastructure;
+
 namespace FinWatch.Server.Features.Spc;
 
 /// <summary>
 /// POST /api/spc/analyses: numbers to analyse. Give <see cref="Values"/> or <see cref="Subgroups"/>; null marks a missing
 /// entry.
 /// </summary>
-public sealed record AnalysisRequest
+public sealed record AnalysisRequest : IValidatedRequest
 {
+    public void Validate(ValidationErrors errors) => AnalysisRules.Check(this, errors);
+
     public double?[]? Values { get; init; }
     public double?[][]? Subgroups { get; init; }
 

@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 namespace FinWatch.Server.Features.Spc;
 
 /// <summary>Checks an analysis request field by field; each problem is keyed by the field's JSON path.</summary>
@@ -6,53 +7,51 @@ public static class AnalysisRules
     public const int MaxPoints = 1_000_000;
     public const double MaxMagnitude = 1e100;
 
-    public static Dictionary<string, string[]> Check(AnalysisRequest r)
+    public static void Check(AnalysisRequest r, ValidationErrors e)
     {
-        var e = new Dictionary<string, string[]>();
-        void Add(string key, string message) => e[key] = e.TryGetValue(key, out var m) ? [.. m, message] : [message];
 
         var hasValues = r.Values is not null;
         var hasSubgroups = r.Subgroups is not null;
         if (hasValues == hasSubgroups)
         {
-            Add("values", "give either values (numbers, null for a missing one) or subgroups (arrays of numbers), not both and not neither");
+            e.Add("values", "give either values (numbers, null for a missing one) or subgroups (arrays of numbers), not both and not neither");
         }
 
         var count = r.Values?.Length ?? r.Subgroups?.Length ?? 0;
         if ((hasValues || hasSubgroups) && count == 0)
         {
-            Add(hasValues ? "values" : "subgroups", "the series is empty");
+            e.Add(hasValues ? "values" : "subgroups", "the series is empty");
         }
 
         if (count > MaxPoints)
         {
-            Add(hasValues ? "values" : "subgroups", $"at most {MaxPoints} points per analysis");
+            e.Add(hasValues ? "values" : "subgroups", $"at most {MaxPoints} points per analysis");
         }
 
         // Squares of larger magnitudes overflow double precision; no measured quantity comes near this.
         var tooLarge = (r.Values ?? []).Select((v, i) => (v, i)).FirstOrDefault(p => p.v is { } x && Math.Abs(x) > MaxMagnitude);
         if (tooLarge.v is not null)
         {
-            Add("values", $"values[{tooLarge.i}] = {tooLarge.v} is beyond ±{MaxMagnitude:0e0}");
+            e.Add("values", $"values[{tooLarge.i}] = {tooLarge.v} is beyond ±{MaxMagnitude:0e0}");
         }
 
         if ((r.Subgroups ?? []).Any(g => g is not null && g.Any(v => v is { } x && Math.Abs(x) > MaxMagnitude)))
         {
-            Add("subgroups", $"a value is beyond ±{MaxMagnitude:0e0}");
+            e.Add("subgroups", $"a value is beyond ±{MaxMagnitude:0e0}");
         }
 
         var chart = r.Chart ?? (hasSubgroups ? "Xbar-R" : "I-MR");
         if (chart is not ("I-MR" or "Xbar-R" or "Xbar-S"))
         {
-            Add("chart", $"'{r.Chart}' is not one of I-MR, Xbar-R, Xbar-S");
+            e.Add("chart", $"'{r.Chart}' is not one of I-MR, Xbar-R, Xbar-S");
         }
         else if (chart == "I-MR" && hasSubgroups)
         {
-            Add("chart", "I-MR charts individual values: send values, or choose Xbar-R or Xbar-S for subgroups");
+            e.Add("chart", "I-MR charts individual values: send values, or choose Xbar-R or Xbar-S for subgroups");
         }
         else if (chart != "I-MR" && hasValues)
         {
-            Add("chart", $"{chart} needs subgroups (arrays of values), not single values");
+            e.Add("chart", $"{chart} needs subgroups (arrays of values), not single values");
         }
 
         for (var i = 0; hasSubgroups && i < r.Subgroups!.Length; i++)
@@ -60,30 +59,30 @@ public static class AnalysisRules
             var g = r.Subgroups[i];
             if (g is null)
             {
-                Add($"subgroups[{i}]", "a subgroup is an array (use [] or nulls for missing values)");
+                e.Add($"subgroups[{i}]", "a subgroup is an array (use [] or nulls for missing values)");
             }
             else if (g.Count(v => v is not null) > 25)
             {
-                Add($"subgroups[{i}]", "a subgroup holds at most 25 values (the chart constants are defined for 2 to 25)");
+                e.Add($"subgroups[{i}]", "a subgroup holds at most 25 values (the chart constants are defined for 2 to 25)");
             }
         }
 
         if (r.Constants is not (null or "exact" or "table"))
         {
-            Add("constants", $"'{r.Constants}' is not 'exact' or 'table'");
+            e.Add("constants", $"'{r.Constants}' is not 'exact' or 'table'");
         }
 
-        CheckLimits(r.Limits, count, Add);
+        CheckLimits(r.Limits, count, e.Add);
         if (r.SigmaMultiplier is { } m && !(m > 0 && m <= 10))
         {
-            Add("sigma_multiplier", "the sigma multiplier must be above 0 and at most 10");
+            e.Add("sigma_multiplier", "the sigma multiplier must be above 0 and at most 10");
         }
 
         foreach (var id in r.Rules ?? [])
         {
             if (!Statistics.Rules.RunRules.TryParse(id ?? "", out _))
             {
-                Add("rules", $"'{id}' is not a rule: use WE1–WE4, N1–N8, westernElectric or nelson");
+                e.Add("rules", $"'{id}' is not a rule: use WE1–WE4, N1–N8, westernElectric or nelson");
             }
         }
 
@@ -91,17 +90,17 @@ public static class AnalysisRules
         {
             if (ewma.Lambda is not { } lambda || !(lambda > 0 && lambda <= 1))
             {
-                Add("ewma.lambda", "lambda is required, 0 < lambda ≤ 1");
+                e.Add("ewma.lambda", "lambda is required, 0 < lambda ≤ 1");
             }
 
             if (ewma.L is not { } l || !(l > 0))
             {
-                Add("ewma.l", "L is required and must be positive");
+                e.Add("ewma.l", "L is required and must be positive");
             }
 
             if (ewma.Sigma is { } s && !(s > 0))
             {
-                Add("ewma.sigma", "sigma must be positive");
+                e.Add("ewma.sigma", "sigma must be positive");
             }
         }
 
@@ -109,49 +108,48 @@ public static class AnalysisRules
         {
             if (cusum.K is not { } k || !(k >= 0))
             {
-                Add("cusum.k", "k is required and must be ≥ 0");
+                e.Add("cusum.k", "k is required and must be ≥ 0");
             }
 
             if (cusum.H is not { } h || !(h > 0))
             {
-                Add("cusum.h", "h is required and must be positive");
+                e.Add("cusum.h", "h is required and must be positive");
             }
 
             if (cusum.Units is not (null or "sigma" or "data"))
             {
-                Add("cusum.units", "units is 'sigma' or 'data'");
+                e.Add("cusum.units", "units is 'sigma' or 'data'");
             }
 
             if (cusum.HeadStart is { } hs && !(hs >= 0 && (cusum.H is not { } hh || hs <= hh)))
             {
-                Add("cusum.head_start", "the head start must lie between 0 and h");
+                e.Add("cusum.head_start", "the head start must lie between 0 and h");
             }
 
             if (cusum.Sigma is { } s && !(s > 0))
             {
-                Add("cusum.sigma", "sigma must be positive");
+                e.Add("cusum.sigma", "sigma must be positive");
             }
         }
 
         if (r.Capability is { } cap)
         {
-            CheckSpec("capability", cap.Lsl, cap.Usl, Add);
+            CheckSpec("capability", cap.Lsl, cap.Usl, e.Add);
             if (cap.Confidence is { } c && !(c > 0 && c < 1))
             {
-                Add("capability.confidence", "the confidence level lies strictly between 0 and 1, e.g. 0.95");
+                e.Add("capability.confidence", "the confidence level lies strictly between 0 and 1, e.g. 0.95");
             }
         }
 
         if (r.PercentileCapability is { } pc)
         {
-            CheckSpec("percentile_capability", pc.Lsl, pc.Usl, Add);
+            CheckSpec("percentile_capability", pc.Lsl, pc.Usl, e.Add);
             if (pc.Distribution is not (null or "lognormal"))
             {
-                Add("percentile_capability.distribution", "the percentile method fits 'lognormal' only");
+                e.Add("percentile_capability.distribution", "the percentile method fits 'lognormal' only");
             }
         }
 
-        return e;
     }
 
     private static void CheckLimits(LimitsRequest? limits, int count, Action<string, string> add)

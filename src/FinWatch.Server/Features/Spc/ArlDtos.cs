@@ -1,8 +1,12 @@
+using FinWatch.Server.Infrastructure;
+
 namespace FinWatch.Server.Features.Spc;
 
 /// <summary>POST /api/spc/arl: chart designs to compare at shifts given in sigmas of the plotted statistic.</summary>
-public sealed record ArlRequest
+public sealed record ArlRequest : IValidatedRequest
 {
+    public void Validate(ValidationErrors errors) => ArlRules.Check(this, errors);
+
     public double[]? Shifts { get; init; }
 
     /// <summary>Plain Shewhart charts, by limit multiplier L.</summary>

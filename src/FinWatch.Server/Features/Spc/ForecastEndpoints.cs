@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Data;
 using FinWatch.Server.Features.Series;
 using FinWatch.Statistics.Forecast;
@@ -51,12 +52,12 @@ public static class ForecastEndpoints
         var w = window ?? 30;
         if (w is < 6 or > MaxWindow)
         {
-            errors["window"] = [$"window is 6 to {MaxWindow} lots"];
+            errors["window"] = $"window is 6 to {MaxWindow} lots";
         }
 
         if (query is null || errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         // Lot means in the order the lots were measured; control limits from the I-MR chart of all lot means in range.

@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Statistics.Constants;
 using FinWatch.Statistics.RunLength;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -8,7 +9,7 @@ public static class SpcEndpoints
 {
     public static IEndpointRouteBuilder MapSpc(this IEndpointRouteBuilder app)
     {
-        var group = app.MapGroup("/api/spc").WithTags("SPC");
+        var group = app.MapGroup("/api/spc").WithTags("SPC").ValidateRequests();
         group.MapPost("/analyses", Analyse)
             .WithSummary("Control chart, run rules, EWMA, CUSUM, capability and normality of the numbers sent");
         group.MapPost("/arl", Arl)
@@ -18,23 +19,10 @@ public static class SpcEndpoints
         return app;
     }
 
-    private static Results<Ok<AnalysisResponse>, ValidationProblem> Analyse(AnalysisRequest request)
+    private static Ok<AnalysisResponse> Analyse(AnalysisRequest request) => TypedResults.Ok(RunAnalysis.Run(request));
+
+    private static Ok<ArlResponse> Arl(ArlRequest request)
     {
-        if (AnalysisRules.Check(request) is { Count: > 0 } errors)
-        {
-            return TypedResults.ValidationProblem(errors);
-        }
-
-        return TypedResults.Ok(RunAnalysis.Run(request));
-    }
-
-    private static Results<Ok<ArlResponse>, ValidationProblem> Arl(ArlRequest request)
-    {
-        if (ArlRules.Check(request) is { Count: > 0 } errors)
-        {
-            return TypedResults.ValidationProblem(errors);
-        }
-
         var shifts = request.Shifts!;
         // A run length beyond 1e12 points cannot be resolved in double precision; it is reported as null, not infinity.
         double?[] Each(Func<double, double> arl) => shifts.Select(d => RunAnalysis.Nullable(arl(d))).ToArray();
@@ -70,6 +58,6 @@ public static class SpcEndpoints
             })
             .ToList();
         return TypedResults.Ok(new ConstantsResponse(Rows(ConstantsMode.Exact), Rows(ConstantsMode.Table),
-            "exact: computed by quadrature (spc.md 1.2); table: the printed factors of Montgomery, Introduction to SQC, Appendix VI"));
+            "exact: computed by quadrature; table: the printed factors of Montgomery, Introduction to SQC, Appendix VI"));
     }
 }

@@ -42,6 +42,24 @@ public static class StoredSeriesEndpoints
 {
     public const int MaxPoints = 50_000;
 
+    /// <summary>The query parameter that sets each field of the analysis request.</summary>
+    private static readonly Dictionary<string, string> QueryNames = new(StringComparer.Ordinal)
+    {
+        ["limits.count"] = "baseline_count",
+        ["ewma.lambda"] = "ewma_lambda",
+        ["ewma.l"] = "ewma_l",
+        ["cusum.k"] = "cusum_k",
+        ["cusum.h"] = "cusum_h",
+        ["capability.lsl"] = "lsl",
+        ["capability.usl"] = "usl",
+        ["capability.target"] = "target",
+        ["capability.confidence"] = "confidence",
+        ["percentile_capability.lsl"] = "lsl",
+        ["percentile_capability.usl"] = "usl",
+        ["capability"] = "lsl",
+        ["percentile_capability"] = "lsl",
+    };
+
     public static IEndpointRouteBuilder MapStoredSeriesAnalysis(this IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/series").WithTags("Series");
@@ -93,7 +111,7 @@ public static class StoredSeriesEndpoints
 
         if (query is null || errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var subgrouped = request.Chart is "Xbar-R" or "Xbar-S";
@@ -139,9 +157,12 @@ public static class StoredSeriesEndpoints
             };
         }
 
-        if (AnalysisRules.Check(request) is { Count: > 0 } problems)
+        var problems = new ValidationErrors();
+        AnalysisRules.Check(request, problems);
+        if (problems.Count > 0)
         {
-            return TypedResults.ValidationProblem(problems);
+            // The analysis names its fields as in the body of POST /api/spc/analyses; here they are query parameters.
+            return Problems.Invalid(problems.Renamed(QueryNames));
         }
 
         var context = new StoredContext(query.Product, query.Step, query.Parameter.Name, query.Parameter.Unit, chamber, subgrouped ? "wafer" : lvl, truncated);

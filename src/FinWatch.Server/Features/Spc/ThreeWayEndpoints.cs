@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Data;
 using FinWatch.Server.Features.Series;
 using FinWatch.Statistics.Constants;
@@ -38,12 +39,12 @@ public static class ThreeWayEndpoints
         var (query, errors) = await SeriesQuery.ResolveAsync(db, product, step, parameter, chamber, from, to, cancellationToken);
         if (constants is not (null or "exact" or "table"))
         {
-            errors["constants"] = ["constants is 'exact' or 'table'"];
+            errors["constants"] = "constants is 'exact' or 'table'";
         }
 
         if (query is null || errors.Count > 0)
         {
-            return TypedResults.ValidationProblem(errors);
+            return Problems.Invalid(errors);
         }
 
         var (wafers, _) = await WaferGroup.CollectAsync(query.Rows(db), MaxLots * 25, cancellationToken);

@@ -23,7 +23,7 @@ public class IngestCsvTests : IntegrationTest
 
         var site = await Factory.QueryAsync(db => db.Measurements.SingleAsync(m => m.WaferSlot == 2 && m.SiteId == "S03"));
         Assert.Equal(6.03, site.TopWidthNm!.Value, 12);
-        // Taper by fin-model.md A.1: atan((Wb − Wt)/(2H)) = atan((10 − 6.03)/84), evaluated independently here.
+        // Taper by docs/model.md §A.1: atan((Wb − Wt)/(2H)) = atan((10 − 6.03)/84), evaluated independently here.
         Assert.Equal(Math.Atan((10 - 6.03) / 84) * 180 / Math.PI, site.TaperDeg!.Value, 9);
         // Mid-height width (A.3): (Wt + Wb)/2.
         Assert.Equal((6.03 + 10) / 2, site.MidWidthNm!.Value, 12);

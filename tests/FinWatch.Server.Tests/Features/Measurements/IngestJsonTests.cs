@@ -23,7 +23,7 @@ public class IngestJsonTests : IntegrationTest
     {
         await PostJsonAsync(SiteRow.Json([new SiteRow { Product = TestProducts.TriGate, LotId = "A" }, new SiteRow { Product = TestProducts.DoubleGate, LotId = "B" }]));
         var stored = await Factory.QueryAsync(db => db.Measurements.OrderBy(m => m.LotId).ToListAsync());
-        // Same profile; the hard-mask product gates only the sidewalls (fin-model.md A.7), so its gated perimeter is shorter.
+        // Same profile; the hard-mask product gates only the sidewalls (docs/model.md §A.7), so its gated perimeter is shorter.
         Assert.True(stored[1].GatedPerimeterNm < stored[0].GatedPerimeterNm);
         Assert.Equal(stored[0].AreaNm2, stored[1].AreaNm2);
     }

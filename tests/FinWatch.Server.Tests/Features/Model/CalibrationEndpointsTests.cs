@@ -8,7 +8,7 @@ using Microsoft.EntityFrameworkCore;
 namespace FinWatch.Server.Tests.Features.Model;
 
 /// <summary>
-/// POST /api/model/calibrations (fin-model.md G.3). The electrical tests are synthetic with a known truth: they are made
+/// POST /api/model/calibrations (docs/model.md §G.3). The electrical tests are synthetic with a known truth: they are made
 /// with the model itself under chosen (L_eff, barrier height, offset), so a correct fit must recover that truth within
 /// its stated posterior uncertainty (a known-answer check of the estimator, as for any regression).
 /// </summary>

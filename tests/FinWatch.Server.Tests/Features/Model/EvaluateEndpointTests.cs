@@ -31,7 +31,7 @@ public class EvaluateEndpointTests : IntegrationTest
     public async Task Evaluate_DoubleGateScaleLength_LiesBetweenThinOxideAndSuzukiForms()
     {
         // Double gate: the exact lowest mode lies above the thin-oxide form √(ε_Si·t_si·t_ox/(2ε_ox)) (Yan, Ourmazd & Lee 1992)
-        // and below the Suzuki et al. (1993) form with its (1 + ε_ox·t_si/(4ε_Si·t_ox)) factor (fin-model.md B.2).
+        // and below the Suzuki et al. (1993) form with its (1 + ε_ox·t_si/(4ε_Si·t_ox)) factor (docs/model.md §B.2).
         var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0, gates = "double" });
         const double w = 8, tox = 1, eSi = 11.7, eOx = 3.9;
         var thin = Math.Sqrt(eSi * w * tox / (2 * eOx));
@@ -42,7 +42,7 @@ public class EvaluateEndpointTests : IntegrationTest
     [Fact]
     public async Task Evaluate_ConfinementShift_FollowsTheWidth()
     {
-        // Particle in a box: E₁ = ħ²π²/(2 m_z w²) falls as 1/w², so narrower fins shift more (fin-model.md C.1); the DOS form
+        // Particle in a box: E₁ = ħ²π²/(2 m_z w²) falls as 1/w², so narrower fins shift more (docs/model.md §C.1); the DOS form
         // of C.3 gives 42.6 mV at 5 nm and 19.3 mV at 8 nm for (110) sidewalls ([D] prototype values of the note).
         var narrow = await EvaluateAsync(new { top_width_nm = 5.0, bottom_width_nm = 5.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0 });
         var wide = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0 });
@@ -54,7 +54,7 @@ public class EvaluateEndpointTests : IntegrationTest
     public async Task Evaluate_TaperedFin_ReportsGeometryAndSlices()
     {
         var r = await EvaluateAsync(new { top_width_nm = 6.0, bottom_width_nm = 10.0, height_nm = 42.0, corner_radius_nm = 2.0, eot_nm = 0.9, gate_length_nm = 20.0, doping_cm3 = 1e17 });
-        // Taper atan((Wb − Wt)/(2H)) = atan(4/84) (fin-model.md A.1, elementary).
+        // Taper atan((Wb − Wt)/(2H)) = atan(4/84) (docs/model.md §A.1, elementary).
         Assert.Equal(Math.Atan(4.0 / 84) * 180 / Math.PI, r.GetProperty("geometry").GetProperty("taper_deg").GetDouble(), 9);
         Assert.Equal(8.0, r.GetProperty("geometry").GetProperty("mid_width_nm").GetDouble(), 12);
         var slices = r.GetProperty("slices").EnumerateArray().ToList();

@@ -39,7 +39,7 @@ public class ModelEndpointsTests : IntegrationTest
         Assert.Equal("done", job.GetProperty("status").GetString());
         var result = job.GetProperty("result");
         // An undoped fin with a mid-gap gate turns on near the volume-inversion potential v_t·ln(n_th/nᵢ) ≈ 0.44 V
-        // (fin-model.md B.5 and F.6); the coarse test mesh moves it by a few mV.
+        // (docs/model.md §B.5 and F.6); the coarse test mesh moves it by a few mV.
         Assert.InRange(result.GetProperty("vt_v").GetDouble(), 0.35, 0.55);
         // Ideal long-channel swing (kT/q)·ln 10 = 59.5 mV/dec at 300 K (Sze & Ng); the 2-D solve is long-channel.
         Assert.InRange(result.GetProperty("swing_mv_per_dec").GetDouble(), 58.5, 62);

@@ -6,7 +6,7 @@ namespace FinWatch.Server.Tests.Features.Model;
 
 /// <summary>
 /// The test product's nominal (6/10/42 nm, r 2 nm) with the default model inputs (EOT 0.9 nm, L 20 nm, N_A 1e17 cm⁻³) is
-/// exactly the nominal of the design note's sensitivity example (fin-model.md G.4), so the note's table applies.
+/// exactly the nominal of the design note's sensitivity example (docs/model.md §G.4), so the note's table applies.
 /// </summary>
 public class PredictEndpointsTests : IntegrationTest
 {
@@ -77,7 +77,7 @@ public class PredictEndpointsTests : IntegrationTest
     [Fact]
     public async Task Sensitivities_NoteNominal_ReproduceTheG4Table()
     {
-        // fin-model.md G.4 example table ([D] this model's prototype, uncalibrated): w_mid −14.8 / −26.5 mV per nm,
+        // docs/model.md §G.4 example table ([D] this model's prototype, uncalibrated): w_mid −14.8 / −26.5 mV per nm,
         // EOT −37 / −93 mV per nm, L_eff +5.7 / +14.0 mV per nm.
         var r = await ReadJsonAsync(await Client.GetAsync($"/api/model/sensitivities?product={TestProducts.TriGate}"));
         var rows = r.GetProperty("rows").EnumerateArray().ToDictionary(x => x.GetProperty("input").GetString()!);

@@ -21,7 +21,7 @@ public class MonitorEndpointsTests : IntegrationTest
     public async Task Limits_FromTheBaseline_AreTheHandComputedXbarLimits()
     {
         var c = await BaselineAndContextAsync();
-        // Xbar-S from summaries (spc.md 2.3): every wafer mean is 6.0 nm; s = 0.0790569 nm of 5 sites; σ̂ = s/c4(5) with
+        // Xbar-S from summaries (docs/statistics.md §2.3): every wafer mean is 6.0 nm; s = 0.0790569 nm of 5 sites; σ̂ = s/c4(5) with
         // c4(5) = 0.9400 (Montgomery, Appendix VI); σ of a point σ̂/√5; UCL = 6 + 3·σ̂/√5.
         var sigma = 0.0790569415 / SummaryLimits.C4(5);
         var limits = c.GetProperty("limits");

@@ -68,7 +68,7 @@ public class ProductsEndpointsTests : IntegrationTest
         { "unknown parameter", TestProducts.Request("X2", specs: new[] { new { parameter = "colour", lower = 1.0, target = 2.0, upper = 3.0 } }), "specs[0].parameter" },
         { "lower above upper", TestProducts.Request("X3", specs: new[] { new { parameter = "taper_deg", lower = 5.0, target = 4.0, upper = 3.0 } }), "specs[0]" },
         { "no limit given", TestProducts.Request("X4", specs: new[] { new { parameter = "taper_deg", lower = (double?)null, target = (double?)null, upper = (double?)null } }), "specs[0]" },
-        { "bad code", TestProducts.Request("has space"), "Code" },
+        { "bad code", TestProducts.Request("has space"), "code" },
     };
 
     [Theory]
@@ -80,7 +80,7 @@ public class ProductsEndpointsTests : IntegrationTest
         Assert.True(response.StatusCode == HttpStatusCode.BadRequest, $"{name}: {(int)response.StatusCode} {body}");
         var problem = System.Text.Json.JsonDocument.Parse(body).RootElement;
         var keys = problem.GetProperty("errors").EnumerateObject().Select(p => p.Name).ToList();
-        Assert.True(keys.Any(k => k.Equals(field, StringComparison.OrdinalIgnoreCase)), $"{name}: expected {field} in {string.Join(", ", keys)}");
+        Assert.True(keys.Contains(field), $"{name}: expected {field} in {string.Join(", ", keys)}");
     }
 
     [Fact]
@@ -91,7 +91,7 @@ public class ProductsEndpointsTests : IntegrationTest
             code = "X5",
             name = "too round",
             gate_faces = "tri-gate",
-            // r_max = (Wt/2)·tan(45° + θ/2) ≈ 3.15 nm for Wt 6, Wb 10, H 42 (fin-model.md A.4).
+            // r_max = (Wt/2)·tan(45° + θ/2) ≈ 3.15 nm for Wt 6, Wb 10, H 42 (docs/model.md §A.4).
             nominal = new { top_width_nm = 6.0, bottom_width_nm = 10.0, fin_height_nm = 42.0, corner_radius_nm = 3.5, liner_thickness_nm = 2.5 },
         };
         var response = await Client.PostAsJsonAsync("/api/products", request);

@@ -27,7 +27,7 @@ public class PostgresIngestTests : PostgresIntegrationTest
         // The builder's chambers: ETA-1 (etch) and LNA-1 (liner), one row each for the lot and step.
         Assert.Equal(["ETA-1", "LNA-1"], await Factory.QueryAsync(db => db.LotChambers.OrderBy(c => c.Chamber).Select(c => c.Chamber).ToListAsync()));
         var site = await Factory.QueryAsync(db => db.Measurements.SingleAsync(m => m.WaferSlot == 2 && m.SiteId == "S03"));
-        // Mid width is the mean of the top and bottom widths (fin-model.md A): (6.03 + 10) / 2 nm, worked by hand.
+        // Mid width is the mean of the top and bottom widths (docs/model.md §A): (6.03 + 10) / 2 nm, worked by hand.
         Assert.Equal(8.015, site.MidWidthNm!.Value, 1e-9);
         Assert.Equal(Start.AddMinutes(2).AddSeconds(3).ToUnixTimeMilliseconds(), site.MeasuredAtMs);
     }

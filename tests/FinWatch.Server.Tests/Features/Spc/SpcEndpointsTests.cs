@@ -8,7 +8,7 @@ public class SpcEndpointsTests : IntegrationTest
 {
     protected override bool CreateProducts => false;
 
-    // NIST/SEMATECH e-Handbook §6.3.2.2 individuals chart example (spc.md case 17).
+    // NIST/SEMATECH e-Handbook §6.3.2.2 individuals chart example (docs/statistics.md, case 17).
     private static readonly double[] FlowRate = [49.6, 47.6, 49.9, 51.3, 47.8, 51.2, 52.6, 52.4, 53.6, 52.1];
 
     private async Task<JsonElement> AnalyseAsync(object request)
@@ -56,7 +56,7 @@ public class SpcEndpointsTests : IntegrationTest
     [Fact]
     public async Task Analyses_ConstantSeries_ReportsNullNotZeroOrInfinity()
     {
-        // spc.md 3.3 item 9: zero sigma makes zone rules not evaluable (null) and capability undefined (null with a reason).
+        // docs/statistics.md §3.3 item 9: zero sigma makes zone rules not evaluable (null) and capability undefined (null with a reason).
         var r = await AnalyseAsync(new
         {
             values = new[] { 5.0, 5.0, 5.0, 5.0, 5.0, 5.0 },
@@ -74,7 +74,7 @@ public class SpcEndpointsTests : IntegrationTest
     [Fact]
     public async Task Analyses_Subgroups_UseTheTextbookFactorsInTableMode()
     {
-        // x̄̄ ± A2·R̄ with A2(4) = 0.729 (Montgomery Appendix VI; spc.md 2.2).
+        // x̄̄ ± A2·R̄ with A2(4) = 0.729 (Montgomery Appendix VI; docs/statistics.md §2.2).
         var groups = new[] { new[] { 1.0, 2, 3, 4 }, new[] { 2.0, 3, 4, 6 }, new[] { 0.0, 1, 2, 3 } };
         var r = await AnalyseAsync(new { subgroups = groups, chart = "Xbar-R", constants = "table" });
         var rbar = (3 + 4 + 3) / 3.0;
@@ -94,7 +94,7 @@ public class SpcEndpointsTests : IntegrationTest
     [Fact]
     public async Task Analyses_EwmaWithLambdaOne_FollowsTheValues()
     {
-        // With λ = 1 the EWMA statistic is the value itself (Roberts 1959 recursion; spc.md 4.1).
+        // With λ = 1 the EWMA statistic is the value itself (Roberts 1959 recursion; docs/statistics.md §4.1).
         var r = await AnalyseAsync(new { values = FlowRate, ewma = new { lambda = 1.0, l = 3.0 } });
         Assert.Equal(FlowRate, r.GetProperty("ewma").GetProperty("z").EnumerateArray().Select(e => e.GetDouble()));
     }
@@ -113,7 +113,7 @@ public class SpcEndpointsTests : IntegrationTest
         Assert.Equal(10, r.GetProperty("cusum").GetProperty("c_plus").GetArrayLength());
         Assert.Equal(JsonValueKind.Array, r.GetProperty("cusum").GetProperty("signals_upper").ValueKind);
         var cap = r.GetProperty("capability");
-        // Cp = (USL − LSL)/(6·σ_within) with σ_within = MR̄/d2 (spc.md 5.1).
+        // Cp = (USL − LSL)/(6·σ_within) with σ_within = MR̄/d2 (docs/statistics.md §5.1).
         var sigmaWithin = (16.9 / 9) / (2 / Math.Sqrt(Math.PI));
         Assert.Equal(14 / (6 * sigmaWithin), cap.GetProperty("cp").GetDouble(), 10);
         Assert.Equal(2, cap.GetProperty("ci").GetProperty("cp").GetArrayLength());
@@ -173,7 +173,7 @@ public class SpcEndpointsTests : IntegrationTest
         });
         var r = await ReadJsonAsync(response);
         // Shewhart 370.4 and 43.89 (NIST §6.3.2.3 column), CUSUM k 0.5 h 4: 168 and 8.38 (Montgomery Table 9.3),
-        // EWMA λ 0.1 L 2.814: 500 and 10.3 (Lucas & Saccucci 1990 Table 3), WE1–4: 91.75 (Champ & Woodall 1987), as in spc.md 4.3 and 3.1.
+        // EWMA λ 0.1 L 2.814: 500 and 10.3 (Lucas & Saccucci 1990 Table 3), WE1–4: 91.75 (Champ & Woodall 1987), as in docs/statistics.md §4.3 and 3.1.
         var shewhart = r.GetProperty("shewhart")[0].GetProperty("arl");
         Assert.Equal(370.4, shewhart[0].GetDouble(), 0.1);
         Assert.Equal(43.89, shewhart[1].GetDouble(), 0.01);

@@ -56,6 +56,19 @@ public class StoredSeriesEndpointsTests : IntegrationTest
         Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
     }
 
+    [Theory]
+    [InlineData("&ewma_lambda=2&ewma_l=3", "ewma_lambda")]
+    [InlineData("&sigma_multiplier=0", "sigma_multiplier")]
+    [InlineData("&baseline_count=100000", "baseline_count")]
+    public async Task Chart_BadAnalysisSetting_Returns400NamingTheQueryParameter(string setting, string field)
+    {
+        await SeedAsync();
+        var response = await Client.GetAsync("/api/series/chart?product=TP-TRI&step=FIN-PROFILE&parameter=taper_deg" + setting);
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        var keys = (await ReadJsonAsync(response)).GetProperty("errors").EnumerateObject().Select(p => p.Name).ToList();
+        Assert.Equal([field], keys);
+    }
+
     [Fact]
     public async Task ThreeWay_GivesOnePointPerLotAndPerWafer()
     {

@@ -8,7 +8,7 @@ using Microsoft.EntityFrameworkCore;
 namespace FinWatch.Server.Features.Model.Calibrations;
 
 /// <summary>
-/// The calibration use case (fin-model.md G.3): reads an electrical-test file, joins each wafer to the mean of its
+/// The calibration use case (docs/model.md §G.3): reads an electrical-test file, joins each wafer to the mean of its
 /// measured fin profiles, fits L_eff, the short-channel prefactor and the threshold offset with a ridge prior centred on
 /// the product's physics defaults, and stores the result as the product's next parameter-set version together with
 /// the tests it was fitted on. From then on every prediction (ingest, predict, sensitivities) uses the new set and is

@@ -1,3 +1,4 @@
+using FinWatch.Server.Infrastructure;
 using FinWatch.Server.Features.Access;
 using System.Globalization;
 using FinWatch.Data;
@@ -20,7 +21,7 @@ public static class CalibrationEndpoints
         var group = app.MapGroup("/api/model/calibrations").WithTags("Model");
         group.MapPost("/", CalibrateAsync).RequireAuthorization(Permissions.Engineer)
             .Accepts<IFormFile>("text/csv", "multipart/form-data")
-            .WithSummary("Fit the product's calibration (fin-model.md G.3) to an electrical-test CSV; stores the next parameter-set version unless preview=true");
+            .WithSummary("Fit the product's calibration to an electrical-test CSV; stores the next parameter-set version unless preview=true");
         group.MapGet("/", HistoryAsync).WithSummary("A product's calibrations, newest (current) first");
         return app;
     }
@@ -61,7 +62,7 @@ public static class CalibrationEndpoints
         var p = product is null ? null : await db.Products.AsNoTracking().SingleOrDefaultAsync(x => x.Code == product, cancellationToken);
         if (p is null)
         {
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]> { ["product"] = [$"'{product}' is not a product code"] });
+            return Problems.Invalid("product", Problems.NotAProduct(product));
         }
 
         var sets = await db.ModelParameterSets.AsNoTracking().Where(s => s.ProductId == p.Id).OrderByDescending(s => s.Version).ToListAsync(cancellationToken);
