@@ -10,7 +10,7 @@ public sealed record ProductRef(int Id, string Code, GatedFaces Faces, Threshold
 
 /// <summary>
 /// Turns a <see cref="RawRow"/> into a <see cref="SiteRecord"/>, or reports every problem in it with its column and value.
-/// The plausibility ranges are the ones the foundation issue names; they reject typing and unit mistakes, not process excursions.
+/// The plausibility ranges (README, the measurement record) reject typing and unit mistakes, not process excursions.
 /// </summary>
 public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> products, DateTimeOffset now, TimeSpan futureTolerance)
 {

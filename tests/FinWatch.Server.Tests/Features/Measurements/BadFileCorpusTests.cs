@@ -4,7 +4,7 @@ using FinWatch.Testing;
 namespace FinWatch.Server.Tests.Features.Measurements;
 
 /// <summary>
-/// The corpus of bad files the foundation issue lists. Each must get a 400 problem naming the right row and column,
+/// A corpus of bad files a metrology tool or a person can produce (docs/api.md, ingest checks). Each must get a 400 problem naming the right row and column,
 /// and leave the database exactly as it was (no measurement, batch or lot summary written).
 /// Row numbers count the header as row 1, as a spreadsheet shows them.
 /// </summary>

@@ -100,7 +100,7 @@ public class PredictEndpointsTests : IntegrationTest
     [Fact]
     public async Task Ingest_StoresThePredictedShiftsWithTheirStamp()
     {
-        // Issue 5 wiring: every ingested site with a whole profile carries the shifts /api/model/predict gives for it.
+        // Wiring: every ingested site with a whole profile carries the shifts /api/model/predict gives for it.
         var csv = SiteRow.Csv([new SiteRow { TopWidthNm = "5.8", BottomWidthNm = "9.8", CornerRadiusNm = "2" }, new SiteRow { SiteId = "S02", CornerRadiusNm = null }]);
         (await PostCsvAsync(csv)).EnsureSuccessStatusCode();
         var stored = await Factory.QueryAsync(db => Microsoft.EntityFrameworkCore.EntityFrameworkQueryableExtensions.ToListAsync(

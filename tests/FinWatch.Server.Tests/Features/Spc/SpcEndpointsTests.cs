@@ -145,7 +145,7 @@ public class SpcEndpointsTests : IntegrationTest
     [Fact]
     public async Task Analyses_HugeMagnitudes_AreAnalysedWithoutOverflow()
     {
-        // Edge case of issue 4: values around 1e9 with a spread of 1 give the same sigma as values around 0.
+        // Edge case (docs/statistics.md §3.3): values around 1e9 with a spread of 1 give the same sigma as values around 0.
         var shifted = FlowRate.Select(v => v + 1e9).ToArray();
         var a = await AnalyseAsync(new { values = FlowRate, capability = new { lsl = 44.0, usl = 58.0 } });
         var b = await AnalyseAsync(new { values = shifted, capability = new { lsl = 44.0 + 1e9, usl = 58.0 + 1e9 } });
