@@ -3,7 +3,7 @@ using System.Threading.Channels;
 using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Infrastructure;
 using FinWatch.Testing;
-using Microsoft.AspNetCore.Http.Connections;
+using FinWatch.Server.Tests.Features.Monitor;
 using Microsoft.AspNetCore.SignalR.Client;
 using Microsoft.Extensions.DependencyInjection;
 using static FinWatch.Testing.MonitorFixture;
@@ -152,16 +152,7 @@ public class TelemetryTests : IntegrationTest
         const string Frames = "finwatch.monitor.push.frames";
 
         var received = Channel.CreateUnbounded<FeedMessage>();
-        var connection = new HubConnectionBuilder()
-            .WithUrl(new Uri(Factory.Server.BaseAddress, MonitorHub.Path), o =>
-            {
-                o.Transports = HttpTransportType.LongPolling;
-                o.HttpMessageHandlerFactory = _ => Factory.Server.CreateHandler();
-            })
-            .AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.SnakeCaseLower)
-            .Build();
-        connection.On<List<FeedMessage>>(nameof(IMonitorClient.Feed), entries => entries.ForEach(m => received.Writer.TryWrite(m)));
-        await using (connection)
+        await using (var connection = MonitorHubTests.Connect(Factory, received))
         {
             await connection.StartAsync();
             Assert.True(await MetricRecorder.EventuallyAsync(() => metrics.Sum(Screens) == 1), $"connected screens: {metrics.Sum(Screens)}");

@@ -9,7 +9,7 @@ public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> 
     private readonly SemaphoreSlim order = new(1, 1);
 
     /// <summary>How the frames to one chart context's screens are counted (not by context: there may be hundreds).</summary>
-    private const string ContextGroups = "context";
+    private const string OneContext = "context";
 
     public void Dispose() => order.Dispose();
 
@@ -26,24 +26,24 @@ public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> 
     private async Task SendAsync(IReadOnlyList<FeedMessage> messages)
     {
         await order.WaitAsync();
-        var group = MonitorHub.AllGroup;
+        var audience = MonitorHub.AllGroup;
         try
         {
             // One frame per group and publish (an ingest's points and alerts together), not one per entry: a lot
             // brings dozens of entries for hundreds of screens, and frames, not bytes, are what cost.
             await hub.Clients.Group(MonitorHub.AllGroup).Feed(messages);
-            telemetry.FramePushed(group, sent: true);
-            group = ContextGroups;
-            foreach (var entries in messages.GroupBy(m => m.Context, StringComparer.Ordinal))
+            telemetry.FramePushed(audience, sent: true);
+            audience = OneContext;
+            foreach (var group in messages.GroupBy(m => m.Context, StringComparer.Ordinal))
             {
-                await hub.Clients.Group(MonitorHub.ContextGroup(entries.Key)).Feed([.. entries]);
-                telemetry.FramePushed(group, sent: true);
+                await hub.Clients.Group(MonitorHub.ContextGroup(group.Key)).Feed([.. group]);
+                telemetry.FramePushed(audience, sent: true);
             }
         }
         catch (Exception e) when (e is not OutOfMemoryException)
         {
             // Clients that miss an entry catch up from the feed by number; the data are already committed.
-            telemetry.FramePushed(group, sent: false);
+            telemetry.FramePushed(audience, sent: false);
             LogSendFailed(e);
         }
         finally
