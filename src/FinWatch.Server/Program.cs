@@ -23,6 +23,7 @@ if (await ServerCommands.TryRunAsync(args) is { } exitCode)
 var builder = WebApplication.CreateBuilder(args);
 builder.UseDefaultListenAddress();
 builder.AddFinWatchApiDefaults();
+builder.AddFinWatchTelemetry();
 builder.AddFinWatchData();
 builder.AddDemo(args);
 builder.AddAccess();

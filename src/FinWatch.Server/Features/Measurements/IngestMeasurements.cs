@@ -17,13 +17,14 @@ namespace FinWatch.Server.Features.Measurements;
 /// </summary>
 public sealed class IngestMeasurements(
     FinWatchDbContext db, IDatabaseDialect dialect, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ProductModels models, MonitorEvaluator monitor,
-    ILogger<IngestMeasurements> logger)
+    Telemetry telemetry, ILogger<IngestMeasurements> logger)
 {
     /// <summary>Ingests the rows as one batch. Nothing is stored unless every row is valid.</summary>
     public async Task<IngestOutcome> RunAsync(IAsyncEnumerable<RawRow> rows, string source, string? label, CancellationToken cancellationToken)
     {
         var o = options.Value;
         var started = Stopwatch.GetTimestamp();
+        using var measured = telemetry.StartBatch(source);
         var products = await LoadProductsAsync(o.PredictShifts, cancellationToken);
         var validator = new RowValidator(products, clock.GetUtcNow(), TimeSpan.FromMinutes(o.FutureToleranceMinutes));
         var productsById = products.Values.ToDictionary(p => p.Id);
@@ -149,6 +150,7 @@ public sealed class IngestMeasurements(
         if (errorCount > 0)
         {
             logger.LogInformation("Rejected {Source} batch {Label}: {ErrorCount} errors in {Rows} rows", source, label, errorCount, rowsRead);
+            measured.Rejected(rowsRead, errorCount);
             return new IngestOutcome(null, new IngestRejected(rowsRead, errorCount, errors));
         }
 
@@ -160,6 +162,7 @@ public sealed class IngestMeasurements(
         var ms = Stopwatch.GetElapsedTime(started).TotalMilliseconds;
         logger.LogInformation("Accepted {Source} batch {BatchId} {Label}: {Inserted} stored, {Present} already present, {Ms:0} ms",
             source, writer.BatchId, label, inserted, present, ms);
+        measured.Stored(writer.BatchId, rowsRead, inserted, present);
         return new IngestOutcome(new IngestAccepted(writer.BatchId, rowsRead, inserted, present, presentRows, reEntrant, radiusTooLarge, Math.Round(ms, 1)), null);
     }
 

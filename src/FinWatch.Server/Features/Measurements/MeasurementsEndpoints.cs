@@ -1,4 +1,5 @@
 using FinWatch.Server.Features.Access;
+using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.Http.Features;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Mvc;
@@ -43,7 +44,7 @@ public static class MeasurementsEndpoints
     }
 
     private static async Task<Results<Ok<IngestAccepted>, ProblemHttpResult>> IngestCsvAsync(
-        HttpContext http, IngestMeasurements ingest, IOptions<IngestOptions> options, CancellationToken cancellationToken)
+        HttpContext http, IngestMeasurements ingest, IOptions<IngestOptions> options, Telemetry telemetry, CancellationToken cancellationToken)
     {
         Stream? stream;
         string? name;
@@ -53,17 +54,25 @@ public static class MeasurementsEndpoints
         }
         catch (InvalidDataException e)
         {
-            return TypedResults.Problem(Rejection(new IngestRejected(0, 1, [RowError.For(1, null, null, "the multipart form is broken: " + e.Message)])));
+            return Refused(telemetry, RowError.For(1, null, null, "the multipart form is broken: " + e.Message));
         }
 
         if (stream is null)
         {
-            return TypedResults.Problem(Rejection(new IngestRejected(0, 1,
-                [RowError.For(1, null, null, "the multipart form has no file part; send the CSV as a form file or as the request body")])));
+            return Refused(telemetry, RowError.For(1, null, null, "the multipart form has no file part; send the CSV as a form file or as the request body"));
         }
 
         var rows = CsvRowSource.ReadAsync(stream, cancellationToken);
-        return ToResult(await ingest.RunAsync(rows, "api-csv", name, cancellationToken));
+        return ToResult(await ingest.RunAsync(rows, CsvSource, name, cancellationToken));
+    }
+
+    private const string CsvSource = "api-csv";
+
+    // An upload whose form holds no readable file is a rejected batch too, though no row was read.
+    private static ProblemHttpResult Refused(Telemetry telemetry, RowError error)
+    {
+        telemetry.BatchRefused(CsvSource);
+        return TypedResults.Problem(Rejection(new IngestRejected(0, 1, [error])));
     }
 
     /// <summary>The stored length of an uploaded file's name (ingest_batches.label, model_parameter_sets.source_name).</summary>

@@ -18,7 +18,7 @@ namespace FinWatch.Server.Features.Monitor;
 /// so a batch another instance has evaluated meanwhile is not evaluated again, and batches commit in number order
 /// (the ingest lock), so none is skipped.
 /// </summary>
-public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dialect, MonitorGate gate, TimeProvider clock, MonitorFeed feed, ILogger<MonitorEvaluator> logger)
+public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dialect, MonitorGate gate, TimeProvider clock, MonitorFeed feed, Telemetry telemetry, ILogger<MonitorEvaluator> logger)
 {
     /// <summary>More than the longest rule window (N7, 15 points), so the replayed state equals the full history's.</summary>
     private const int ReplayPoints = 20;
@@ -26,6 +26,7 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
     /// <summary>Evaluates every batch not yet evaluated by every context, in batch order; returns the new feed entries.</summary>
     public async Task<IReadOnlyList<FeedMessage>> EvaluatePendingAsync(CancellationToken cancellationToken)
     {
+        using var measured = telemetry.StartEvaluation();
         await gate.Semaphore.WaitAsync(cancellationToken);
         var published = new List<FeedMessage>();
         try
@@ -33,13 +34,16 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
             var contexts = await db.ChartContexts.AsNoTracking().OrderBy(c => c.Id).ToListAsync(cancellationToken);
             if (contexts.Count == 0)
             {
+                measured.Completed();
                 return published;
             }
 
             var lastBatch = await db.IngestBatches.MaxAsync(b => (long?)b.Id, cancellationToken) ?? 0;
             foreach (var context in contexts.Where(c => c.EvaluatedThroughBatchId < lastBatch))
             {
-                published.AddRange(await EvaluateContextAsync(context, lastBatch, cancellationToken));
+                var committed = await EvaluateContextAsync(context, lastBatch, cancellationToken);
+                measured.Committed(committed);
+                published.AddRange(committed);
             }
         }
         finally
@@ -47,6 +51,7 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
             gate.Semaphore.Release();
         }
 
+        measured.Completed();
         feed.Publish(published);
         return published;
     }

@@ -1,11 +1,15 @@
+using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.SignalR;
 
 namespace FinWatch.Server.Features.Monitor;
 
 /// <summary>Pushes committed feed entries to the watching clients, in order, off the request's path.</summary>
-public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> hub, ILogger<MonitorFeed> logger) : IDisposable
+public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> hub, Telemetry telemetry, ILogger<MonitorFeed> logger) : IDisposable
 {
     private readonly SemaphoreSlim order = new(1, 1);
+
+    /// <summary>How the frames to one chart context's screens are counted (not by context: there may be hundreds).</summary>
+    private const string OneContext = "context";
 
     public void Dispose() => order.Dispose();
 
@@ -22,19 +26,24 @@ public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> 
     private async Task SendAsync(IReadOnlyList<FeedMessage> messages)
     {
         await order.WaitAsync();
+        var audience = MonitorHub.AllGroup;
         try
         {
             // One frame per group and publish (an ingest's points and alerts together), not one per entry: a lot
             // brings dozens of entries for hundreds of screens, and frames, not bytes, are what cost.
             await hub.Clients.Group(MonitorHub.AllGroup).Feed(messages);
+            telemetry.FramePushed(audience, sent: true);
+            audience = OneContext;
             foreach (var group in messages.GroupBy(m => m.Context, StringComparer.Ordinal))
             {
                 await hub.Clients.Group(MonitorHub.ContextGroup(group.Key)).Feed([.. group]);
+                telemetry.FramePushed(audience, sent: true);
             }
         }
         catch (Exception e) when (e is not OutOfMemoryException)
         {
             // Clients that miss an entry catch up from the feed by number; the data are already committed.
+            telemetry.FramePushed(audience, sent: false);
             LogSendFailed(e);
         }
         finally

@@ -1,4 +1,5 @@
 using FinWatch.Data;
+using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.SignalR;
 using Microsoft.EntityFrameworkCore;
 
@@ -18,13 +19,25 @@ public interface IMonitorClient
 /// overview and the alert queue), and after a dropped connection asks for what it missed since the last feed number it
 /// saw. Entries carry their number, so a client drops any it has already seen.
 /// </summary>
-public sealed class MonitorHub(FinWatchDbContext db) : Hub<IMonitorClient>
+public sealed class MonitorHub(FinWatchDbContext db, Telemetry telemetry) : Hub<IMonitorClient>
 {
     public const string Path = "/hubs/monitor";
     public const string AllGroup = "all";
     public const int MaxCatchUp = 10_000;
 
     public static string ContextGroup(string code) => "context:" + code;
+
+    public override Task OnConnectedAsync()
+    {
+        telemetry.ScreenConnected();
+        return base.OnConnectedAsync();
+    }
+
+    public override Task OnDisconnectedAsync(Exception? exception)
+    {
+        telemetry.ScreenDisconnected();
+        return base.OnDisconnectedAsync(exception);
+    }
 
     /// <summary>
     /// Receive the entries of these contexts from now on. Returns the newest feed number at the moment of joining:

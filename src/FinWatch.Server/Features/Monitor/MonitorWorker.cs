@@ -10,7 +10,7 @@ namespace FinWatch.Server.Features.Monitor;
 /// At start, evaluates any batch a crash left unevaluated; then, every <see cref="MonitorOptions.CheckEverySeconds"/>,
 /// escalates open alerts that nobody acknowledged within <see cref="MonitorOptions.EscalateAfterMinutes"/>.
 /// </summary>
-public sealed class MonitorWorker(IServiceScopeFactory scopes, IOptions<MonitorOptions> options, TimeProvider clock, MonitorFeed feed) : BackgroundService
+public sealed class MonitorWorker(IServiceScopeFactory scopes, IOptions<MonitorOptions> options, TimeProvider clock, MonitorFeed feed, Telemetry telemetry) : BackgroundService
 {
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
@@ -59,6 +59,7 @@ public sealed class MonitorWorker(IServiceScopeFactory scopes, IOptions<MonitorO
 
         await db.SaveChangesAsync(cancellationToken);
         await transaction.CommitAsync(cancellationToken);
+        telemetry.AlertsEscalated(alerts.Count);
         feed.Publish(messages);
         return alerts.Count;
     }

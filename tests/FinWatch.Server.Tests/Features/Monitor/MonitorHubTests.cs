@@ -1,5 +1,6 @@
 using System.Threading.Channels;
 using FinWatch.Server.Features.Monitor;
+using FinWatch.Testing;
 using Microsoft.AspNetCore.Http.Connections;
 using Microsoft.AspNetCore.SignalR.Client;
 using Microsoft.Extensions.DependencyInjection;
@@ -10,13 +11,14 @@ namespace FinWatch.Server.Tests.Features.Monitor;
 /// <summary>The hub with real SignalR .NET clients (long polling through the test server).</summary>
 public class MonitorHubTests : IntegrationTest
 {
-    private HubConnection Connect(Channel<FeedMessage> received)
+    /// <summary>A hub client of the test server whose pushed entries go into <paramref name="received"/> (not started).</summary>
+    internal static HubConnection Connect(FinWatchAppFactory factory, Channel<FeedMessage> received)
     {
         var connection = new HubConnectionBuilder()
-            .WithUrl(new Uri(Factory.Server.BaseAddress, MonitorHub.Path), o =>
+            .WithUrl(new Uri(factory.Server.BaseAddress, MonitorHub.Path), o =>
             {
                 o.Transports = HttpTransportType.LongPolling;
-                o.HttpMessageHandlerFactory = _ => Factory.Server.CreateHandler();
+                o.HttpMessageHandlerFactory = _ => factory.Server.CreateHandler();
             })
             .AddJsonProtocol(o => o.PayloadSerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.SnakeCaseLower)
             .Build();
@@ -36,7 +38,7 @@ public class MonitorHubTests : IntegrationTest
         await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
         await ApprovedContextAsync(Client, "TRI-TOP");
         var received = Channel.CreateUnbounded<FeedMessage>();
-        await using var connection = Connect(received);
+        await using var connection = Connect(Factory, received);
         await connection.StartAsync();
         var head = await connection.InvokeAsync<long>("Watch", new[] { "TRI-TOP" });
         var stored = await ReadJsonAsync(await Client.GetAsync("/api/feed?after=0"));
@@ -59,7 +61,7 @@ public class MonitorHubTests : IntegrationTest
         await ApprovedContextAsync(Client, "TRI-TOP");
         var received = Channel.CreateUnbounded<FeedMessage>();
         long lastSeen;
-        await using (var first = Connect(received))
+        await using (var first = Connect(Factory, received))
         {
             await first.StartAsync();
             await first.InvokeAsync("Watch", new[] { "TRI-TOP" });
@@ -70,7 +72,7 @@ public class MonitorHubTests : IntegrationTest
         // While disconnected: two more wafers and the alert of the second.
         await IngestAsync(Client, Wafers("M0002", MonitorDay.AddHours(1), 0.0, 1.5));
 
-        await using var second = Connect(received);
+        await using var second = Connect(Factory, received);
         await second.StartAsync();
         await second.InvokeAsync("Watch", new[] { "TRI-TOP" });
         var missed = await second.InvokeAsync<List<FeedMessage>>("CatchUp", lastSeen, new[] { "TRI-TOP" });
