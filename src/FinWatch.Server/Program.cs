@@ -1,17 +1,4 @@
-using FinWatch.Server.Features.Access;
-using FinWatch.Server.Features.Audit;
-using FinWatch.Server.Features.Model.Calibrations;
-using FinWatch.Server.Features.Monitor;
-using FinWatch.Server.Features.About;
-using FinWatch.Server.Features.Demo;
-using FinWatch.Server.Features.Lots;
-using FinWatch.Server.Features.Measurements;
-using FinWatch.Server.Features.Model;
-using FinWatch.Server.Features.Parameters;
-using FinWatch.Server.Features.Products;
-using FinWatch.Server.Features.Reports;
-using FinWatch.Server.Features.Series;
-using FinWatch.Server.Features.Spc;
+using FinWatch.Server.Features;
 using FinWatch.Server.Infrastructure;
 
 // A command of the executable (`backup <file>`, `help`) runs instead of the web server.
@@ -21,49 +8,30 @@ if (await ServerCommands.TryRunAsync(args) is { } exitCode)
 }
 
 var builder = WebApplication.CreateBuilder(args);
-builder.UseDefaultListenAddress();
-builder.AddFinWatchApiDefaults();
-builder.AddFinWatchTelemetry();
-builder.AddFinWatchData();
-builder.AddDemo(args);
-builder.AddAccess();
-builder.Services.AddMeasurements();
-builder.Services.AddModel();
-builder.Services.AddCalibrations();
-builder.Services.AddMonitor(builder.Configuration);
-builder.Services.AddReports();
-
+builder.AddFinWatchHost();
+var features = new FeatureList(builder, args)
+    .Add<AccessFeature>()
+    .Add<AuditFeature>()
+    .Add<AboutFeature>()
+    .Add<DemoFeature>()
+    .Add<ParametersFeature>()
+    .Add<ProductsFeature>()
+    .Add<MeasurementsFeature>()
+    .Add<LotsFeature>()
+    .Add<SeriesFeature>()
+    .Add<SpcFeature>()
+    .Add<ModelFeature>()
+    .Add<CalibrationsFeature>()
+    .Add<MonitorFeature>()
+    .Add<ReportsFeature>();
 var app = builder.Build();
-await app.MigrateFinWatchDatabaseAsync();
-// The access commands (`admin add`, `keys add`) need the app's services and the migrated database.
-if (await AccessCommands.TryRunAsync(app, args) is { } accessExit)
+// The database is migrated first; a feature's command (`admin add`, `keys add`) may then run instead of the server.
+if (await features.StartAsync(app) is { } commandExit)
 {
-    return accessExit;
+    return commandExit;
 }
 
-await AccessCommands.BootstrapAdministratorAsync(app);
-app.UseFinWatchApiDefaults();
-app.UseSecurityHeaders();
-app.UseFinWatchPages();
-app.UseAccess();
-app.MapAbout();
-app.MapAuth();
-app.MapPeople();
-app.MapAudit();
-app.MapParameters();
-app.MapProducts();
-app.MapMeasurements();
-app.MapLots();
-app.MapSeries();
-app.MapStoredSeriesAnalysis();
-app.MapForecast();
-app.MapThreeWay();
-app.MapSpc();
-app.MapModel();
-app.MapPredict();
-app.MapCalibrations();
-app.MapMonitor();
-app.MapReports();
+features.Use(app);
 await app.RunAsync();
 return 0;
 

@@ -1,6 +1,6 @@
 using System.Text;
-using FinWatch.Server.Features.Measurements;
 using FinWatch.Testing;
+using FinWatch.Server.Infrastructure.Csv;
 
 namespace FinWatch.Benchmarks;
 

@@ -1,5 +1,5 @@
 using System.Diagnostics;
-using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Infrastructure.Csv;
 
 namespace FinWatch.Benchmarks;
 

@@ -1,9 +1,9 @@
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
-using FinWatch.Server.Features.Measurements;
 using Sylvan.Data.Csv;
-using static FinWatch.Server.Features.Measurements.CsvRecordReader;
-using CsvFormatException = FinWatch.Server.Features.Measurements.CsvFormatException;
+using static FinWatch.Server.Infrastructure.Csv.CsvRecordReader;
+using CsvFormatException = FinWatch.Server.Infrastructure.Csv.CsvFormatException;
+using FinWatch.Server.Infrastructure.Csv;
 
 namespace FinWatch.Benchmarks;
 

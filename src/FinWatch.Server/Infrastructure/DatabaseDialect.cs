@@ -1,18 +1,14 @@
 using FinWatch.Data;
-using FinWatch.Server.Features.Measurements;
 using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Infrastructure;
 
 /// <summary>
-/// The provider-specific pieces, chosen once at start-up with the provider (<see cref="DataExtensions"/>): the bulk
-/// writer, the cross-instance ordering of feed writers, and what follows the migrations. Everything else is EF Core.
+/// The provider-specific pieces, chosen once at start-up with the provider (<see cref="DataExtensions"/>): the
+/// cross-instance ordering of feed writers and what follows the migrations. Everything else is EF Core.
 /// </summary>
 public interface IDatabaseDialect
 {
-    /// <summary>Opens an ingest batch's transaction with the provider's bulk writer.</summary>
-    Task<ISiteWriter> BeginSiteWriterAsync(FinWatchDbContext db, string source, string? label, long receivedAtMs, CancellationToken cancellationToken);
-
     /// <summary>
     /// Called first inside every transaction that writes feed entries, chart points or alerts: waits until no other
     /// such transaction of any instance sharing the database is open, so feed numbers commit in order and a chart
@@ -30,9 +26,6 @@ public interface IDatabaseDialect
 /// </summary>
 public sealed class SqliteDialect : IDatabaseDialect
 {
-    public async Task<ISiteWriter> BeginSiteWriterAsync(FinWatchDbContext db, string source, string? label, long receivedAtMs, CancellationToken cancellationToken) =>
-        await SqliteSiteWriter.BeginAsync(db, source, label, receivedAtMs, cancellationToken);
-
     public Task LockMonitorAsync(FinWatchDbContext db, CancellationToken cancellationToken) => Task.CompletedTask;
 
     public async Task AfterMigrateAsync(FinWatchDbContext db, CancellationToken cancellationToken) =>
@@ -42,9 +35,6 @@ public sealed class SqliteDialect : IDatabaseDialect
 /// <summary>PostgreSQL: several identical instances share the database and coordinate through advisory locks.</summary>
 public sealed class PostgresDialect : IDatabaseDialect
 {
-    public async Task<ISiteWriter> BeginSiteWriterAsync(FinWatchDbContext db, string source, string? label, long receivedAtMs, CancellationToken cancellationToken) =>
-        await PostgresSiteWriter.BeginAsync(db, source, label, receivedAtMs, cancellationToken);
-
     public async Task LockMonitorAsync(FinWatchDbContext db, CancellationToken cancellationToken)
     {
         if (db.Database.CurrentTransaction is null)

@@ -1,6 +1,5 @@
 using System.Diagnostics;
 using System.Diagnostics.Metrics;
-using FinWatch.Server.Features.Monitor;
 
 namespace FinWatch.Server.Infrastructure;
 
@@ -110,23 +109,14 @@ public sealed class Telemetry
         batchDuration.Record(seconds, from, outcome);
     }
 
-    internal (int Points, int Raised) RecordCommitted(IReadOnlyList<FeedMessage> entries)
+    internal void RecordCommitted(int pointCount, IReadOnlyList<(string Severity, string Rule)> raised)
     {
-        var pointCount = 0;
-        var raised = 0;
-        foreach (var m in entries)
+        foreach (var (severity, rule) in raised)
         {
-            pointCount += m.Point is null ? 0 : 1;
-            // An evaluation's alert entry either raises an alert (its first point) or extends an open one (two or more).
-            if (m.Alert is { PointCount: 1 } alert)
-            {
-                alertsRaised.Add(1, new KeyValuePair<string, object?>(SeverityTag, alert.Severity), new KeyValuePair<string, object?>(RuleTag, alert.Rule));
-                raised++;
-            }
+            alertsRaised.Add(1, new KeyValuePair<string, object?>(SeverityTag, severity), new KeyValuePair<string, object?>(RuleTag, rule));
         }
 
         points.Add(pointCount);
-        return (pointCount, raised);
     }
 
     internal void RecordEvaluation(bool completed, double seconds) =>
@@ -193,12 +183,12 @@ public sealed class MonitorEvaluationTelemetry : IDisposable
 
     internal MonitorEvaluationTelemetry(Telemetry telemetry) => this.telemetry = telemetry;
 
-    /// <summary>The feed entries of one context's committed transaction: its points and its alert changes.</summary>
-    public void Committed(IReadOnlyList<FeedMessage> committed)
+    /// <summary>One context's committed transaction: the points it judged and the alerts it raised (severity, rule).</summary>
+    public void Committed(int pointCount, IReadOnlyList<(string Severity, string Rule)> raisedAlerts)
     {
-        var (p, r) = telemetry.RecordCommitted(committed);
-        points += p;
-        raised += r;
+        telemetry.RecordCommitted(pointCount, raisedAlerts);
+        points += pointCount;
+        raised += raisedAlerts.Count;
     }
 
     public void Completed() => completed = true;

@@ -8,7 +8,7 @@ public sealed record AboutResponse(string Name, string Version, string Job, stri
 public static class AboutEndpoints
 {
     /// <summary>What this service is and where its parts are; the root (/) serves the floor pages.</summary>
-    public static IEndpointRouteBuilder MapAbout(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         app.MapGet("/api/about", (DemoLoader demo) => TypedResults.Ok(new AboutResponse(
             "FinWatch",
@@ -30,6 +30,5 @@ public static class AboutEndpoints
                 ["live_hub"] = "/hubs/monitor",
                 ["floor_pages"] = "/",
             }))).AllowAnonymous().WithTags("About").WithSummary("What this service is, and links to its API");
-        return app;
     }
 }

@@ -18,7 +18,7 @@ public sealed record AntiforgeryResponse(string Token, string Header);
 
 public static class AuthEndpoints
 {
-    public static IEndpointRouteBuilder MapAuth(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/auth").WithTags("Access").AllowAnonymous();
         group.MapPost("/sign-in", SignInAsync).RequireRateLimiting(AccessExtensions.SignInLimiter).WithSummary("Sign in with name and password (sets the session cookie)");
@@ -29,7 +29,6 @@ public static class AuthEndpoints
             .WithSummary("A token for the header that browser writes carry");
         app.MapGet("/display/{token}", OpenDisplayAsync).WithTags("Access").AllowAnonymous()
             .WithSummary("Open the floor overview on a wall screen with a display token (sets its cookie, then shows /)");
-        return app;
     }
 
     private static async Task<Results<Ok<MeResponse>, ProblemHttpResult>> SignInAsync(

@@ -25,7 +25,7 @@ public sealed record CreatedKeyResponse(string Key, KeyResponse Details, string 
 /// <summary>People and keys: administrators only. People are disabled, never deleted (the audit trail names them).</summary>
 public static class PeopleEndpoints
 {
-    public static IEndpointRouteBuilder MapPeople(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var people = app.MapGroup("/api/people").WithTags("Access").RequireAuthorization(Permissions.Administer);
         people.MapGet("/", ListAsync).WithSummary("People who can sign in, with role and lock state");
@@ -36,7 +36,6 @@ public static class PeopleEndpoints
         keys.MapGet("/", KeysAsync).WithSummary("Tool keys and display tokens (never the keys themselves)");
         keys.MapPost("/", CreateKeyAsync).WithSummary("Create a tool key (scope ingest) or display token (scope display); shown once");
         keys.MapPost("/{id:int}/revoke", RevokeAsync).WithSummary("Revoke a key or display token");
-        return app;
     }
 
     internal static PersonResponse Describe(FinWatchUser u, TimeProvider clock) => new(u.UserName!, u.Role, DateTimeOffset.FromUnixTimeMilliseconds(u.CreatedAtMs),

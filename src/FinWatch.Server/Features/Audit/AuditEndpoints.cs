@@ -13,12 +13,11 @@ public sealed record AuditResponse(long Id, DateTimeOffset At, string By, string
 /// <summary>Reading the audit trail (page and CSV export). Nothing in FinWatch writes to it except <see cref="AuditLog"/>.</summary>
 public static class AuditEndpoints
 {
-    public static IEndpointRouteBuilder MapAudit(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/audit").WithTags("Audit");
         group.MapGet("/", ListAsync).WithSummary("Changes, newest first; filter by entity, key, who and time");
         group.MapGet("/csv", CsvAsync).WithSummary("The same as CSV (RFC 4180), oldest first, for export");
-        return app;
     }
 
     private static IQueryable<AuditEntry> Filter(FinWatchDbContext db, string? entity, string? key, string? by, DateTimeOffset? from, DateTimeOffset? to)

@@ -82,13 +82,13 @@ public static class DemoMonitor
         foreach (var context in await db.ChartContexts.AsNoTracking().ToListAsync(cancellationToken))
         {
             var points = await db.ChartPoints.AsNoTracking().Where(x => x.ContextId == context.Id).OrderBy(x => x.Seq).ToListAsync(cancellationToken);
-            var (centre, sigma) = ContextEndpoints.Estimate(context, points);
+            var (centre, sigma) = BaselineLimits.Estimate(context, points);
             if (sigma is not > 0)
             {
                 continue; // too little baseline in a small demo window: the context stays in its baseline phase
             }
 
-            var limit = ContextEndpoints.Draft(context, 1, centre, sigma.Value, points, [], DemoEngineer, effective,
+            var limit = BaselineLimits.Draft(context, 1, centre, sigma.Value, points, [], DemoEngineer, effective,
                 "demo: baseline of the invented fab's first weeks");
             limit.Status = "approved";
             limit.ApprovedBy = DemoEngineer;

@@ -11,12 +11,11 @@ public static class LotsEndpoints
 {
     public const int MaxPageSize = 500;
 
-    public static IEndpointRouteBuilder MapLots(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/lots").WithTags("Lots");
         group.MapGet("/", ListAsync).WithSummary("Lots by step, newest first; filter by product, step, chamber and time range (UTC)");
         group.MapGet("/{lot}", GetAsync).WithSummary("One lot: its steps, wafers and sites with measured and derived values");
-        return app;
     }
 
     private static async Task<Results<Ok<LotPageResponse>, ValidationProblem>> ListAsync(

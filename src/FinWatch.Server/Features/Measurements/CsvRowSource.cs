@@ -1,4 +1,6 @@
 using System.Runtime.CompilerServices;
+using FinWatch.Server.Infrastructure;
+using FinWatch.Server.Infrastructure.Csv;
 
 namespace FinWatch.Server.Features.Measurements;
 

@@ -1,4 +1,17 @@
+using FinWatch.Data;
+using Microsoft.EntityFrameworkCore;
+
 namespace FinWatch.Server.Features.Measurements;
+
+/// <summary>Opens the site writer of the database's provider.</summary>
+public static class SiteWriters
+{
+    /// <summary>Opens an ingest batch's transaction with the provider's bulk writer.</summary>
+    public static async Task<ISiteWriter> BeginAsync(FinWatchDbContext db, string source, string? label, long receivedAtMs, CancellationToken cancellationToken) =>
+        db.Database.IsNpgsql()
+            ? await PostgresSiteWriter.BeginAsync(db, source, label, receivedAtMs, cancellationToken)
+            : await SqliteSiteWriter.BeginAsync(db, source, label, receivedAtMs, cancellationToken);
+}
 
 /// <summary>
 /// Writes one ingest batch in one transaction, all or nothing, with the provider's fastest path: prepared inserts on

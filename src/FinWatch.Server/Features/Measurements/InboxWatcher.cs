@@ -112,7 +112,7 @@ public sealed partial class InboxWatcher(
         else
         {
             var target = UniquePath(Path.Combine(inbox, "rejected"), name, stamp);
-            var report = MeasurementsEndpoints.Rejection(outcome.Rejected!);
+            var report = outcome.Rejected!.ToProblem();
             await File.WriteAllTextAsync(target + ".errors.json",
                 JsonSerializer.Serialize(report, json.Value.SerializerOptions), cancellationToken);
             File.Move(file, target);

@@ -1,3 +1,5 @@
+using FinWatch.Server.Infrastructure;
+
 namespace FinWatch.Server.Features.Measurements;
 
 /// <summary>The input cannot be read any further (no header, broken quoting, invalid JSON); the batch is rejected.</summary>

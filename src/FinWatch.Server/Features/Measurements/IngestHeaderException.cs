@@ -1,3 +1,5 @@
+using FinWatch.Server.Infrastructure;
+
 namespace FinWatch.Server.Features.Measurements;
 
 /// <summary>The header row names unknown, repeated or too few columns; each problem is listed.</summary>

@@ -4,7 +4,6 @@ using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Physics;
 using FinWatch.Server.Features.Model;
-using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Infrastructure;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
@@ -16,7 +15,7 @@ namespace FinWatch.Server.Features.Measurements;
 /// Every source (JSON, CSV, the inbox, the demo loader) comes through here, so they share one set of rules.
 /// </summary>
 public sealed class IngestMeasurements(
-    FinWatchDbContext db, IDatabaseDialect dialect, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ProductModels models, MonitorEvaluator monitor,
+    FinWatchDbContext db, IngestGate gate, TimeProvider clock, IOptions<IngestOptions> options, ProductModels models, IEnumerable<IBatchStoredListener> listeners,
     Telemetry telemetry, ILogger<IngestMeasurements> logger)
 {
     /// <summary>Ingests the rows as one batch. Nothing is stored unless every row is valid.</summary>
@@ -30,7 +29,7 @@ public sealed class IngestMeasurements(
         var productsById = products.Values.ToDictionary(p => p.Id);
 
         using var turn = await gate.EnterAsync(cancellationToken);
-        await using var writer = await dialect.BeginSiteWriterAsync(db, source, label, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
+        await using var writer = await SiteWriters.BeginAsync(db, source, label, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
 
         var errors = new List<RowError>();
         var errorCount = 0;
@@ -151,14 +150,19 @@ public sealed class IngestMeasurements(
         {
             logger.LogInformation("Rejected {Source} batch {Label}: {ErrorCount} errors in {Rows} rows", source, label, errorCount, rowsRead);
             measured.Rejected(rowsRead, errorCount);
-            return new IngestOutcome(null, new IngestRejected(rowsRead, errorCount, errors));
+            return new IngestOutcome(null, new RejectedBatch(rowsRead, errorCount, errors));
         }
 
         await writer.CommitAsync(lotSteps, chambers, rowsRead, inserted, present, clock.GetUtcNow().ToUnixTimeMilliseconds(), cancellationToken);
         turn.Dispose();
 
-        // The next step of the one-way flow: the stored batch becomes chart points, rule signals and alerts, pushed live.
-        await monitor.EvaluatePendingAsync(cancellationToken);
+        // The next step of the one-way flow, announced: the monitor turns the stored batch into chart points, rule
+        // signals and alerts, pushed live, before the sender hears that it was stored.
+        foreach (var listener in listeners)
+        {
+            await listener.BatchStoredAsync(new StoredBatch(writer.BatchId, source), cancellationToken);
+        }
+
         var ms = Stopwatch.GetElapsedTime(started).TotalMilliseconds;
         logger.LogInformation("Accepted {Source} batch {BatchId} {Label}: {Inserted} stored, {Present} already present, {Ms:0} ms",
             source, writer.BatchId, label, inserted, present, ms);

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Runtime.CompilerServices;
 using System.Text.Json;
+using FinWatch.Server.Infrastructure;
 
 namespace FinWatch.Server.Features.Measurements;
 

@@ -1,3 +1,5 @@
+using FinWatch.Server.Infrastructure;
+
 namespace FinWatch.Server.Features.Measurements;
 
 /// <summary>

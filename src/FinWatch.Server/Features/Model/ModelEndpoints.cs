@@ -5,10 +5,7 @@ namespace FinWatch.Server.Features.Model;
 
 public static class ModelEndpoints
 {
-    public static IServiceCollection AddModel(this IServiceCollection services) =>
-        services.AddSingleton<CrossSectionJobs>().AddSingleton<ProductModels>();
-
-    public static IEndpointRouteBuilder MapModel(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/model").WithTags("Model").ValidateRequests();
         group.MapPost("/evaluate", Evaluate)
@@ -17,7 +14,6 @@ public static class ModelEndpoints
             .WithSummary("Start a 2-D Poisson–Boltzmann solve of a fin cross-section; returns a job to poll");
         group.MapGet("/cross-section/{id}", Get).WithSummary("Progress and, when done, the result of a cross-section solve");
         group.MapDelete("/cross-section/{id}", Cancel).WithSummary("Cancel a cross-section solve");
-        return app;
     }
 
     private static Ok<EvaluateResponse> Evaluate(EvaluateRequest request) => TypedResults.Ok(EvaluateModel.Run(request));

@@ -20,12 +20,11 @@ public static class PredictEndpoints
         [SensitivityParameter.Doping] = ("channel_doping", "per 1e17 cm⁻³"),
     };
 
-    public static IEndpointRouteBuilder MapPredict(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/model").WithTags("Model");
         group.MapPost("/predict", PredictAsync).WithSummary("Predicted ΔVT, Δswing and ΔDIBL of a profile against its product's nominal, with contributions");
         group.MapGet("/sensitivities", SensitivitiesAsync).WithSummary("dV/dx of the product's model at its nominal");
-        return app;
     }
 
     private static async Task<Results<Ok<PredictResponse>, ValidationProblem>> PredictAsync(

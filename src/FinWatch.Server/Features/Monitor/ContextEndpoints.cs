@@ -1,44 +1,20 @@
 using FinWatch.Server.Features.Audit;
 using FinWatch.Server.Features.Access;
-using System.Text.Json;
 using System.Text.RegularExpressions;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Infrastructure;
-using FinWatch.Statistics.Shewhart;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Mvc;
 using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Monitor;
 
+/// <summary>Chart contexts (what a chart watches, its rules and reaction plan, its state) and their points.</summary>
 public static partial class ContextEndpoints
 {
-    /// <summary>Fewer baseline points than this gives a warning (common practice, 20–25 subgroups; no single source).</summary>
-    public const int RecommendedBaselinePoints = 20;
-
-    public static IServiceCollection AddMonitor(this IServiceCollection services, IConfiguration configuration)
-    {
-        services.AddOptions<MonitorOptions>().BindConfiguration(MonitorOptions.Section).ValidateDataAnnotations().ValidateOnStart();
-        // The hub speaks the same JSON as the HTTP API, so a page handles a pushed point like a fetched one.
-        var signalR = services.AddSignalR().AddJsonProtocol(o => o.PayloadSerializerOptions.UseFinWatchJson());
-        if (configuration[SignalRScaleOut.RedisKey] is { Length: > 0 } redis)
-        {
-            // Several instances: each sends through Redis, so a screen on any instance gets points ingested on any other.
-            var prefix = configuration[SignalRScaleOut.ChannelPrefixKey] is { Length: > 0 } p ? p : SignalRScaleOut.DefaultChannelPrefix;
-            signalR.AddStackExchangeRedis(redis, o => o.Configuration.ChannelPrefix = StackExchange.Redis.RedisChannel.Literal(prefix));
-        }
-
-        services.AddSingleton<MonitorFeed>();
-        services.AddSingleton<MonitorGate>();
-        services.AddScoped<MonitorEvaluator>();
-        services.AddSingleton<MonitorWorker>();
-        services.AddHostedService(sp => sp.GetRequiredService<MonitorWorker>());
-        return services;
-    }
-
-    public static IEndpointRouteBuilder MapMonitor(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/contexts").WithTags("Monitor");
         group.MapGet("/", ListAsync).RequireAuthorization(Permissions.Floor).WithSummary("Every chart context with its state, worst first");
@@ -46,13 +22,6 @@ public static partial class ContextEndpoints
         group.MapGet("/{code}", GetAsync).RequireAuthorization(Permissions.Floor).WithSummary("One chart context with its limits in force and its state");
         group.MapPut("/{code}", UpdateAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Change a context's title, rules, reaction plan or electrical concern");
         group.MapGet("/{code}/points", PointsAsync).RequireAuthorization(Permissions.Floor).WithSummary("The context's points in order, each with the limits it was judged by");
-        group.MapGet("/{code}/limits", LimitsAsync).WithSummary("Every limit version of the context, newest first");
-        group.MapPost("/{code}/limits", ComputeLimitsAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Compute a draft limit version from chosen points");
-        group.MapPost("/{code}/limits/{version:int}/approve", ApproveAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Approve (freeze) a draft limit version");
-        app.MapGet("/api/feed", FeedAsync).RequireAuthorization(Permissions.Floor).WithTags("Monitor").WithSummary("Live-feed entries after a number (what a reconnecting client missed)");
-        app.MapHub<MonitorHub>(MonitorHub.Path).RequireAuthorization(Permissions.Floor);
-        AlertEndpoints.Map(app);
-        return app;
     }
 
     [GeneratedRegex("^[A-Za-z0-9][A-Za-z0-9._-]{0,99}$")]
@@ -245,138 +214,6 @@ public static partial class ContextEndpoints
             .Select(p => ContextRules.ToMessage(context, p, p.LimitVersionId is { } id ? limits[id] : null)).ToList());
     }
 
-    private static async Task<Results<Ok<List<LimitResponse>>, ProblemHttpResult>> LimitsAsync(string code, FinWatchDbContext db, CancellationToken cancellationToken)
-    {
-        var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
-        if (context is null)
-        {
-            return NotFound(code);
-        }
-
-        var versions = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == context.Id).OrderByDescending(l => l.Version).ToListAsync(cancellationToken);
-        return TypedResults.Ok(versions.Select(v => Describe(context, v)).ToList());
-    }
-
-    private static async Task<Results<Created<LimitResponse>, ValidationProblem, ProblemHttpResult>> ComputeLimitsAsync(
-        string code, LimitComputeRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
-    {
-        var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
-        if (context is null)
-        {
-            return NotFound(code);
-        }
-
-        var from = r.FromSeq ?? 1;
-        var to = r.ToSeq ?? long.MaxValue;
-        var points = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == context.Id && p.Seq >= from && p.Seq <= to)
-            .OrderBy(p => p.Seq).ToListAsync(cancellationToken);
-        var errors = new ValidationErrors();
-        var exclude = r.Exclude ?? [];
-        var seqs = points.Select(p => p.Seq).ToHashSet();
-        var badExclusions = exclude.Where(e => !seqs.Contains(e.Seq) || string.IsNullOrWhiteSpace(e.Reason)).Select(e => e.Seq).ToList();
-        if (badExclusions.Count > 0)
-        {
-            errors["exclude"] = $"each excluded point needs a seq in the chosen range and a reason; not so for {string.Join(", ", badExclusions)}";
-        }
-
-        if (string.IsNullOrWhiteSpace(r.Reason))
-        {
-            errors["reason"] = "say why these limits are computed (kept with the version)";
-        }
-
-        var used = points.Where(p => !exclude.Any(e => e.Seq == p.Seq)).ToList();
-        var (centre, sigma) = Estimate(context, used);
-        if (sigma is not > 0)
-        {
-            errors["points"] = $"{used.Count} usable points in seq {from}..{(r.ToSeq is null ? "last" : r.ToSeq)}: too few to estimate σ (an xbar chart needs a subgroup of 2 or more sites, an individuals chart 2 points)";
-        }
-
-        if (errors.Count > 0)
-        {
-            return Problems.Invalid(errors);
-        }
-
-        var version = 1 + (await db.LimitVersions.Where(l => l.ContextId == context.Id).MaxAsync(l => (int?)l.Version, cancellationToken) ?? 0);
-        var limit = Draft(context, version, centre, sigma!.Value, used, exclude, http.User.Who(),
-            clock.GetUtcNow().ToUnixTimeMilliseconds(), r.Reason!.Trim());
-        db.LimitVersions.Add(limit);
-        await db.SaveChangesAsync(cancellationToken);
-        AuditLog.Add(db, http.User.Who(), "limits", $"{code} v{version}", "computed", null, Describe(context, limit), clock);
-        await db.SaveChangesAsync(cancellationToken);
-        return TypedResults.Created($"/api/contexts/{Uri.EscapeDataString(code)}/limits", Describe(context, limit));
-    }
-
-    /// <summary>Centre and σ of a context's chosen points: Xbar-S from summaries or I-MR (docs/statistics.md §2.1, 2.3).</summary>
-    public static (double Centre, double? Sigma) Estimate(ChartContext context, IReadOnlyList<ChartPoint> used) =>
-        used.Count == 0 ? (double.NaN, null)
-            : context.ChartType == "xbar"
-                ? SummaryLimits.MeanStandardDeviation([.. used.Select(p => p.Value)], [.. used.Select(p => p.N)], [.. used.Select(p => p.Sd ?? 0)])
-                : SummaryLimits.Individuals([.. used.Select(p => p.Value)]);
-
-    /// <summary>A draft limit version from the chosen points.</summary>
-    public static LimitVersion Draft(ChartContext context, int version, double centre, double sigma, IReadOnlyList<ChartPoint> used,
-        IReadOnlyList<ExcludedPoint> exclude, string by, long nowMs, string reason) => new()
-    {
-        ContextId = context.Id, Version = version, Status = "draft", Centre = centre, Sigma = sigma,
-        SubgroupSize = context.ChartType == "xbar" ? used.Average(p => p.N) : 1, PointsUsed = used.Count,
-        FromMs = used.Min(p => p.MeasuredAtMs), ToMs = used.Max(p => p.MeasuredAtMs),
-        ExcludedJson = JsonSerializer.Serialize(exclude, FeedLog.Json), ComputedBy = by, ComputedAtMs = nowMs, Reason = reason,
-    };
-
-    private static async Task<Results<Ok<LimitResponse>, ValidationProblem, ProblemHttpResult>> ApproveAsync(
-        string code, int version, ApproveRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator, CancellationToken cancellationToken)
-    {
-        var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
-        var limit = context is null ? null : await db.LimitVersions.SingleOrDefaultAsync(l => l.ContextId == context.Id && l.Version == version, cancellationToken);
-        if (context is null || limit is null)
-        {
-            return NotFound($"{code} limits v{version}");
-        }
-
-        var now = clock.GetUtcNow();
-        var effective = r.EffectiveFrom ?? now;
-        if (limit.Status != "draft")
-        {
-            return Problems.Invalid("version", $"v{version} is {limit.Status}: approved limits are frozen; compute a new version to revise them");
-        }
-
-        if (effective > now || effective.ToUnixTimeMilliseconds() < limit.ToMs)
-        {
-            return Problems.Invalid("effective_from", $"effective_from lies between the last point the limits were computed from ({DateTimeOffset.FromUnixTimeMilliseconds(limit.ToMs):u}) and now");
-        }
-
-        var before = Describe(context, limit);
-        limit.Status = "approved";
-        limit.ApprovedBy = http.User.Who();
-        limit.ApprovedAtMs = now.ToUnixTimeMilliseconds();
-        limit.ApprovalComment = r.Comment?.Trim();
-        limit.EffectiveFromMs = effective.ToUnixTimeMilliseconds();
-        AuditLog.Add(db, http.User.Who(), "limits", $"{code} v{version}", "approved", before, Describe(context, limit), clock);
-        await db.SaveChangesAsync(cancellationToken);
-        await evaluator.EvaluatePendingAsync(cancellationToken);
-        return TypedResults.Ok(Describe(context, limit));
-    }
-
-    private static async Task<Ok<List<FeedMessage>>> FeedAsync(long? after, string? context, FinWatchDbContext db, CancellationToken cancellationToken)
-    {
-        var contexts = context?.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries);
-        return TypedResults.Ok(await FeedLog.ReadAsync(db, after ?? 0, contexts, MonitorHub.MaxCatchUp, cancellationToken));
-    }
-
-    internal static LimitResponse Describe(ChartContext context, LimitVersion l)
-    {
-        var unit = FinParameters.TryGet(context.Parameter, out var p) ? p.Unit : "";
-        var sigmaPoint = ContextRules.PointSigma(context, l, (int)Math.Round(l.SubgroupSize));
-        static DateTimeOffset? T(long? ms) => ms is { } v ? DateTimeOffset.FromUnixTimeMilliseconds(v) : null;
-        List<string> warnings = l.PointsUsed < RecommendedBaselinePoints
-            ? [$"computed from {l.PointsUsed} points; {RecommendedBaselinePoints} or more are usual (common practice)"]
-            : [];
-        return new LimitResponse(l.Version, l.Status, l.Centre, l.Sigma, l.SubgroupSize, l.Centre + (3 * sigmaPoint), l.Centre - (3 * sigmaPoint), unit,
-            l.PointsUsed, DateTimeOffset.FromUnixTimeMilliseconds(l.FromMs), DateTimeOffset.FromUnixTimeMilliseconds(l.ToMs),
-            JsonSerializer.Deserialize<List<ExcludedPoint>>(l.ExcludedJson, FeedLog.Json) ?? [], l.ComputedBy,
-            DateTimeOffset.FromUnixTimeMilliseconds(l.ComputedAtMs), l.Reason, l.ApprovedBy, T(l.ApprovedAtMs), l.ApprovalComment, T(l.EffectiveFromMs), warnings);
-    }
-
     internal static async Task<ContextResponse> DescribeAsync(FinWatchDbContext db, ChartContext c, CancellationToken cancellationToken)
     {
         var product = await db.Products.AsNoTracking().Where(p => p.Id == c.ProductId).Select(p => p.Code).SingleAsync(cancellationToken);
@@ -392,7 +229,7 @@ public static partial class ContextEndpoints
             c.Rules.Split(',', StringSplitOptions.RemoveEmptyEntries), c.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries), c.ElectricalConcernMv,
             limit is null ? "baseline" : "monitoring", state, Severity.Name(alerts.Count == 0 ? 0 : alerts.Max(a => a.SeverityRank)),
             alerts.Count, alerts.Count(a => a.State == AlertStates.Open), alerts.Count(a => a.EscalatedAtMs is not null && a.State == AlertStates.Open),
-            count, limit is null ? null : Describe(c, limit), last is null ? null : ContextRules.ToMessage(c, last, lastLimit));
+            count, limit is null ? null : BaselineLimits.Describe(c, limit), last is null ? null : ContextRules.ToMessage(c, last, lastLimit));
     }
 
     internal static ProblemHttpResult NotFound(string what) => Problems.NotFound("Not found.", $"There is no chart context or limit version '{what}'.");

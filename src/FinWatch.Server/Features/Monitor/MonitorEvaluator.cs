@@ -19,9 +19,13 @@ namespace FinWatch.Server.Features.Monitor;
 /// (the ingest lock), so none is skipped.
 /// </summary>
 public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dialect, MonitorGate gate, TimeProvider clock, MonitorFeed feed, Telemetry telemetry, ILogger<MonitorEvaluator> logger)
+    : IBatchStoredListener
 {
     /// <summary>More than the longest rule window (N7, 15 points), so the replayed state equals the full history's.</summary>
     private const int ReplayPoints = 20;
+
+    /// <summary>A batch was stored: evaluate it (and any batch before it that is still pending).</summary>
+    public async Task BatchStoredAsync(StoredBatch batch, CancellationToken cancellationToken) => await EvaluatePendingAsync(cancellationToken);
 
     /// <summary>Evaluates every batch not yet evaluated by every context, in batch order; returns the new feed entries.</summary>
     public async Task<IReadOnlyList<FeedMessage>> EvaluatePendingAsync(CancellationToken cancellationToken)
@@ -42,7 +46,9 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
             foreach (var context in contexts.Where(c => c.EvaluatedThroughBatchId < lastBatch))
             {
                 var committed = await EvaluateContextAsync(context, lastBatch, cancellationToken);
-                measured.Committed(committed);
+                // An alert entry with one point raised the alert; one with more extended an open alert.
+                measured.Committed(committed.Count(m => m.Point is not null),
+                    [.. committed.Where(m => m.Alert is { PointCount: 1 }).Select(m => (m.Alert!.Severity, m.Alert.Rule))]);
                 published.AddRange(committed);
             }
         }

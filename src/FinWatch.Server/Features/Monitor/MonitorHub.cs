@@ -1,7 +1,5 @@
-using FinWatch.Data;
 using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.SignalR;
-using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Monitor;
 
@@ -17,13 +15,13 @@ public interface IMonitorClient
 /// <summary>
 /// The live monitor hub (/hubs/monitor). A client watches the contexts it shows (or everything, for the floor
 /// overview and the alert queue), and after a dropped connection asks for what it missed since the last feed number it
-/// saw. Entries carry their number, so a client drops any it has already seen.
+/// saw. Entries carry their number, so a client drops any it has already seen. The hub manages subscriptions only: what
+/// it returns comes from the <see cref="FeedReader"/>.
 /// </summary>
-public sealed class MonitorHub(FinWatchDbContext db, Telemetry telemetry) : Hub<IMonitorClient>
+public sealed class MonitorHub(FeedReader feed, Telemetry telemetry) : Hub<IMonitorClient>
 {
     public const string Path = "/hubs/monitor";
     public const string AllGroup = "all";
-    public const int MaxCatchUp = 10_000;
 
     public static string ContextGroup(string code) => "context:" + code;
 
@@ -51,19 +49,16 @@ public sealed class MonitorHub(FinWatchDbContext db, Telemetry telemetry) : Hub<
             await Groups.AddToGroupAsync(Context.ConnectionId, ContextGroup(c));
         }
 
-        return await HeadAsync();
+        return await feed.HeadAsync(Context.ConnectionAborted);
     }
 
     /// <summary>Receive every entry from now on (floor overview, alert queue); returns the newest feed number, as <see cref="Watch"/>.</summary>
     public async Task<long> WatchAll()
     {
         await Groups.AddToGroupAsync(Context.ConnectionId, AllGroup);
-        return await HeadAsync();
+        return await feed.HeadAsync(Context.ConnectionAborted);
     }
 
-    private async Task<long> HeadAsync() => await db.FeedEvents.MaxAsync(e => (long?)e.Seq, Context.ConnectionAborted) ?? 0;
-
     /// <summary>The entries after <paramref name="afterSeq"/> (of these contexts, or all when empty), oldest first, at most 10,000.</summary>
-    public Task<List<FeedMessage>> CatchUp(long afterSeq, string[]? contexts) =>
-        FeedLog.ReadAsync(db, afterSeq, contexts, MaxCatchUp, Context.ConnectionAborted);
+    public Task<List<FeedMessage>> CatchUp(long afterSeq, string[]? contexts) => feed.AfterAsync(afterSeq, contexts, Context.ConnectionAborted);
 }

@@ -2,12 +2,11 @@ namespace FinWatch.Server.Features.Parameters;
 
 public static class ParametersEndpoints
 {
-    public static IEndpointRouteBuilder MapParameters(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         app.MapGet("/api/parameters", () => TypedResults.Ok(FinParameters.All.Select(p => new ParameterResponse(p.Name, p.Unit, p.Kind, p.Label, p.Description))))
             .WithTags("Parameters")
             .WithSummary("The measured and derived parameters, with their units");
-        return app;
     }
 }
 

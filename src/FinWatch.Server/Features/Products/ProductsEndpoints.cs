@@ -12,14 +12,13 @@ namespace FinWatch.Server.Features.Products;
 
 public static class ProductsEndpoints
 {
-    public static IEndpointRouteBuilder MapProducts(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/products").WithTags("Products").ValidateRequests();
         group.MapGet("/", ListAsync).RequireAuthorization(Permissions.Floor).WithSummary("All products with nominal profile and specification limits");
         group.MapGet("/{code}", GetAsync).RequireAuthorization(Permissions.Floor).WithSummary("One product");
         group.MapPost("/", CreateAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Create a product");
         group.MapPut("/{code}", UpdateAsync).RequireAuthorization(Permissions.Engineer).WithSummary("Replace a product's name, description, gate faces, nominal profile and specifications");
-        return app;
     }
 
     private static async Task<Ok<List<ProductResponse>>> ListAsync(FinWatchDbContext db, CancellationToken cancellationToken)

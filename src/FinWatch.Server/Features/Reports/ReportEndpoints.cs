@@ -9,21 +9,12 @@ namespace FinWatch.Server.Features.Reports;
 /// <summary>The shift report: JSON, or the same content as CSV.</summary>
 public static class ReportEndpoints
 {
-    public static IServiceCollection AddReports(this IServiceCollection services)
-    {
-        services.AddOptions<ShiftOptions>().BindConfiguration(ShiftOptions.Section).ValidateOnStart();
-        services.AddSingleton<IValidateOptions<ShiftOptions>, ShiftOptionsValidator>();
-        services.AddScoped<ShiftReport>();
-        return services;
-    }
-
-    public static IEndpointRouteBuilder MapReports(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/reports").WithTags("Reports");
         group.MapGet("/shift", JsonAsync)
             .WithSummary("Shift report: lots measured, alerts raised, handled and open, contexts out of control, predicted ΔVT risks, Cpk changes (format=csv for CSV)");
         group.MapGet("/shift.csv", CsvAsync).WithSummary("The shift report as CSV, one section after another");
-        return app;
     }
 
     private static async Task<Results<Ok<ShiftReportResponse>, FileContentHttpResult, ValidationProblem>> JsonAsync(

@@ -142,7 +142,7 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
                 $"{used.Count} point{(used.Count == 1 ? "" : "s")}; Cpk needs at least {minPoints} ({ShiftOptions.Section}:CapabilityMinPoints)");
         }
 
-        var (_, sigma) = ContextEndpoints.Estimate(c, used);
+        var (_, sigma) = BaselineLimits.Estimate(c, used);
         var r = ProcessCapability.Compute([.. used.Select(p => p.Value)], sigma ?? double.NaN, spec);
         return new CapabilityWindowRow(from, to, used.Count, r.Mean, r.SigmaWithin, r.Cpk,
             r.Cpk is null ? r.Reasons.GetValueOrDefault(CapabilityIndexNames.Cpk) ?? r.Reasons.GetValueOrDefault("SigmaWithin") ?? "not computable" : null);

@@ -19,11 +19,10 @@ public static class SeriesEndpoints
 {
     public const int DefaultLimit = 20_000, MaxLimit = 200_000;
 
-    public static IEndpointRouteBuilder MapSeries(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         app.MapGet("/api/series", GetAsync).WithTags("Series")
             .WithSummary("One parameter of one product and step in time order: site values (level=site) or wafer means (level=wafer)");
-        return app;
     }
 
     private static async Task<Results<Ok<SeriesResponse>, ValidationProblem>> GetAsync(

@@ -37,11 +37,10 @@ public static class ForecastEndpoints
 {
     public const int MaxWindow = 500;
 
-    public static IEndpointRouteBuilder MapForecast(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         app.MapGet("/api/series/forecast", ForecastAsync).WithTags("Series")
             .WithSummary("Trend of the recent lot means and when it would cross a control or specification limit");
-        return app;
     }
 
     private static async Task<Results<Ok<DriftResponse>, ValidationProblem>> ForecastAsync(

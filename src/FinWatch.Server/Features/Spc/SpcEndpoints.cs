@@ -7,7 +7,7 @@ namespace FinWatch.Server.Features.Spc;
 
 public static class SpcEndpoints
 {
-    public static IEndpointRouteBuilder MapSpc(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/spc").WithTags("SPC").ValidateRequests();
         group.MapPost("/analyses", Analyse)
@@ -16,7 +16,6 @@ public static class SpcEndpoints
             .WithSummary("Average run length of chart designs at shifts given in sigmas of the plotted statistic");
         group.MapGet("/constants", Constants)
             .WithSummary("Control chart constants for subgroup sizes 2 to 25, computed exactly and as printed");
-        return app;
     }
 
     private static Ok<AnalysisResponse> Analyse(AnalysisRequest request) => TypedResults.Ok(RunAnalysis.Run(request));

@@ -60,12 +60,11 @@ public static class StoredSeriesEndpoints
         ["percentile_capability"] = "lsl",
     };
 
-    public static IEndpointRouteBuilder MapStoredSeriesAnalysis(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/series").WithTags("Series");
         group.MapGet("/chart", ChartAsync).WithSummary("Control chart, run rules, EWMA and CUSUM of a stored series");
         group.MapGet("/capability", CapabilityAsync).RequireAuthorization(Permissions.Floor).WithSummary("Capability, normality and percentile capability of a stored series");
-        return app;
     }
 
     private static Task<Results<Ok<StoredAnalysisResponse>, ValidationProblem>> ChartAsync(

@@ -25,11 +25,10 @@ public static class ThreeWayEndpoints
 {
     public const int MaxLots = 5_000;
 
-    public static IEndpointRouteBuilder MapThreeWay(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         app.MapGet("/api/series/three-way", GetAsync).WithTags("Series")
             .WithSummary("Three-way chart: lot means (I-MR), wafer means within each lot and sites within each wafer (range charts)");
-        return app;
     }
 
     private static async Task<Results<Ok<ThreeWayResponse>, ValidationProblem>> GetAsync(

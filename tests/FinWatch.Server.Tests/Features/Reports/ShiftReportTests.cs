@@ -4,13 +4,13 @@ using System.Net.Http.Json;
 using System.Text;
 using System.Text.Json;
 using System.Text.RegularExpressions;
-using FinWatch.Server.Features.Measurements;
 using FinWatch.Server.Features.Reports;
 using FinWatch.Statistics.Shewhart;
 using FinWatch.Testing;
 using Microsoft.Extensions.Configuration;
 using static FinWatch.Testing.MonitorFixture;
 using static FinWatch.Testing.ShiftFixture;
+using FinWatch.Server.Infrastructure.Csv;
 
 namespace FinWatch.Server.Tests.Features.Reports;
 

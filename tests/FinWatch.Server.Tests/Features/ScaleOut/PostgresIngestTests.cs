@@ -1,6 +1,7 @@
 using System.Net;
 using FinWatch.Physics.Analytic;
 using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Infrastructure.Csv;
 using FinWatch.Server.Tests.Features.Model;
 using FinWatch.Testing;
 using Microsoft.EntityFrameworkCore;
@@ -128,6 +129,6 @@ public class PostgresIngestTests : PostgresIntegrationTest
         var name = new string('n', 300) + ".csv";
         form.Add(file, "file", name);
         Assert.Equal(HttpStatusCode.OK, (await Client.PostAsync("/api/measurements/csv", form)).StatusCode);
-        Assert.Equal(name[..MeasurementsEndpoints.MaxFileNameLength], await Factory.QueryAsync(db => db.IngestBatches.Select(b => b.Label).SingleAsync()));
+        Assert.Equal(name[..CsvUpload.MaxFileNameLength], await Factory.QueryAsync(db => db.IngestBatches.Select(b => b.Label).SingleAsync()));
     }
 }

@@ -2,8 +2,8 @@ using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Physics;
 using FinWatch.Physics.Analytic;
-using FinWatch.Server.Features.Measurements;
 using Microsoft.EntityFrameworkCore;
+using FinWatch.Server.Infrastructure;
 
 namespace FinWatch.Server.Features.Model.Calibrations;
 
@@ -20,7 +20,7 @@ public sealed class CalibrateModel(FinWatchDbContext db, TimeProvider clock, ILo
 
     public sealed record Request(string? Reason, string CreatedBy, string? SourceName, bool Preview, double MeasurementSdMv);
 
-    public sealed record Outcome(CalibrationResponse? Result, IngestRejected? Rejected);
+    public sealed record Outcome(CalibrationResponse? Result, RejectedBatch? Rejected);
 
     public async Task<Outcome> RunAsync(Stream csv, Request request, CancellationToken cancellationToken)
     {
@@ -189,5 +189,5 @@ public sealed class CalibrateModel(FinWatchDbContext db, TimeProvider clock, ILo
         return means.ToDictionary(m => (m.LotId, m.WaferSlot), m => new MeanFin(new FinProfile(m.Top, m.Bottom, m.Height, m.Radius), m.Sites));
     }
 
-    private static Outcome Rejected(int rows, List<RowError> errors) => new(null, new IngestRejected(rows, errors.Count, errors.Take(200).ToList()));
+    private static Outcome Rejected(int rows, List<RowError> errors) => new(null, new RejectedBatch(rows, errors.Count, errors.Take(200).ToList()));
 }

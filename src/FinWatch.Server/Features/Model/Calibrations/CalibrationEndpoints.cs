@@ -2,7 +2,7 @@ using FinWatch.Server.Infrastructure;
 using FinWatch.Server.Features.Access;
 using System.Globalization;
 using FinWatch.Data;
-using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Infrastructure.Csv;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.AspNetCore.Mvc;
 using Microsoft.EntityFrameworkCore;
@@ -14,16 +14,13 @@ public static class CalibrationEndpoints
     /// <summary>Largest electrical-test file accepted, bytes (about 100,000 wafers).</summary>
     public const long MaxBodyBytes = 8 * 1024 * 1024;
 
-    public static IServiceCollection AddCalibrations(this IServiceCollection services) => services.AddScoped<CalibrateModel>();
-
-    public static IEndpointRouteBuilder MapCalibrations(this IEndpointRouteBuilder app)
+    public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/model/calibrations").WithTags("Model");
         group.MapPost("/", CalibrateAsync).RequireAuthorization(Permissions.Engineer)
             .Accepts<IFormFile>("text/csv", "multipart/form-data")
             .WithSummary("Fit the product's calibration to an electrical-test CSV; stores the next parameter-set version unless preview=true");
         group.MapGet("/", HistoryAsync).WithSummary("A product's calibrations, newest (current) first");
-        return app;
     }
 
     private static async Task<Results<Ok<CalibrationResponse>, Created<CalibrationResponse>, ProblemHttpResult>> CalibrateAsync(
@@ -31,23 +28,22 @@ public static class CalibrationEndpoints
     {
         if (measurementSdMv is { } sd && !(sd >= 0.1 && sd <= 100))
         {
-            return TypedResults.Problem(MeasurementsEndpoints.Rejection(new IngestRejected(0, 1,
-                [RowError.For(0, "measurement_sd_mv", sd.ToString(CultureInfo.InvariantCulture), "the threshold's test uncertainty is 0.1 to 100 mV")])));
+            return RejectedBatch.Refused(
+                RowError.For(0, "measurement_sd_mv", sd.ToString(CultureInfo.InvariantCulture), "the threshold's test uncertainty is 0.1 to 100 mV")).ToResult();
         }
 
-        var (stream, name) = await MeasurementsEndpoints.OpenCsvAsync(http, MaxBodyBytes, cancellationToken);
-        if (stream is null)
+        var upload = await CsvUpload.OpenAsync(http, MaxBodyBytes, cancellationToken);
+        if (upload.Refusal is { } refusal)
         {
-            return TypedResults.Problem(MeasurementsEndpoints.Rejection(new IngestRejected(0, 1,
-                [RowError.For(1, null, null, "the multipart form has no file part; send the CSV as a form file or as the request body")])));
+            return RejectedBatch.Refused(refusal).ToResult();
         }
 
         var who = http.User.Who();
-        var outcome = await calibrate.RunAsync(stream, new CalibrateModel.Request(reason, who, name, preview ?? false,
+        var outcome = await calibrate.RunAsync(upload.Stream!, new CalibrateModel.Request(reason, who, upload.Name, preview ?? false,
             measurementSdMv ?? CalibrateModel.DefaultMeasurementSdMv), cancellationToken);
         if (outcome.Rejected is { } rejected)
         {
-            return TypedResults.Problem(MeasurementsEndpoints.Rejection(rejected));
+            return rejected.ToResult();
         }
 
         var result = outcome.Result!;

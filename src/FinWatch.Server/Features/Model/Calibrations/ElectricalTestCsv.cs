@@ -1,5 +1,6 @@
 using System.Globalization;
-using FinWatch.Server.Features.Measurements;
+using FinWatch.Server.Infrastructure;
+using FinWatch.Server.Infrastructure.Csv;
 
 namespace FinWatch.Server.Features.Model.Calibrations;
 
@@ -114,15 +115,15 @@ public static class ElectricalTestCsv
         {
             errors.Add(RowError.For(row, "lot_id", null, "a value is required"));
         }
-        else if (lot.Length > RowValidator.MaxTextLength)
+        else if (lot.Length > WaferIdentity.MaxTextLength)
         {
-            errors.Add(RowError.For(row, "lot_id", lot, $"longer than {RowValidator.MaxTextLength} characters"));
+            errors.Add(RowError.For(row, "lot_id", lot, $"longer than {WaferIdentity.MaxTextLength} characters"));
         }
 
         var slotText = cell("wafer_slot");
-        if (!int.TryParse(slotText, NumberStyles.None, CultureInfo.InvariantCulture, out var slot) || slot < 1 || slot > RowValidator.MaxSlot)
+        if (!int.TryParse(slotText, NumberStyles.None, CultureInfo.InvariantCulture, out var slot) || slot < 1 || slot > WaferIdentity.MaxSlot)
         {
-            errors.Add(RowError.For(row, "wafer_slot", slotText, $"a whole number from 1 to {RowValidator.MaxSlot} is required"));
+            errors.Add(RowError.For(row, "wafer_slot", slotText, $"a whole number from 1 to {WaferIdentity.MaxSlot} is required"));
         }
 
         var product = cell("product");
@@ -139,7 +140,7 @@ public static class ElectricalTestCsv
         {
             errors.Add(RowError.For(row, "tested_at", null, "a value is required"));
         }
-        else if (!RowValidator.TryParseZonedTime(atText, out at))
+        else if (!ZonedTime.TryParse(atText, out at))
         {
             errors.Add(RowError.For(row, "tested_at", atText, "not an ISO 8601 time with a zone, such as 2026-11-20T09:30:00Z"));
         }

@@ -1,4 +1,4 @@
-namespace FinWatch.Server.Features.Measurements;
+namespace FinWatch.Server.Infrastructure.Csv;
 
 /// <summary>
 /// The body of a multipart form's file part. A form that ends before the part's closing boundary makes the multipart

@@ -1,6 +1,6 @@
-namespace FinWatch.Server.Features.Measurements;
+namespace FinWatch.Server.Infrastructure;
 
-/// <summary>What is wrong with one cell or row of an ingest batch. Column is null for a whole-row problem.</summary>
+/// <summary>What is wrong with one cell or row of an uploaded batch (measurements, electrical tests). Column is null for a whole-row problem.</summary>
 public sealed record RowError(int Row, string? Column, string? Value, string Reason)
 {
     private const int MaxValueLength = 80;

@@ -1,6 +1,6 @@
 using System.Text;
 
-namespace FinWatch.Server.Features.Measurements;
+namespace FinWatch.Server.Infrastructure.Csv;
 
 /// <summary>
 /// Streaming RFC 4180 reader: comma separated, optional double-quoted fields ("" is a quote inside one),

@@ -1,8 +1,8 @@
 using System.Text;
-using FinWatch.Server.Features.Measurements;
 using FinWatch.Testing;
+using FinWatch.Server.Infrastructure.Csv;
 
-namespace FinWatch.Server.Tests.Features.Measurements;
+namespace FinWatch.Server.Tests.Infrastructure;
 
 /// <summary>RFC 4180 (Common Format and MIME Type for CSV Files) cases, checked field by field.</summary>
 public class CsvRecordReaderTests
