@@ -1,3 +1,5 @@
+using FinWatch.Physics;
+
 namespace FinWatch.Data.Entities;
 
 /// <summary>A product: its nominal fin profile (nm) and its specification limits per parameter.</summary>
@@ -12,7 +14,7 @@ public sealed class Product
 
     public string Description { get; set; } = "";
 
-    /// <summary>Which faces the gate covers: tri-gate (top and sidewalls) or double-gate (hard mask on top).</summary>
+    /// <summary>Which faces the gate covers: tri-gate (top and sidewalls) or double-gate (hard mask on top); stored as <see cref="GateFacesText"/>.</summary>
     public GateFaces GateFaces { get; set; } = GateFaces.TriGate;
 
     public double NominalTopWidthNm { get; set; }

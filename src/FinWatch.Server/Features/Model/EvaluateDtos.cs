@@ -15,8 +15,8 @@ public sealed record EvaluateRequest : IValidatedRequest
     public double? GateLengthNm { get; init; }
     public double? DopingCm3 { get; init; }
 
-    /// <summary>"tri", or "double" for the sidewalls only under a hard mask.</summary>
-    public string? Gates { get; init; }
+    /// <summary>"tri-gate" (top and both sidewalls gated, the default) or "double-gate" (hard mask on top, sidewalls only).</summary>
+    public string? GateFaces { get; init; }
 
     /// <summary>Sidewall surface: "110" (the usual ⟨110⟩ fin on a (100) wafer) or "100".</summary>
     public string? Orientation { get; init; }

@@ -43,10 +43,7 @@ public static class EvaluateModel
             e["doping_cm3"] = "doping_cm3 is 0 to 1e20 cm⁻³";
         }
 
-        if (r.Gates is not (null or "tri" or "double"))
-        {
-            e["gates"] = "gates is 'tri' or 'double'";
-        }
+        GateFacesField.Check(r.GateFaces, e, required: false);
 
         if (r.Orientation is not (null or "110" or "100"))
         {
@@ -64,7 +61,7 @@ public static class EvaluateModel
 
     public static EvaluateResponse Run(EvaluateRequest r)
     {
-        var faces = r.Gates == "double" ? GatedFaces.DoubleGate : GatedFaces.TriGate;
+        var faces = GateFacesField.OrTriGate(r.GateFaces);
         var profile = new FinProfile(r.TopWidthNm!.Value, r.BottomWidthNm!.Value, r.HeightNm!.Value, r.CornerRadiusNm ?? 0);
         var eot = r.EotNm!.Value;
         var fin = new FinMeasurement(profile, eot, eot, faces);

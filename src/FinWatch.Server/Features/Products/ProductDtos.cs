@@ -24,7 +24,7 @@ public sealed record ModelInputs(
     double ChannelDopingCm3 = 1e17,
     string SidewallOrientation = "110");
 
-/// <summary>Create a product. <c>gate_faces</c> is "tri-gate" (top and sidewalls gated) or "double-gate" (hard mask on top).</summary>
+/// <summary>Create a product. <c>gate_faces</c> is "tri-gate" (top and both sidewalls gated) or "double-gate" (hard mask on top, sidewalls only).</summary>
 public sealed record ProductRequest(
     string Code,
     string Name,

@@ -1,4 +1,3 @@
-using FinWatch.Data.Entities;
 using FinWatch.Physics;
 using System.Text.RegularExpressions;
 using FinWatch.Server.Features.Parameters;
@@ -9,15 +8,6 @@ namespace FinWatch.Server.Features.Products;
 /// <summary>The rules of a product request: each field's range and the cross-field rules.</summary>
 public static partial class ProductRules
 {
-    public static GateFaces? ParseFaces(string? text) => text switch
-    {
-        "tri-gate" => GateFaces.TriGate,
-        "double-gate" => GateFaces.DoubleGate,
-        _ => null,
-    };
-
-    public static string FacesName(GateFaces faces) => faces == GateFaces.DoubleGate ? "double-gate" : "tri-gate";
-
     /// <summary>Adds the request's problems, keyed by JSON field path; adds nothing when the request is consistent.</summary>
     public static void Check(ProductRequest request, ValidationErrors errors)
     {
@@ -36,10 +26,7 @@ public static partial class ProductRules
             errors["description"] = "description is at most 2000 characters";
         }
 
-        if (ParseFaces(request.GateFaces) is null)
-        {
-            errors["gate_faces"] = $"'{request.GateFaces}' is not one of: tri-gate, double-gate";
-        }
+        GateFacesField.Check(request.GateFaces, errors, required: true);
 
         if (request.Nominal is not { } nominal)
         {
