@@ -14,40 +14,20 @@ public static class GateFacesText
     /// <summary>Hard mask on top, only the two sidewalls gated (<see cref="GateFaces.DoubleGate"/>).</summary>
     public const string DoubleGate = "double-gate";
 
+    /// <summary>The spelling itself, with the allowed names and their meaning for messages.</summary>
+    public static TextSpelling<GateFaces> Spelling { get; } = new(
+        TriGate + " (top and both sidewalls gated) or " + DoubleGate + " (hard mask on top, sidewalls only)",
+        (GateFaces.TriGate, TriGate), (GateFaces.DoubleGate, DoubleGate));
+
     /// <summary>Every allowed spelling, in the order of the enum.</summary>
-    public static IReadOnlyList<string> Names { get; } = [TriGate, DoubleGate];
+    public static IReadOnlyList<string> Names => Spelling.Names;
 
-    /// <summary>Both spellings with what each means, for messages to the people who send them.</summary>
-    public const string Described = TriGate + " (top and both sidewalls gated) or " + DoubleGate + " (hard mask on top, sidewalls only)";
+    /// <inheritdoc cref="TextSpelling{T}.ToText"/>
+    public static string ToText(GateFaces faces) => Spelling.ToText(faces);
 
-    /// <summary>The spelling of <paramref name="faces"/>.</summary>
-    /// <exception cref="ArgumentOutOfRangeException">The value is not a defined <see cref="GateFaces"/>.</exception>
-    public static string ToText(GateFaces faces) => faces switch
-    {
-        GateFaces.TriGate => TriGate,
-        GateFaces.DoubleGate => DoubleGate,
-        _ => throw new ArgumentOutOfRangeException(nameof(faces), faces, "not a gate configuration"),
-    };
+    /// <inheritdoc cref="TextSpelling{T}.TryParse"/>
+    public static bool TryParse([NotNullWhen(true)] string? text, out GateFaces faces) => Spelling.TryParse(text, out faces);
 
-    /// <summary>Reads an exact spelling (<see cref="TriGate"/> or <see cref="DoubleGate"/>, case-sensitive); false for anything else, null included.</summary>
-    public static bool TryParse([NotNullWhen(true)] string? text, out GateFaces faces)
-    {
-        switch (text)
-        {
-            case TriGate:
-                faces = GateFaces.TriGate;
-                return true;
-            case DoubleGate:
-                faces = GateFaces.DoubleGate;
-                return true;
-            default:
-                faces = default;
-                return false;
-        }
-    }
-
-    /// <summary>Reads an exact spelling, as <see cref="TryParse"/>.</summary>
-    /// <exception cref="FormatException">The text is not one of <see cref="Names"/>.</exception>
-    public static GateFaces Parse(string text) =>
-        TryParse(text, out var faces) ? faces : throw new FormatException($"'{text}' is not a gate configuration; expected {Described}");
+    /// <inheritdoc cref="TextSpelling{T}.Parse"/>
+    public static GateFaces Parse(string text) => Spelling.Parse(text);
 }

@@ -1,5 +1,6 @@
 using FinWatch.Data.Entities;
 using FinWatch.Physics;
+using FinWatch.Physics.Analytic;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore.Metadata.Builders;
 
@@ -20,7 +21,7 @@ internal sealed class ProductConfiguration : IEntityTypeConfiguration<Product>
         builder.Property(p => p.ModelEotNm).HasDefaultValue(0.9);
         builder.Property(p => p.ModelGateLengthNm).HasDefaultValue(20.0);
         builder.Property(p => p.ModelChannelDopingCm3).HasDefaultValue(1e17);
-        builder.Property(p => p.ModelSidewallOrientation).HasDefaultValue("110");
+        builder.Property(p => p.ModelSidewallOrientation).HasDefaultValue(ConfinementSurfaceText.Si110);
         builder.HasMany(p => p.Specs).WithOne().HasForeignKey(s => s.ProductId).OnDelete(DeleteBehavior.Cascade);
     }
 }

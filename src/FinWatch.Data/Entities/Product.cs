@@ -1,4 +1,5 @@
 using FinWatch.Physics;
+using FinWatch.Physics.Analytic;
 
 namespace FinWatch.Data.Entities;
 
@@ -30,8 +31,8 @@ public sealed class Product
 
     public double ModelChannelDopingCm3 { get; set; } = 1e17;
 
-    /// <summary>Sidewall surface: "110" (a ⟨110⟩ fin on a (100) wafer) or "100".</summary>
-    public string ModelSidewallOrientation { get; set; } = "110";
+    /// <summary>Sidewall surface: "110" (a ⟨110⟩ fin on a (100) wafer) or "100", as <see cref="ConfinementSurfaceText"/>.</summary>
+    public string ModelSidewallOrientation { get; set; } = ConfinementSurfaceText.Si110;
 
     public long CreatedAtMs { get; set; }
     public long UpdatedAtMs { get; set; }

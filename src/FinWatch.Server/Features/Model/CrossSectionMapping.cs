@@ -45,7 +45,7 @@ public static class CrossSectionMapping
             e["doping_cm3"] = "doping_cm3 is 0 to 1e20 cm⁻³ (acceptors)";
         }
 
-        GateFacesField.Check(r.GateFaces, e, required: false);
+        SpelledField.Check(e, "gate_faces", r.GateFaces, GateFacesText.Spelling, required: false);
 
         if (r.GridNm is { } h && !(h >= 0.1 && h <= 1))
         {
@@ -57,7 +57,7 @@ public static class CrossSectionMapping
     public static FinSolverRequest ToSolver(CrossSectionRequest r) => new()
     {
         Profile = new FinProfile(r.TopWidthNm!.Value, r.BottomWidthNm!.Value, r.HeightNm!.Value, r.CornerRadiusNm ?? 0),
-        Faces = GateFacesField.OrTriGate(r.GateFaces),
+        Faces = SpelledField.ParseOr(r.GateFaces, GateFacesText.Spelling, GateFaces.TriGate),
         DielectricLayers = r.Layers is { Length: > 0 } layers
             ? layers.Select(l => new DielectricLayer(l.ThicknessNm!.Value, l.K!.Value)).ToList()
             : [new DielectricLayer(r.EotNm!.Value, SolverConstants.OxideRelativePermittivity)],

@@ -28,7 +28,7 @@ public sealed class ProductModels
             Nominal = nominal,
             GateLengthNm = p.ModelGateLengthNm,
             DopingPerCm3 = p.ModelChannelDopingCm3,
-            Surface = p.ModelSidewallOrientation == "100" ? ConfinementSurface.Si100 : ConfinementSurface.Si110,
+            Surface = ConfinementSurfaceText.Spelling.Parse(p.ModelSidewallOrientation),
         };
         return calibration is null ? defaults : defaults with
         {

@@ -1,4 +1,5 @@
 using FinWatch.Physics;
+using FinWatch.Physics.Analytic;
 using System.Text.RegularExpressions;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Infrastructure;
@@ -26,7 +27,7 @@ public static partial class ProductRules
             errors["description"] = "description is at most 2000 characters";
         }
 
-        GateFacesField.Check(request.GateFaces, errors, required: true);
+        SpelledField.Check(errors, "gate_faces", request.GateFaces, GateFacesText.Spelling, required: true);
 
         if (request.Nominal is not { } nominal)
         {
@@ -60,9 +61,9 @@ public static partial class ProductRules
             }
         }
 
-        if (request.Model is { SidewallOrientation: not ("110" or "100") } m)
+        if (request.Model is { } m)
         {
-            errors["model.sidewall_orientation"] = $"'{m.SidewallOrientation}' is not '110' or '100'";
+            SpelledField.Check(errors, "model.sidewall_orientation", m.SidewallOrientation, ConfinementSurfaceText.Spelling, required: true);
         }
 
         var seen = new HashSet<string>(StringComparer.Ordinal);

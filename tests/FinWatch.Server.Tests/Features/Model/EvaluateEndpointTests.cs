@@ -20,7 +20,7 @@ public class EvaluateEndpointTests : IntegrationTest
     public async Task Evaluate_VeryLongGate_GivesTheIdealSwingAndNoRollOff()
     {
         // Ideal long-channel swing (kT/q)·ln 10 = 59.5 mV/dec at 300 K (Sze & Ng, Physics of Semiconductor Devices).
-        var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, corner_radius_nm = 0.0, eot_nm = 1.0, gate_length_nm = 1000.0, doping_cm3 = 0.0, gate_faces = "double-gate", orientation = "110" });
+        var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, corner_radius_nm = 0.0, eot_nm = 1.0, gate_length_nm = 1000.0, doping_cm3 = 0.0, gate_faces = "double-gate", sidewall_orientation = "110" });
         Assert.Equal(59.5, r.GetProperty("swing_lin_mv_per_dec").GetDouble(), 0.2);
         Assert.Equal(0, r.GetProperty("sce_shift_lin_mv").GetDouble(), 0.01);
         Assert.Equal(0, r.GetProperty("dibl_mv_per_v").GetDouble(), 0.01);
@@ -77,7 +77,7 @@ public class EvaluateEndpointTests : IntegrationTest
     [Theory]
     [InlineData("{\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_length_nm\":20}", "top_width_nm")]
     [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1}", "gate_length_nm")]
-    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_length_nm\":20,\"orientation\":\"111\"}", "orientation")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_length_nm\":20,\"sidewall_orientation\":\"111\"}", "sidewall_orientation")]
     public async Task Evaluate_BadRequest_Returns400NamingTheField(string json, string field)
     {
         using var content = new StringContent(json, System.Text.Encoding.UTF8, "application/json");
