@@ -435,3 +435,13 @@ VALUES ('20261202171559_SeriesOrderIndex', '10.0.15');
 
 COMMIT;
 
+START TRANSACTION;
+UPDATE products SET gate_faces = 'tri-gate' WHERE gate_faces = 'TriGate';
+
+UPDATE products SET gate_faces = 'double-gate' WHERE gate_faces = 'DoubleGate';
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261205051844_GateFacesText', '10.0.15');
+
+COMMIT;
+

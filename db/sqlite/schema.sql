@@ -459,3 +459,13 @@ VALUES ('20261202171545_SeriesOrderIndex', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+UPDATE products SET gate_faces = 'tri-gate' WHERE gate_faces = 'TriGate';
+
+UPDATE products SET gate_faces = 'double-gate' WHERE gate_faces = 'DoubleGate';
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261205051840_GateFacesText', '10.0.15');
+
+COMMIT;
+

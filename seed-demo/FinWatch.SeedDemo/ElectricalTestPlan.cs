@@ -73,13 +73,12 @@ internal static class ElectricalTestPlan
     /// <summary>The physics defaults the server uses for a product created from <see cref="DemoFab.Products"/> (EOT 0.9 nm, L 20 nm, N_A 1e17 cm⁻³, (110) sidewalls).</summary>
     public static CalibrationParameters PhysicsDefaults(DemoProduct product)
     {
-        GatedFaces faces = product.GatedFaces == "double-gate" ? GatedFaces.DoubleGate : GatedFaces.TriGate;
         DemoProfile n = product.Nominal;
         return new CalibrationParameters
         {
             Name = $"{product.Code} physics defaults",
             Version = "demo truth",
-            Nominal = new FinMeasurement(new FinProfile(n.TopWidthNm, n.BottomWidthNm, n.FinHeightNm, n.CornerRadiusNm), 0.9, 0.9, faces),
+            Nominal = new FinMeasurement(new FinProfile(n.TopWidthNm, n.BottomWidthNm, n.FinHeightNm, n.CornerRadiusNm), 0.9, 0.9, product.GateFaces),
         };
     }
 }

@@ -1,3 +1,5 @@
+using FinWatch.Physics;
+
 namespace FinWatch.SeedDemo;
 
 /// <summary>
@@ -35,7 +37,7 @@ internal sealed class ProductRecipe
         "TRN7",
         "Tarn-7 logic",
         "Invented 7 nm-class tri-gate logic fin: the gate wraps the top and both sidewalls.",
-        "tri-gate",
+        GateFaces.TriGate,
         new DemoProfile(6.0, 10.0, 42.0, 2.0, 2.5),
         lotShare: 0.6,
         SitePosition.CentreAndRings("S", (4, 70.0, 0.0), (8, 135.0, 22.5)),
@@ -47,7 +49,7 @@ internal sealed class ProductRecipe
         "BRM7",
         "Brim-7 hard-mask",
         "Invented 7 nm-class double-gate fin: a hard mask stays on the top, only the two sidewalls are gated.",
-        "double-gate",
+        GateFaces.DoubleGate,
         new DemoProfile(7.0, 9.0, 38.0, 1.5, 2.0),
         lotShare: 0.4,
         SitePosition.CentreAndRings("S", (4, 75.0, 45.0), (4, 140.0, 0.0)),
@@ -63,7 +65,7 @@ internal sealed class ProductRecipe
         string code,
         string name,
         string description,
-        string gatedFaces,
+        GateFaces gateFaces,
         DemoProfile nominal,
         double lotShare,
         SitePosition[] profileSites,
@@ -85,6 +87,6 @@ internal sealed class ProductRecipe
             new("taper_deg", taperDeg.Lower, Math.Round(nominal.TaperDeg, 2), taperDeg.Upper),
             new("mid_width_nm", midWidth.Lower, nominal.MidWidthNm, midWidth.Upper),
         ];
-        return new ProductRecipe(new DemoProduct(code, name, description, gatedFaces, nominal, specs), lotShare, profileSites);
+        return new ProductRecipe(new DemoProduct(code, name, description, gateFaces, nominal, specs), lotShare, profileSites);
     }
 }

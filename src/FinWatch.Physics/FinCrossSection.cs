@@ -19,7 +19,7 @@ namespace FinWatch.Physics;
 /// length from the sharp vertex is t = r·tan(π/4 − θ/2). The radius is limited by t ≤ W_t/2 (the flat top
 /// vanishes at r_max = (W_t/2)·tan(π/4 + θ/2)) and by t ≤ H/cos θ (the sidewall tangent point stays above the
 /// foot; this only binds for fins wider than about twice their height). The profile-taking methods use the
-/// radius clipped to that limit; <see cref="Derive(in FinProfile, GatedFaces)"/> also reports whether it clipped.
+/// radius clipped to that limit; <see cref="Derive(in FinProfile, GateFaces)"/> also reports whether it clipped.
 /// </para>
 /// <para>
 /// Caller mistakes throw <see cref="ArgumentOutOfRangeException"/>: a non-finite or non-positive width or height,
@@ -157,7 +157,7 @@ public static class FinCrossSection
     /// tangent points meet at the top centre (t = W_t/2) and the flat top vanishes. r_max = W_t/2 for θ = 0.
     /// </summary>
     /// <remarks>
-    /// This is the top-width limit only. <see cref="Derive(in FinProfile, GatedFaces)"/> also applies the
+    /// This is the top-width limit only. <see cref="Derive(in FinProfile, GateFaces)"/> also applies the
     /// sidewall-length limit t ≤ H/cos θ, which binds only for fins wider than about twice their height.
     /// </remarks>
     /// <param name="topWidthNm">W_t in nm; finite and &gt; 0.</param>
@@ -178,7 +178,7 @@ public static class FinCrossSection
     /// </summary>
     /// <remarks>
     /// A radius above the limit (see <see cref="FinCrossSection"/>) is clipped to it, exactly as in
-    /// <see cref="Derive(in FinProfile, GatedFaces)"/>, which also reports the clipping.
+    /// <see cref="Derive(in FinProfile, GateFaces)"/>, which also reports the clipping.
     /// </remarks>
     /// <param name="p">The profile; validated as described on <see cref="FinCrossSection"/>.</param>
     /// <returns>The area in nm² (&gt; 0).</returns>
@@ -194,21 +194,21 @@ public static class FinCrossSection
     /// </summary>
     /// <remarks>
     /// <para>
-    /// <see cref="GatedFaces.TriGate"/>: P = (W_t − 2t) + 2(H/cos θ − t) + 2r(π/2 − θ), the flat top, the two
+    /// <see cref="GateFaces.TriGate"/>: P = (W_t − 2t) + 2(H/cos θ − t) + 2r(π/2 − θ), the flat top, the two
     /// straight sidewall segments and the two corner arcs (A.4; π/2 − θ = π − α is the arc angle).
     /// </para>
     /// <para>
-    /// <see cref="GatedFaces.DoubleGate"/>: P = 2(H/cos θ − t), the two straight sidewall segments only. A.7
+    /// <see cref="GateFaces.DoubleGate"/>: P = 2(H/cos θ − t), the two straight sidewall segments only. A.7
     /// removes the top channel and the top corners, so the arcs are not counted as gated either, even though
     /// they lie partly on the sidewall side of the corner. With r = 0 this is the full sidewall length 2H/cos θ.
     /// </para>
-    /// <para>A radius above the limit is clipped to it, as in <see cref="Derive(in FinProfile, GatedFaces)"/>.</para>
+    /// <para>A radius above the limit is clipped to it, as in <see cref="Derive(in FinProfile, GateFaces)"/>.</para>
     /// </remarks>
     /// <param name="p">The profile; validated as described on <see cref="FinCrossSection"/>.</param>
     /// <param name="faces">Which faces are gated.</param>
     /// <returns>The gated perimeter in nm (≥ 0).</returns>
     /// <exception cref="ArgumentOutOfRangeException">The profile is invalid or <paramref name="faces"/> is not a defined value.</exception>
-    public static double GatedPerimeterNm(in FinProfile p, GatedFaces faces)
+    public static double GatedPerimeterNm(in FinProfile p, GateFaces faces)
     {
         ValidateProfile(p);
         RequireFaces(faces);
@@ -286,7 +286,7 @@ public static class FinCrossSection
     /// <param name="faces">Which faces are gated; affects only <see cref="FinGeometry.GatedPerimeterNm"/>.</param>
     /// <returns>The derived geometry.</returns>
     /// <exception cref="ArgumentOutOfRangeException">The profile is invalid or <paramref name="faces"/> is not a defined value.</exception>
-    public static FinGeometry Derive(in FinProfile p, GatedFaces faces)
+    public static FinGeometry Derive(in FinProfile p, GateFaces faces)
     {
         ValidateProfile(p);
         RequireFaces(faces);
@@ -342,10 +342,10 @@ public static class FinCrossSection
         return trapezoid - (2 * cut);
     }
 
-    private static double Perimeter(in FinProfile p, in Corner c, GatedFaces faces)
+    private static double Perimeter(in FinProfile p, in Corner c, GateFaces faces)
     {
         double sidewalls = 2 * (c.SideLength - c.Tangent);
-        return faces == GatedFaces.TriGate
+        return faces == GateFaces.TriGate
             ? (p.TopWidthNm - (2 * c.Tangent)) + sidewalls + (2 * c.Radius * (HalfPi - c.Theta))
             : sidewalls;
     }
@@ -404,9 +404,9 @@ public static class FinCrossSection
         }
     }
 
-    private static void RequireFaces(GatedFaces faces)
+    private static void RequireFaces(GateFaces faces)
     {
-        if (faces is not (GatedFaces.TriGate or GatedFaces.DoubleGate))
+        if (faces is not (GateFaces.TriGate or GateFaces.DoubleGate))
         {
             ThrowOutOfRange(nameof(faces), faces, "Unknown gated-faces value.");
         }

@@ -2,7 +2,7 @@ namespace FinWatch.Physics;
 
 /// <summary>
 /// Derived cross-section quantities of one <see cref="FinProfile"/>, as returned by
-/// <see cref="FinCrossSection.Derive(in FinProfile, GatedFaces)"/> (docs/model.md §A.1–A.4, A.7).
+/// <see cref="FinCrossSection.Derive(in FinProfile, GateFaces)"/> (docs/model.md §A.1–A.4, A.7).
 /// </summary>
 /// <param name="TaperDeg">
 /// θ: sidewall angle from vertical, in degrees, per sidewall; positive when the fin is wider at its foot,
@@ -12,7 +12,7 @@ namespace FinWatch.Physics;
 /// <param name="AreaNm2">Area of the rounded-top trapezoid (A.4) with the radius actually used, in nm².</param>
 /// <param name="GatedPerimeterNm">
 /// Gated perimeter with the radius actually used, in nm: top + corner arcs + sidewalls for
-/// <see cref="GatedFaces.TriGate"/>, the two straight sidewall segments only for <see cref="GatedFaces.DoubleGate"/>.
+/// <see cref="GateFaces.TriGate"/>, the two straight sidewall segments only for <see cref="GateFaces.DoubleGate"/>.
 /// </param>
 /// <param name="MaxCornerRadiusNm">
 /// The largest radius this profile can hold, in nm: the A.4 limit r_max = (W_t/2)·tan(π/4 + θ/2), further

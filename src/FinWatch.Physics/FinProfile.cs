@@ -18,6 +18,6 @@ namespace FinWatch.Physics;
 /// <param name="HeightNm">H: electrically active fin height above the isolation top, in nm; finite and &gt; 0.</param>
 /// <param name="CornerRadiusNm">
 /// r: radius of each top-corner arc, in nm; finite and ≥ 0 (0 means sharp corners). A radius above the
-/// geometric limit is flagged and clipped by <see cref="FinCrossSection.Derive(in FinProfile, GatedFaces)"/>.
+/// geometric limit is flagged and clipped by <see cref="FinCrossSection.Derive(in FinProfile, GateFaces)"/>.
 /// </param>
 public readonly record struct FinProfile(double TopWidthNm, double BottomWidthNm, double HeightNm, double CornerRadiusNm);

@@ -2,7 +2,7 @@ namespace FinWatch.Physics;
 
 /// <summary>
 /// Conditions found while deriving the cross-section of a measured fin profile
-/// (<see cref="FinCrossSection.Derive(in FinProfile, GatedFaces)"/>). The values combine bitwise.
+/// (<see cref="FinCrossSection.Derive(in FinProfile, GateFaces)"/>). The values combine bitwise.
 /// </summary>
 [Flags]
 public enum GeometryFlags

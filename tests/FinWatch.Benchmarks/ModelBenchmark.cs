@@ -22,7 +22,7 @@ public static class ModelBenchmark
         {
             Name = "benchmark",
             Version = "1",
-            Nominal = new FinMeasurement(new FinProfile(6, 10, 42, 2), 0.9, 2.0, GatedFaces.TriGate),
+            Nominal = new FinMeasurement(new FinProfile(6, 10, 42, 2), 0.9, 2.0, GateFaces.TriGate),
         };
         var model = new ThresholdModel(parameters);
         var fins = Profiles(Records, new Random(Seed));
@@ -92,7 +92,7 @@ public static class ModelBenchmark
             }
 
             double r = Math.Min(4, 0.5 * top) * random.NextDouble(), eot = 0.8 + (0.4 * random.NextDouble());
-            fins[i++] = new FinMeasurement(new FinProfile(top, mid + half, h, r), eot, eot + 1, GatedFaces.TriGate);
+            fins[i++] = new FinMeasurement(new FinProfile(top, mid + half, h, r), eot, eot + 1, GateFaces.TriGate);
         }
 
         return fins;

@@ -1,6 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using FinWatch.Data;
+using FinWatch.Physics;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Features.Series;
 using FinWatch.Server.Infrastructure;
@@ -220,9 +221,10 @@ public static class TimeRangeBenchmark
             await using var cmd = new NpgsqlCommand("""
                 INSERT INTO products (code, name, description, gate_faces, nominal_top_width_nm, nominal_bottom_width_nm, nominal_fin_height_nm,
                     nominal_corner_radius_nm, nominal_liner_thickness_nm, created_at_ms, updated_at_ms)
-                VALUES (@code, @code, 'invented for the benchmark', 'TriGate', 6, 10, 42, 2, 2.5, 0, 0) RETURNING id
+                VALUES (@code, @code, 'invented for the benchmark', @faces, 6, 10, 42, 2, 2.5, 0, 0) RETURNING id
                 """, connection);
             cmd.Parameters.AddWithValue("code", $"BX-{p + 1}");
+            cmd.Parameters.AddWithValue("faces", GateFacesText.TriGate);
             products[p] = (int)(await cmd.ExecuteScalarAsync())!;
         }
 

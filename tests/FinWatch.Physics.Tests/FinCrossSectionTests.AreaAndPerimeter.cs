@@ -25,14 +25,14 @@ public sealed partial class FinCrossSectionTests
     {
         // θ = 0, t = r: flat top W − 2r, two sidewalls 2(H − r), two quarter arcs 2·(π/2)·r,
         // total W + 2H − 4r + πr = 10 + 80 − 8 + 2π = 82 + 2π for W = 10, H = 40, r = 2.
-        Assert.Equal(82 + (2 * Math.PI), FinCrossSection.GatedPerimeterNm(new FinProfile(10, 10, 40, 2), GatedFaces.TriGate), 1e-12);
+        Assert.Equal(82 + (2 * Math.PI), FinCrossSection.GatedPerimeterNm(new FinProfile(10, 10, 40, 2), GateFaces.TriGate), 1e-12);
     }
 
     [Fact]
     public void GatedPerimeter_RectangleSharpTriGate_IsWidthPlusTwoHeights()
     {
         // θ = 0, r = 0: top W plus two sidewalls H, 10 + 80 = 90 (the foot is not gated).
-        Assert.Equal(90.0, FinCrossSection.GatedPerimeterNm(new FinProfile(10, 10, 40, 0), GatedFaces.TriGate), 1e-12);
+        Assert.Equal(90.0, FinCrossSection.GatedPerimeterNm(new FinProfile(10, 10, 40, 0), GateFaces.TriGate), 1e-12);
     }
 
     [Fact]
@@ -46,7 +46,7 @@ public sealed partial class FinCrossSectionTests
     public void GatedPerimeter_SharpTrapezoidTriGate_IsTopPlusSlantSidewalls()
     {
         // r = 0: Wt + 2H/cos θ; at 45° the sidewall is H·√2 (hypotenuse of a 40-40 right triangle): 10 + 80√2.
-        Assert.Equal(10 + (80 * Sqrt2), FinCrossSection.GatedPerimeterNm(new FinProfile(10, 90, 40, 0), GatedFaces.TriGate), 1e-12);
+        Assert.Equal(10 + (80 * Sqrt2), FinCrossSection.GatedPerimeterNm(new FinProfile(10, 90, 40, 0), GateFaces.TriGate), 1e-12);
     }
 
     [Fact]
@@ -56,7 +56,7 @@ public sealed partial class FinCrossSectionTests
         // area (Wt + Wb)H/2 = (20 + 20√3)·15 = 300 + 300√3.
         double wb = 10 + (20 * Math.Sqrt(3));
         var p = new FinProfile(10, wb, 30, 0);
-        Assert.Equal(10 + (40 * Math.Sqrt(3)), FinCrossSection.GatedPerimeterNm(p, GatedFaces.TriGate), 1e-12);
+        Assert.Equal(10 + (40 * Math.Sqrt(3)), FinCrossSection.GatedPerimeterNm(p, GateFaces.TriGate), 1e-12);
         Assert.Equal(300 + (300 * Math.Sqrt(3)), FinCrossSection.AreaNm2(p), 1e-10);
     }
 
@@ -68,7 +68,7 @@ public sealed partial class FinCrossSectionTests
         // P = (10 − 2t) + 2(40√2 − t) + 2·r·π/4 = 10 + 80√2 − 8(√2 − 1) + π.
         var p = new FinProfile(10, 90, 40, 2);
         Assert.Equal(2000 - (8 * (Sqrt2 - 1)) + Math.PI, FinCrossSection.AreaNm2(p), 1e-10);
-        Assert.Equal(10 + (80 * Sqrt2) - (8 * (Sqrt2 - 1)) + Math.PI, FinCrossSection.GatedPerimeterNm(p, GatedFaces.TriGate), 1e-12);
+        Assert.Equal(10 + (80 * Sqrt2) - (8 * (Sqrt2 - 1)) + Math.PI, FinCrossSection.GatedPerimeterNm(p, GateFaces.TriGate), 1e-12);
     }
 
     [Fact]
@@ -79,8 +79,8 @@ public sealed partial class FinCrossSectionTests
         // The double gate drops the arcs (and the zero-length top): their difference is the arcs alone.
         double rMax = 5 * (1 + Sqrt2);
         var p = new FinProfile(10, 90, 40, rMax);
-        double tri = FinCrossSection.GatedPerimeterNm(p, GatedFaces.TriGate);
-        double dbl = FinCrossSection.GatedPerimeterNm(p, GatedFaces.DoubleGate);
+        double tri = FinCrossSection.GatedPerimeterNm(p, GateFaces.TriGate);
+        double dbl = FinCrossSection.GatedPerimeterNm(p, GateFaces.DoubleGate);
         Assert.Equal((2 * ((40 * Sqrt2) - 5)) + (rMax * Math.PI / 2), tri, 1e-12);
         Assert.Equal(rMax * Math.PI / 2, tri - dbl, 1e-12);
 
@@ -95,8 +95,8 @@ public sealed partial class FinCrossSectionTests
         // tri-gate P = 2(H − r) + πr = 70 + 5π; double gate 2(H − r) = 70.
         var p = new FinProfile(10, 10, 40, 5);
         Assert.Equal(350 + (12.5 * Math.PI), FinCrossSection.AreaNm2(p), 1e-12);
-        Assert.Equal(70 + (5 * Math.PI), FinCrossSection.GatedPerimeterNm(p, GatedFaces.TriGate), 1e-12);
-        Assert.Equal(70.0, FinCrossSection.GatedPerimeterNm(p, GatedFaces.DoubleGate), 1e-12);
+        Assert.Equal(70 + (5 * Math.PI), FinCrossSection.GatedPerimeterNm(p, GateFaces.TriGate), 1e-12);
+        Assert.Equal(70.0, FinCrossSection.GatedPerimeterNm(p, GateFaces.DoubleGate), 1e-12);
     }
 
     [Fact]
@@ -109,28 +109,28 @@ public sealed partial class FinCrossSectionTests
         double rMax = FinCrossSection.MaxCornerRadiusNm(wt, FinCrossSection.TaperAngleRad(wt, 20, 40));
         var p = new FinProfile(wt, 20, 40, rMax);
         Assert.Equal(400.0, FinCrossSection.AreaNm2(p), 100 * wt);
-        Assert.Equal(2 * Math.Sqrt(1700), FinCrossSection.GatedPerimeterNm(p, GatedFaces.TriGate), 100 * wt);
+        Assert.Equal(2 * Math.Sqrt(1700), FinCrossSection.GatedPerimeterNm(p, GateFaces.TriGate), 100 * wt);
     }
 
     [Fact]
     public void GatedPerimeter_DoubleGateRectangle_IsTwoStraightSidewallSegments()
     {
         // A.7 (hard mask): top and corners ungated; the straight sidewall below each arc is H − r, so 2(40 − 2) = 76.
-        Assert.Equal(76.0, FinCrossSection.GatedPerimeterNm(new FinProfile(10, 10, 40, 2), GatedFaces.DoubleGate), 1e-12);
+        Assert.Equal(76.0, FinCrossSection.GatedPerimeterNm(new FinProfile(10, 10, 40, 2), GateFaces.DoubleGate), 1e-12);
     }
 
     [Fact]
     public void GatedPerimeter_DoubleGateSharpTrapezoid_IsFullSlantSidewalls()
     {
         // r = 0 at 45°: 2H/cos θ = 2·40√2 = 80√2 (no corner to remove).
-        Assert.Equal(80 * Sqrt2, FinCrossSection.GatedPerimeterNm(new FinProfile(10, 90, 40, 0), GatedFaces.DoubleGate), 1e-12);
+        Assert.Equal(80 * Sqrt2, FinCrossSection.GatedPerimeterNm(new FinProfile(10, 90, 40, 0), GateFaces.DoubleGate), 1e-12);
     }
 
     [Fact]
     public void GatedPerimeter_DoubleGate45DegreesRounded_IsSidewallsMinusTangents()
     {
         // 2(H/cos θ − t) with t = 2(√2 − 1) at 45°: 80√2 − 4(√2 − 1).
-        Assert.Equal((80 * Sqrt2) - (4 * (Sqrt2 - 1)), FinCrossSection.GatedPerimeterNm(new FinProfile(10, 90, 40, 2), GatedFaces.DoubleGate), 1e-12);
+        Assert.Equal((80 * Sqrt2) - (4 * (Sqrt2 - 1)), FinCrossSection.GatedPerimeterNm(new FinProfile(10, 90, 40, 2), GateFaces.DoubleGate), 1e-12);
     }
 
     [Fact]
@@ -138,7 +138,7 @@ public sealed partial class FinCrossSectionTests
     {
         // Rectangle W = 10, r = 7 > r_max = 5: clipped to the half-disc top, A = 350 + 12.5π (as at r = 5).
         Assert.Equal(350 + (12.5 * Math.PI), FinCrossSection.AreaNm2(new FinProfile(10, 10, 40, 7)), 1e-12);
-        Assert.Equal(70 + (5 * Math.PI), FinCrossSection.GatedPerimeterNm(new FinProfile(10, 10, 40, 7), GatedFaces.TriGate), 1e-12);
+        Assert.Equal(70 + (5 * Math.PI), FinCrossSection.GatedPerimeterNm(new FinProfile(10, 10, 40, 7), GateFaces.TriGate), 1e-12);
     }
 
     [Fact]
@@ -147,7 +147,7 @@ public sealed partial class FinCrossSectionTests
         // Wt = 12 > Wb = 8, r = 0: trapezoid area (12 + 8)·40/2 = 400; sidewalls √(40² + 2²) = √1604 each (Pythagoras).
         var p = new FinProfile(12, 8, 40, 0);
         Assert.Equal(400.0, FinCrossSection.AreaNm2(p), 1e-12);
-        Assert.Equal(12 + (2 * Math.Sqrt(1604)), FinCrossSection.GatedPerimeterNm(p, GatedFaces.TriGate), 1e-12);
+        Assert.Equal(12 + (2 * Math.Sqrt(1604)), FinCrossSection.GatedPerimeterNm(p, GateFaces.TriGate), 1e-12);
     }
 
     [Fact]

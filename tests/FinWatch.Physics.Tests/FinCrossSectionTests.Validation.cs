@@ -108,7 +108,7 @@ public sealed partial class FinCrossSectionTests
     [Fact]
     public void FacesMethods_UndefinedFaces_Throw()
     {
-        const GatedFaces undefined = (GatedFaces)7;
+        const GateFaces undefined = (GateFaces)7;
         Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.GatedPerimeterNm(Tapered, undefined));
         Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.Derive(Tapered, undefined));
     }
@@ -117,8 +117,8 @@ public sealed partial class FinCrossSectionTests
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.LocalWidthNm(p, 1));
         Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.AreaNm2(p));
-        Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.GatedPerimeterNm(p, GatedFaces.TriGate));
+        Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.GatedPerimeterNm(p, GateFaces.TriGate));
         Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.IsInside(p, 0, 1));
-        Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.Derive(p, GatedFaces.DoubleGate));
+        Assert.Throws<ArgumentOutOfRangeException>(() => FinCrossSection.Derive(p, GateFaces.DoubleGate));
     }
 }

@@ -42,7 +42,7 @@ public class ElectricalTestsTests
                 Version = "test",
                 Nominal = new FinMeasurement(new FinProfile(product.Nominal.TopWidthNm, product.Nominal.BottomWidthNm,
                     product.Nominal.FinHeightNm, product.Nominal.CornerRadiusNm), 0.9, 0.9,
-                    product.GatedFaces == "double-gate" ? GatedFaces.DoubleGate : GatedFaces.TriGate),
+                    product.GateFaces),
             };
             var observations = DemoFab.GenerateElectricalTests(DemoFab.DefaultSeed, Scale).Where(t => t.Product == truth.Product)
                 .Select(t => new ElectricalObservation(start.Nominal with { Profile = means[(t.LotId, t.WaferSlot)] }, t.VtLinV, t.VtSatV)).ToList();

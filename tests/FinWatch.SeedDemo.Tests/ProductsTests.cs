@@ -1,3 +1,5 @@
+using FinWatch.Physics;
+
 namespace FinWatch.SeedDemo.Tests;
 
 public sealed class ProductsTests
@@ -9,7 +11,7 @@ public sealed class ProductsTests
     public void Products_Demo_OneTriGateAndOneDoubleGateWithDistinctCodes()
     {
         Assert.Equal(2, DemoFab.Products.Count);
-        Assert.Equal(["double-gate", "tri-gate"], DemoFab.Products.Select(p => p.GatedFaces).Order());
+        Assert.Equal([GateFaces.TriGate, GateFaces.DoubleGate], DemoFab.Products.Select(p => p.GateFaces).Order());
         Assert.Equal(DemoFab.Products.Count, DemoFab.Products.Select(p => p.Code).Distinct().Count());
         Assert.All(DemoFab.Products, p => Assert.Contains("Invented", p.Description, StringComparison.Ordinal));
     }

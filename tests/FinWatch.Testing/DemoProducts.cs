@@ -1,4 +1,5 @@
 using System.Net.Http.Json;
+using FinWatch.Physics;
 using FinWatch.SeedDemo;
 
 namespace FinWatch.Testing;
@@ -15,7 +16,7 @@ public static class DemoProducts
                 code = p.Code,
                 name = p.Name,
                 description = p.Description,
-                gate_faces = p.GatedFaces,
+                gate_faces = GateFacesText.ToText(p.GateFaces),
                 nominal = new
                 {
                     top_width_nm = p.Nominal.TopWidthNm,

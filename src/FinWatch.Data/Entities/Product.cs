@@ -1,3 +1,6 @@
+using FinWatch.Physics;
+using FinWatch.Physics.Analytic;
+
 namespace FinWatch.Data.Entities;
 
 /// <summary>A product: its nominal fin profile (nm) and its specification limits per parameter.</summary>
@@ -12,7 +15,7 @@ public sealed class Product
 
     public string Description { get; set; } = "";
 
-    /// <summary>Which faces the gate covers: tri-gate (top and sidewalls) or double-gate (hard mask on top).</summary>
+    /// <summary>Which faces the gate covers: tri-gate (top and sidewalls) or double-gate (hard mask on top); stored as <see cref="GateFacesText"/>.</summary>
     public GateFaces GateFaces { get; set; } = GateFaces.TriGate;
 
     public double NominalTopWidthNm { get; set; }
@@ -28,8 +31,8 @@ public sealed class Product
 
     public double ModelChannelDopingCm3 { get; set; } = 1e17;
 
-    /// <summary>Sidewall surface: "110" (a ⟨110⟩ fin on a (100) wafer) or "100".</summary>
-    public string ModelSidewallOrientation { get; set; } = "110";
+    /// <summary>Sidewall surface: "110" (a ⟨110⟩ fin on a (100) wafer) or "100", as <see cref="ConfinementSurfaceText"/>.</summary>
+    public string ModelSidewallOrientation { get; set; } = ConfinementSurfaceText.Si110;
 
     public long CreatedAtMs { get; set; }
     public long UpdatedAtMs { get; set; }

@@ -17,7 +17,7 @@ public static class Corner
     /// <param name="faces">Gated faces.</param>
     /// <returns>f_c, dimensionless in [0, 1).</returns>
     /// <exception cref="ArgumentOutOfRangeException">An argument is out of range.</exception>
-    public static double CurrentFraction(double cornerWidthNm, double gatedPerimeterNm, GatedFaces faces)
+    public static double CurrentFraction(double cornerWidthNm, double gatedPerimeterNm, GateFaces faces)
     {
         if (!double.IsFinite(cornerWidthNm) || cornerWidthNm < 0)
         {
@@ -31,8 +31,8 @@ public static class Corner
 
         return faces switch
         {
-            GatedFaces.TriGate => 2 * cornerWidthNm / gatedPerimeterNm,
-            GatedFaces.DoubleGate => 0,
+            GateFaces.TriGate => 2 * cornerWidthNm / gatedPerimeterNm,
+            GateFaces.DoubleGate => 0,
             _ => throw new ArgumentOutOfRangeException(nameof(faces)),
         };
     }

@@ -8,4 +8,4 @@ namespace FinWatch.Physics.Analytic;
 /// corner form uses EOT only (its physical-thickness term, D.3, is a 2-D-solver calibration).
 /// </param>
 /// <param name="Faces">Gated faces: tri-gate, or double gate under a hard mask (A.7).</param>
-public readonly record struct FinMeasurement(FinProfile Profile, double EotNm, double PhysicalThicknessNm, GatedFaces Faces);
+public readonly record struct FinMeasurement(FinProfile Profile, double EotNm, double PhysicalThicknessNm, GateFaces Faces);

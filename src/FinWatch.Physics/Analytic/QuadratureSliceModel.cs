@@ -83,7 +83,7 @@ public static class QuadratureSliceModel
         FinProfile p = input.Profile;
         int ns = input.SliceCount;
         FinGeometry geometry = FinCrossSection.Derive(p, input.Faces);
-        double fc = input.Faces == GatedFaces.TriGate
+        double fc = input.Faces == GateFaces.TriGate
             ? Corner.CurrentFraction(input.CornerCoefficients.CornerWidthNm, geometry.GatedPerimeterNm, input.Faces)
             : 0;
 
@@ -388,7 +388,7 @@ public static class QuadratureSliceModel
             _c1 = sets[1].Degeneracy * (sets[1].DensityOfStatesMassRatio * PhysicalConstants.ElectronMassKg * kT / (Math.PI * hbar * hbar));
             _nClPerNm = 1e-9 * QuantumConfinement.BulkEffectiveDensityPerM3;
             _qcMult = input.QcMultiplier;
-            _lambdaH = input.Faces != GatedFaces.TriGate ? double.PositiveInfinity
+            _lambdaH = input.Faces != GateFaces.TriGate ? double.PositiveInfinity
                 : table is not null && table.TryInterpolateFilm(2 * input.Profile.HeightNm, out double tabled) ? tabled
                 : DoubleGateNm(2 * input.Profile.HeightNm, input.EotNm, double.NaN);
             _a = PhysicalConstants.ElementaryChargeC * input.DopingPerCm3

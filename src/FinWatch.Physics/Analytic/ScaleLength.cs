@@ -142,13 +142,13 @@ public static class ScaleLength
     /// <param name="faces">Gated faces.</param>
     /// <returns>λ in nm.</returns>
     /// <exception cref="ArgumentOutOfRangeException">A length is non-finite or ≤ 0, or <paramref name="faces"/> is undefined.</exception>
-    public static double RectangularFinNm(double widthNm, double heightNm, double oxideThicknessNm, GatedFaces faces)
+    public static double RectangularFinNm(double widthNm, double heightNm, double oxideThicknessNm, GateFaces faces)
     {
         double w = DoubleGateExactNm(widthNm, oxideThicknessNm);
         return faces switch
         {
-            GatedFaces.TriGate => CombineNm(w, TopGateNm(heightNm, oxideThicknessNm)),
-            GatedFaces.DoubleGate => RequirePositiveThen(heightNm, w),
+            GateFaces.TriGate => CombineNm(w, TopGateNm(heightNm, oxideThicknessNm)),
+            GateFaces.DoubleGate => RequirePositiveThen(heightNm, w),
             _ => throw new ArgumentOutOfRangeException(nameof(faces)),
         };
     }

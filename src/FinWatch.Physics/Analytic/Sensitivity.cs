@@ -94,14 +94,14 @@ public static class Sensitivity
         return sum;
     }
 
-    private static Outputs At(CalibrationParameters parameters, GatedFaces faces, ProfileCoordinates c0, SensitivityParameter p, double x) => p switch
+    private static Outputs At(CalibrationParameters parameters, GateFaces faces, ProfileCoordinates c0, SensitivityParameter p, double x) => p switch
     {
         SensitivityParameter.GateLength => Evaluate(parameters, faces, c0, x, parameters.DopingPerCm3),
         SensitivityParameter.Doping => Evaluate(parameters, faces, c0, parameters.GateLengthNm, x),
         _ => Evaluate(parameters, faces, c0.With(p, x), parameters.GateLengthNm, parameters.DopingPerCm3),
     };
 
-    private static Outputs Evaluate(CalibrationParameters parameters, GatedFaces faces, ProfileCoordinates c, double lengthNm, double dopingPerCm3)
+    private static Outputs Evaluate(CalibrationParameters parameters, GateFaces faces, ProfileCoordinates c, double lengthNm, double dopingPerCm3)
     {
         var fin = new FinMeasurement(c.ToProfile(), c.EotNm, parameters.Nominal.PhysicalThicknessNm, faces);
         SliceModelResult r = SliceModel.Evaluate(parameters.ToSliceInput(fin, lengthNm, dopingPerCm3));

@@ -177,7 +177,7 @@ public static class SliceModel
         int ns = input.SliceCount;
 
         FinGeometry geometry = FinCrossSection.Derive(p, input.Faces);
-        double fc = input.Faces == GatedFaces.TriGate
+        double fc = input.Faces == GateFaces.TriGate
             ? Corner.CurrentFraction(input.CornerCoefficients.CornerWidthNm, geometry.GatedPerimeterNm, input.Faces)
             : 0;
         int count = fc > 0 ? ns + 1 : ns;
@@ -185,7 +185,7 @@ public static class SliceModel
         Span<double> baseVt = count <= 512 ? stackalloc double[count] : new double[count];
         double[] vtLo = new double[count], vtHi = new double[count], nLo = new double[count], nHi = new double[count], g = new double[count];
 
-        double lambdaH = input.Faces == GatedFaces.TriGate ? ScaleLength.TopGateNm(p.HeightNm, input.EotNm) : double.PositiveInfinity;
+        double lambdaH = input.Faces == GateFaces.TriGate ? ScaleLength.TopGateNm(p.HeightNm, input.EotNm) : double.PositiveInfinity;
         double minRatio = double.PositiveInfinity;
         bool punch = false;
         double dz = p.HeightNm / ns;

@@ -23,7 +23,7 @@ namespace FinWatch.Physics.Analytic;
 public sealed record SliceModelInput(
     FinProfile Profile,
     double EotNm,
-    GatedFaces Faces,
+    GateFaces Faces,
     double GateLengthNm,
     double DrainVoltageLowV,
     double DrainVoltageHighV,

@@ -36,7 +36,7 @@ internal sealed class FinMesh
     public FinMesh(FinSolverRequest request, double boxThicknessNm, CancellationToken cancellationToken)
     {
         _profile = request.Profile;
-        _hardMask = request.Faces == GatedFaces.DoubleGate;
+        _hardMask = request.Faces == GateFaces.DoubleGate;
         _capTop = _profile.HeightNm + request.HardMaskThicknessNm;
         _capEps = request.HardMaskRelativePermittivity;
         int layers = request.DielectricLayers.Count;

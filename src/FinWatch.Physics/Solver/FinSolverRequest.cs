@@ -19,7 +19,7 @@ public sealed record FinSolverRequest
     public required FinProfile Profile { get; init; }
 
     /// <summary>Gated faces: tri-gate, or double gate with a hard mask on the top (A.7).</summary>
-    public GatedFaces Faces { get; init; } = GatedFaces.TriGate;
+    public GateFaces Faces { get; init; } = GateFaces.TriGate;
 
     /// <summary>The gate stack from the silicon outwards, physical thicknesses (A.6); at least one layer.</summary>
     public required IReadOnlyList<DielectricLayer> DielectricLayers { get; init; }
@@ -33,7 +33,7 @@ public sealed record FinSolverRequest
     /// <summary>Thickness of the BOX / isolation oxide meshed below the fin foot, in nm (F.2: 10 nm); ≥ 0.</summary>
     public double BoxThicknessNm { get; init; } = 10;
 
-    /// <summary>Hard-mask (cap) thickness on the fin top for <see cref="GatedFaces.DoubleGate"/>, in nm; &gt; 0. Ignored for tri-gate.</summary>
+    /// <summary>Hard-mask (cap) thickness on the fin top for <see cref="GateFaces.DoubleGate"/>, in nm; &gt; 0. Ignored for tri-gate.</summary>
     public double HardMaskThicknessNm { get; init; } = 10;
 
     /// <summary>Relative permittivity of the hard mask (dimensionless); default 3.9 (SiO₂). Ignored for tri-gate.</summary>
@@ -77,7 +77,7 @@ public sealed record FinSolverRequest
             Append(sb, Profile.BottomWidthNm, "F4");
             Append(sb, Profile.HeightNm, "F4");
             Append(sb, Profile.CornerRadiusNm, "F4");
-            sb.Append(Faces == GatedFaces.TriGate ? "TG|" : "DG|");
+            sb.Append(Faces == GateFaces.TriGate ? "TG|" : "DG|");
             foreach (DielectricLayer layer in DielectricLayers)
             {
                 Append(sb, layer.ThicknessNm, "F4");
@@ -88,7 +88,7 @@ public sealed record FinSolverRequest
             Append(sb, AcceptorDensityCm3, "E5");
             Append(sb, GridSpacingNm, "F5");
             Append(sb, BoxThicknessNm, "F4");
-            if (Faces == GatedFaces.DoubleGate)
+            if (Faces == GateFaces.DoubleGate)
             {
                 Append(sb, HardMaskThicknessNm, "F4");
                 Append(sb, HardMaskRelativePermittivity, "F4");
@@ -162,7 +162,7 @@ public sealed record FinSolverRequest
 
         double halfWidth = (0.5 * Math.Max(Profile.TopWidthNm, Profile.BottomWidthNm)) + PhysicalDielectricThicknessNm + 1;
         double height = BoxThicknessNm + Profile.HeightNm + PhysicalDielectricThicknessNm + 1
-            + (Faces == GatedFaces.DoubleGate ? HardMaskThicknessNm : 0);
+            + (Faces == GateFaces.DoubleGate ? HardMaskThicknessNm : 0);
         double nodesX = (2 * Math.Ceiling(halfWidth / GridSpacingNm)) + 1;
         double nodes = nodesX * (Math.Ceiling(height / GridSpacingNm) + 1);
         ArgumentOutOfRangeException.ThrowIfGreaterThan(nodes, 4.0e6, nameof(GridSpacingNm));

@@ -13,7 +13,7 @@ public sealed class CalibrationTests
     {
         Name = "defaults",
         Version = "0",
-        Nominal = new FinMeasurement(new FinProfile(6, 10, 42, 2), 0.9, 0.9, GatedFaces.TriGate),
+        Nominal = new FinMeasurement(new FinProfile(6, 10, 42, 2), 0.9, 0.9, GateFaces.TriGate),
     };
 
     private static List<ElectricalObservation> Synthetic(double gateLengthNm, double barrierV, double offsetV, int count, double noiseV, int seed)

@@ -11,14 +11,14 @@ public sealed class CornerTests
     public void CurrentFraction_TriGate_IsTwoCornerWidthsOverPerimeter()
     {
         // D.2: f_c = 2 w_c/P_gate.
-        Assert.Equal(2 * 0.5 / 90.0, Corner.CurrentFraction(0.5, 90, GatedFaces.TriGate), 1e-15);
+        Assert.Equal(2 * 0.5 / 90.0, Corner.CurrentFraction(0.5, 90, GateFaces.TriGate), 1e-15);
     }
 
     [Fact]
     public void CurrentFraction_HardMask_IsZero()
     {
         // D.3 / A.7: a hard mask removes the top corners.
-        Assert.Equal(0, Corner.CurrentFraction(0.5, 84, GatedFaces.DoubleGate));
+        Assert.Equal(0, Corner.CurrentFraction(0.5, 84, GateFaces.DoubleGate));
     }
 
     [Theory]

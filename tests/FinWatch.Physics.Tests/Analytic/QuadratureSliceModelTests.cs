@@ -11,19 +11,19 @@ public sealed class QuadratureSliceModelTests
 {
     private const double Barrier = 0.155;
 
-    public static TheoryData<double, double, GatedFaces> ParameterSets() => new()
+    public static TheoryData<double, double, GateFaces> ParameterSets() => new()
     {
-        { 14, 0, GatedFaces.TriGate },
-        { 20, 1e17, GatedFaces.TriGate },
-        { 26, 1e18, GatedFaces.TriGate },
-        { 14, 1e18, GatedFaces.TriGate },
-        { 20, 1e16, GatedFaces.DoubleGate },
-        { 26, 0, GatedFaces.DoubleGate },
+        { 14, 0, GateFaces.TriGate },
+        { 20, 1e17, GateFaces.TriGate },
+        { 26, 1e18, GateFaces.TriGate },
+        { 14, 1e18, GateFaces.TriGate },
+        { 20, 1e16, GateFaces.DoubleGate },
+        { 26, 0, GateFaces.DoubleGate },
     };
 
     [Theory]
     [MemberData(nameof(ParameterSets))]
-    public void Evaluate_H1Profiles_AgreesWithTwoHundredSliceSum(double gateLengthNm, double doping, GatedFaces faces)
+    public void Evaluate_H1Profiles_AgreesWithTwoHundredSliceSum(double gateLengthNm, double doping, GateFaces faces)
     {
         // Convergence check against the 200-slice sum (E.1: 200–400 midpoint slices converge to < 0.1 mV; the quadrature is
         // the same integral): 300 seeded H.1 profiles (w_mid 5–10, θ 0–6°, H 30–55, r 0–4, EOT 0.8–1.2), absolute values.
@@ -60,9 +60,9 @@ public sealed class QuadratureSliceModelTests
         CalibrationParameters parameters = AnalyticFixtures.G4Parameters;
         SliceModelResult nominal = SliceModel.Evaluate(parameters.ToSliceInput(parameters.Nominal));
         var random = new Random(99);
-        foreach (SliceModelInput input in Inputs(random, 200, parameters.GateLengthNm, parameters.DopingPerCm3, GatedFaces.TriGate))
+        foreach (SliceModelInput input in Inputs(random, 200, parameters.GateLengthNm, parameters.DopingPerCm3, GateFaces.TriGate))
         {
-            var fin = new FinMeasurement(input.Profile, input.EotNm, input.EotNm + 1, GatedFaces.TriGate);
+            var fin = new FinMeasurement(input.Profile, input.EotNm, input.EotNm + 1, GateFaces.TriGate);
             SliceModelResult slow = SliceModel.Evaluate(parameters.ToSliceInput(fin));
             ThresholdPrediction p = model.Predict(fin);
             Assert.Equal(1000 * (slow.ThresholdLowV - nominal.ThresholdLowV), p.DeltaThresholdLinMv, 0.01);
@@ -187,7 +187,7 @@ public sealed class QuadratureSliceModelTests
         }
     }
 
-    private static IEnumerable<SliceModelInput> Inputs(Random random, int count, double gateLengthNm, double doping, GatedFaces faces)
+    private static IEnumerable<SliceModelInput> Inputs(Random random, int count, double gateLengthNm, double doping, GateFaces faces)
     {
         for (int i = 0; i < count;)
         {

@@ -72,7 +72,7 @@ public sealed class ScaleLengthTests
     {
         // B.3: for tall fins (H ≥ 4W) the top term changes λ by only 1–2 % (we find 0.9 % at H = 6W, so cases are 4W–5W).
         double sidewall = ScaleLength.DoubleGateExactNm(w, tox);
-        double tri = ScaleLength.RectangularFinNm(w, h, tox, GatedFaces.TriGate);
+        double tri = ScaleLength.RectangularFinNm(w, h, tox, GateFaces.TriGate);
         Assert.InRange(1 - (tri / sidewall), 0.01, 0.02);
     }
 
@@ -82,7 +82,7 @@ public sealed class ScaleLengthTests
         // B.3 / A.7: hard mask ⇒ λ = λ_W.
         Assert.Equal(
             ScaleLength.DoubleGateExactNm(8, 0.9),
-            ScaleLength.RectangularFinNm(8, 42, 0.9, GatedFaces.DoubleGate));
+            ScaleLength.RectangularFinNm(8, 42, 0.9, GateFaces.DoubleGate));
     }
 
     [Fact]

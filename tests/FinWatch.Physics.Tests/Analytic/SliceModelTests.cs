@@ -8,7 +8,7 @@ public sealed class SliceModelTests
     private const double Vt = PhysicalConstants.ThermalVoltageV;
     private const double Barrier = 0.155;
 
-    private static SliceModelInput Input(FinProfile p, GatedFaces faces, double eot = 0.9, double l = 20, double na = 1e17, int slices = 200) =>
+    private static SliceModelInput Input(FinProfile p, GateFaces faces, double eot = 0.9, double l = 20, double na = 1e17, int slices = 200) =>
         new(p, eot, faces, l, 0.05, 0.75, na, Barrier, 1e11, 1, ConfinementSurface.Si110, CornerCoefficients.Default, slices);
 
     [Fact]
@@ -111,7 +111,7 @@ public sealed class SliceModelTests
     {
         // E.1/E.2: an untapered fin has identical slices, so the slice model equals one slice; no corners under a hard mask.
         var p = new FinProfile(8, 8, 42, 0);
-        SliceModelResult r = SliceModel.Evaluate(Input(p, GatedFaces.DoubleGate));
+        SliceModelResult r = SliceModel.Evaluate(Input(p, GateFaces.DoubleGate));
         double ratio = 20 / ScaleLength.DoubleGateExactNm(8, 0.9);
         double vBase = SliceModel.LongChannelThresholdV(8, 0.9, 1e17, 1e11) + QuantumConfinement.DensityOfStatesShiftV(8);
         ShortChannelThreshold lo = ShortChannel.Threshold(Barrier, 0.05, ratio);
@@ -129,11 +129,11 @@ public sealed class SliceModelTests
     {
         // E.4 with D.2: uniform slices plus the corner term (weight f_c, same n, V_T − ΔV_c) reproduce the D.2 closed form.
         var p = new FinProfile(8, 8, 42, 1);
-        SliceModelResult r = SliceModel.Evaluate(Input(p, GatedFaces.TriGate, na: 1e18));
-        double ratio = 20 / ScaleLength.RectangularFinNm(8, 42, 0.9, GatedFaces.TriGate);
+        SliceModelResult r = SliceModel.Evaluate(Input(p, GateFaces.TriGate, na: 1e18));
+        double ratio = 20 / ScaleLength.RectangularFinNm(8, 42, 0.9, GateFaces.TriGate);
         double vBase = SliceModel.LongChannelThresholdV(8, 0.9, 1e18, 1e11) + QuantumConfinement.DensityOfStatesShiftV(8);
         ShortChannelThreshold lo = ShortChannel.Threshold(Barrier, 0.05, ratio);
-        double fc = Corner.CurrentFraction(0.5, FinCrossSection.GatedPerimeterNm(p, GatedFaces.TriGate), GatedFaces.TriGate);
+        double fc = Corner.CurrentFraction(0.5, FinCrossSection.GatedPerimeterNm(p, GateFaces.TriGate), GateFaces.TriGate);
         double dvc = Corner.LocalLoweringV(1, 8, 0.9, 1e18, CornerCoefficients.Default);
         double expected = vBase + lo.ShiftV + Corner.ThresholdShiftV(fc, dvc, 1 / lo.BarrierSlope);
         Assert.Equal(fc, r.CornerFraction, 1e-15);
@@ -146,8 +146,8 @@ public sealed class SliceModelTests
     {
         // E.1: 200–400 slices; the result converges to < 0.1 mV.
         var p = new FinProfile(5, 11, 40, 0);
-        SliceModelResult a = SliceModel.Evaluate(Input(p, GatedFaces.TriGate, eot: 1, slices: 200));
-        SliceModelResult b = SliceModel.Evaluate(Input(p, GatedFaces.TriGate, eot: 1, slices: 400));
+        SliceModelResult a = SliceModel.Evaluate(Input(p, GateFaces.TriGate, eot: 1, slices: 200));
+        SliceModelResult b = SliceModel.Evaluate(Input(p, GateFaces.TriGate, eot: 1, slices: 400));
         Assert.Equal(b.ThresholdLowV, a.ThresholdLowV, 1e-4);
         Assert.Equal(b.ThresholdHighV, a.ThresholdHighV, 1e-4);
     }
@@ -158,8 +158,8 @@ public sealed class SliceModelTests
         // E.2 [D] prototype, not a published source: a 5/11 nm fin (w_mid 8, H 40, L 20, EOT 1) has V_T,eff 8 mV (lin) and
         // 27 mV (sat) below the uniform 8 nm fin. With the constant V_bi − φ_th that reproduces the G.4 table this
         // implementation gives 7.1 and 26.0 mV, hence the ±1.5 mV tolerance (see the report).
-        SliceModelResult t = SliceModel.Evaluate(Input(new FinProfile(5, 11, 40, 0), GatedFaces.TriGate, eot: 1));
-        SliceModelResult u = SliceModel.Evaluate(Input(new FinProfile(8, 8, 40, 0), GatedFaces.TriGate, eot: 1));
+        SliceModelResult t = SliceModel.Evaluate(Input(new FinProfile(5, 11, 40, 0), GateFaces.TriGate, eot: 1));
+        SliceModelResult u = SliceModel.Evaluate(Input(new FinProfile(8, 8, 40, 0), GateFaces.TriGate, eot: 1));
         Assert.Equal(-8, 1000 * (t.ThresholdLowV - u.ThresholdLowV), 1.5);
         Assert.Equal(-27, 1000 * (t.ThresholdHighV - u.ThresholdHighV), 1.5);
     }
@@ -168,7 +168,7 @@ public sealed class SliceModelTests
     public void Evaluate_GateShorterThanBarrierAllows_FlagsPunchThroughWithNaN()
     {
         // B.5 validity: the barrier is gone at L ≪ λ; flagged, never a silent number.
-        SliceModelResult r = SliceModel.Evaluate(Input(new FinProfile(8, 8, 42, 0), GatedFaces.TriGate, l: 1.5));
+        SliceModelResult r = SliceModel.Evaluate(Input(new FinProfile(8, 8, 42, 0), GateFaces.TriGate, l: 1.5));
         Assert.True(r.PunchThrough);
         Assert.True(double.IsNaN(r.ThresholdHighV));
         Assert.True(r.MinLengthRatio < 3);
@@ -179,6 +179,6 @@ public sealed class SliceModelTests
     [InlineData(401)]
     public void Evaluate_SliceCountOutsideRange_Throws(int slices)
     {
-        Assert.Throws<ArgumentOutOfRangeException>(() => SliceModel.Evaluate(Input(new FinProfile(8, 8, 42, 0), GatedFaces.TriGate, slices: slices)));
+        Assert.Throws<ArgumentOutOfRangeException>(() => SliceModel.Evaluate(Input(new FinProfile(8, 8, 42, 0), GateFaces.TriGate, slices: slices)));
     }
 }

@@ -7,7 +7,7 @@ public sealed class ThresholdModelTests
 {
     private static ThresholdModel Model => AnalyticFixtures.G4Model;
 
-    private static FinMeasurement Fin(double wt, double wb, double h = 42, double r = 2, double eot = 0.9, GatedFaces faces = GatedFaces.TriGate) =>
+    private static FinMeasurement Fin(double wt, double wb, double h = 42, double r = 2, double eot = 0.9, GateFaces faces = GateFaces.TriGate) =>
         new(new FinProfile(wt, wb, h, r), eot, 2.0, faces);
 
     [Fact]
@@ -129,7 +129,7 @@ public sealed class ThresholdModelTests
     public void Predict_HardMaskRecordAgainstTriGateNominal_FlagsNonlinear()
     {
         // A.7: a hard-mask record is outside the tri-gate sensitivity basis, so the linear estimate is not applicable.
-        ThresholdPrediction p = Model.Predict(Fin(6, 10, faces: GatedFaces.DoubleGate));
+        ThresholdPrediction p = Model.Predict(Fin(6, 10, faces: GateFaces.DoubleGate));
         Assert.True(p.Warnings.HasFlag(ModelWarnings.Nonlinear));
         Assert.True(p.DeltaThresholdSatMv < 0);
     }

@@ -8,7 +8,7 @@ namespace FinWatch.Physics.Tests.Analytic;
 /// </summary>
 public class WidthTableTests
 {
-    private static SliceModelInput Input(FinProfile p, GatedFaces faces = GatedFaces.TriGate, double eot = 0.9, double doping = 1e17) =>
+    private static SliceModelInput Input(FinProfile p, GateFaces faces = GateFaces.TriGate, double eot = 0.9, double doping = 1e17) =>
         new(p, eot, faces, 20, 0.05, 0.75, doping, 0.155, 1e11, 1, ConfinementSurface.Si110, CornerCoefficients.Default, 200);
 
     [Fact]
@@ -19,7 +19,7 @@ public class WidthTableTests
         for (int i = 0; i < 500; i++)
         {
             double top = 3 + (6 * random.NextDouble()), bottom = top + (5 * random.NextDouble()), h = 30 + (25 * random.NextDouble());
-            var faces = i % 2 == 0 ? GatedFaces.TriGate : GatedFaces.DoubleGate;
+            var faces = i % 2 == 0 ? GateFaces.TriGate : GateFaces.DoubleGate;
             var input = Input(new FinProfile(top, bottom, h, 3 * random.NextDouble()), faces);
             SliceModelResult direct = QuadratureSliceModel.Evaluate(input);
             SliceModelResult tabled = QuadratureSliceModel.Evaluate(input, table);

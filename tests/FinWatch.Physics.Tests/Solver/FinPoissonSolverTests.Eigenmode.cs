@@ -29,7 +29,7 @@ public sealed partial class FinPoissonSolverTests
         // Source: A.7 / B.3 — with a hard mask the top is gated only weakly, through the cap and the metal above it,
         // so λ lies between the tri-gate value (separable exact root, top gated through 1 nm) and λ_W (exact root,
         // t_si = W, top not gated at all).
-        FinSolverRequest request = Request(new FinProfile(8, 8, 40, 0), 0.25, GatedFaces.DoubleGate);
+        FinSolverRequest request = Request(new FinProfile(8, 8, 40, 0), 0.25, GateFaces.DoubleGate);
 
         ScaleLengthResult r = FinPoissonSolver.ComputeScaleLength(request, null, CancellationToken.None);
 

@@ -11,7 +11,7 @@ public sealed partial class FinPoissonSolverTests
 {
     private static readonly DielectricLayer[] OneNmOxide = [new(1, AnalyticReferences.EpsOx)];
 
-    private static FinSolverRequest Request(FinProfile profile, double h, GatedFaces faces = GatedFaces.TriGate) => new()
+    private static FinSolverRequest Request(FinProfile profile, double h, GateFaces faces = GateFaces.TriGate) => new()
     {
         Profile = profile,
         Faces = faces,
@@ -35,7 +35,7 @@ public sealed partial class FinPoissonSolverTests
         // re-derived in AnalyticReferences). The prototype agrees within 3e-4 at h = 0.1 nm (prototype value, not
         // published); this test runs at h = 0.25 nm, where the discretisation error of the inversion layer is larger,
         // so the electron integral is held to 3e-3 and the centre potential to 0.1 mV.
-        FinSolverRequest request = Request(new FinProfile(8, 8, 30, 0), 0.25, GatedFaces.DoubleGate);
+        FinSolverRequest request = Request(new FinProfile(8, 8, 30, 0), 0.25, GateFaces.DoubleGate);
 
         BiasSolution s = FinPoissonSolver.SolveAtGateVoltages(request, [gateV], null, CancellationToken.None)[0];
 
@@ -64,7 +64,7 @@ public sealed partial class FinPoissonSolverTests
         // N_A = 2e19 cm⁻³ keeps the depletion width (≲ 9 nm) inside the 24 nm fin; the 40 nm height keeps the
         // mid-sidewall 20 nm away from the top corners (a 24 nm tall fin is 3.5 mV off there through the weakly gated
         // top); h = 0.5 nm; 1 mV tolerance.
-        FinSolverRequest request = Request(new FinProfile(24, 24, 40, 0), 0.5, GatedFaces.DoubleGate) with
+        FinSolverRequest request = Request(new FinProfile(24, 24, 40, 0), 0.5, GateFaces.DoubleGate) with
         {
             AcceptorDensityCm3 = 2e19,
             HardMaskThicknessNm = 4,

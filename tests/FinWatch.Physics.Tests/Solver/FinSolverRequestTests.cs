@@ -44,7 +44,7 @@ public sealed class FinSolverRequestTests
             "width" => a with { Profile = a.Profile with { TopWidthNm = 8.01 } },
             "layer" => a with { DielectricLayers = [new DielectricLayer(0.5, 3.9), new DielectricLayer(1.6, 20)] },
             "doping" => a with { AcceptorDensityCm3 = 1.01e18 },
-            "faces" => a with { Faces = GatedFaces.DoubleGate },
+            "faces" => a with { Faces = GateFaces.DoubleGate },
             _ => a with { GridSpacingNm = 0.1 },
         };
         Assert.NotEqual(a.ShapeKey, b.ShapeKey);

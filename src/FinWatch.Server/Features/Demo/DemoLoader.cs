@@ -6,7 +6,6 @@ using FinWatch.SeedDemo;
 using FinWatch.Server.Features.Measurements;
 using FinWatch.Server.Features.Model.Calibrations;
 using FinWatch.Server.Features.Monitor;
-using FinWatch.Server.Features.Products;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
 
@@ -137,7 +136,7 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         Code = p.Code,
         Name = p.Name,
         Description = p.Description,
-        GateFaces = ProductRules.ParseFaces(p.GatedFaces) ?? GateFaces.TriGate,
+        GateFaces = p.GateFaces,
         NominalTopWidthNm = p.Nominal.TopWidthNm,
         NominalBottomWidthNm = p.Nominal.BottomWidthNm,
         NominalFinHeightNm = p.Nominal.FinHeightNm,

@@ -10,7 +10,7 @@ public readonly record struct DerivedFin(
 {
     /// <summary>Derives what the measured values allow: taper and maximum radius need both widths and the height;
     /// mid width needs both widths; area and perimeter also need the corner radius.</summary>
-    public static DerivedFin From(double? topWidthNm, double? bottomWidthNm, double? finHeightNm, double? cornerRadiusNm, GatedFaces faces)
+    public static DerivedFin From(double? topWidthNm, double? bottomWidthNm, double? finHeightNm, double? cornerRadiusNm, GateFaces faces)
     {
         if (topWidthNm is not { } wt || bottomWidthNm is not { } wb)
         {

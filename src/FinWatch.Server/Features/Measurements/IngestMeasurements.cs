@@ -1,7 +1,6 @@
 using System.Diagnostics;
 using System.Threading.Channels;
 using FinWatch.Data;
-using FinWatch.Data.Entities;
 using FinWatch.Physics;
 using FinWatch.Server.Features.Model;
 using FinWatch.Server.Infrastructure;
@@ -233,7 +232,7 @@ public sealed class IngestMeasurements(
         var calibrations = predict ? await ProductModels.CurrentCalibrationsAsync(db, cancellationToken) : [];
         return list.ToDictionary(
             p => p.Code,
-            p => new ProductRef(p.Id, p.Code, p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate,
+            p => new ProductRef(p.Id, p.Code, p.GateFaces,
                 predict ? models.TryFor(p, calibrations.GetValueOrDefault(p.Id)) : null),
             StringComparer.Ordinal);
     }

@@ -7,7 +7,7 @@ namespace FinWatch.Server.Features.Measurements;
 
 /// <summary>The product facts that validation and derivation need, looked up by the code used in files.</summary>
 /// <param name="Model">The product's analytic threshold model (docs/model.md §G.2), used for the predicted shifts.</param>
-public sealed record ProductRef(int Id, string Code, GatedFaces Faces, ThresholdModel? Model = null);
+public sealed record ProductRef(int Id, string Code, GateFaces Faces, ThresholdModel? Model = null);
 
 /// <summary>
 /// Turns a <see cref="RawRow"/> into a <see cref="SiteRecord"/>, or reports every problem in it with its column and value.

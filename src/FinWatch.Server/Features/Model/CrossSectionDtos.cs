@@ -20,8 +20,8 @@ public sealed record CrossSectionRequest : IValidatedRequest
     public DielectricLayerRequest[]? Layers { get; init; }
     public double? DopingCm3 { get; init; }
 
-    /// <summary>"tri" (top and sidewalls) or "double" (sidewalls only, hard mask on top).</summary>
-    public string? Gates { get; init; }
+    /// <summary>"tri-gate" (top and both sidewalls gated, the default) or "double-gate" (hard mask on top, sidewalls only).</summary>
+    public string? GateFaces { get; init; }
 
     /// <summary>Mesh spacing, 0.1 to 1 nm (default 0.2 nm, docs/model.md §F.7).</summary>
     public double? GridNm { get; init; }

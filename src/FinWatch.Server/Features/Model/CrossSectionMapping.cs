@@ -45,10 +45,7 @@ public static class CrossSectionMapping
             e["doping_cm3"] = "doping_cm3 is 0 to 1e20 cm⁻³ (acceptors)";
         }
 
-        if (r.Gates is not (null or "tri" or "double"))
-        {
-            e["gates"] = "gates is 'tri' or 'double'";
-        }
+        SpelledField.Check(e, "gate_faces", r.GateFaces, GateFacesText.Spelling, required: false);
 
         if (r.GridNm is { } h && !(h >= 0.1 && h <= 1))
         {
@@ -60,7 +57,7 @@ public static class CrossSectionMapping
     public static FinSolverRequest ToSolver(CrossSectionRequest r) => new()
     {
         Profile = new FinProfile(r.TopWidthNm!.Value, r.BottomWidthNm!.Value, r.HeightNm!.Value, r.CornerRadiusNm ?? 0),
-        Faces = r.Gates == "double" ? GatedFaces.DoubleGate : GatedFaces.TriGate,
+        Faces = SpelledField.ParseOr(r.GateFaces, GateFacesText.Spelling, GateFaces.TriGate),
         DielectricLayers = r.Layers is { Length: > 0 } layers
             ? layers.Select(l => new DielectricLayer(l.ThicknessNm!.Value, l.K!.Value)).ToList()
             : [new DielectricLayer(r.EotNm!.Value, SolverConstants.OxideRelativePermittivity)],

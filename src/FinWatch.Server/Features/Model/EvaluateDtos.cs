@@ -15,11 +15,11 @@ public sealed record EvaluateRequest : IValidatedRequest
     public double? GateLengthNm { get; init; }
     public double? DopingCm3 { get; init; }
 
-    /// <summary>"tri", or "double" for the sidewalls only under a hard mask.</summary>
-    public string? Gates { get; init; }
+    /// <summary>"tri-gate" (top and both sidewalls gated, the default) or "double-gate" (hard mask on top, sidewalls only).</summary>
+    public string? GateFaces { get; init; }
 
-    /// <summary>Sidewall surface: "110" (the usual ⟨110⟩ fin on a (100) wafer) or "100".</summary>
-    public string? Orientation { get; init; }
+    /// <summary>Sidewall surface, as a product's <c>model.sidewall_orientation</c>: "110" (the usual ⟨110⟩ fin on a (100) wafer, the default) or "100" (a fin rotated 45°).</summary>
+    public string? SidewallOrientation { get; init; }
 
     public double? VdsLinV { get; init; }
     public double? VdsSatV { get; init; }

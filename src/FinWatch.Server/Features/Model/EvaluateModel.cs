@@ -43,15 +43,8 @@ public static class EvaluateModel
             e["doping_cm3"] = "doping_cm3 is 0 to 1e20 cm⁻³";
         }
 
-        if (r.Gates is not (null or "tri" or "double"))
-        {
-            e["gates"] = "gates is 'tri' or 'double'";
-        }
-
-        if (r.Orientation is not (null or "110" or "100"))
-        {
-            e["orientation"] = "orientation is '110' or '100' (the sidewall surface)";
-        }
+        SpelledField.Check(e, "gate_faces", r.GateFaces, GateFacesText.Spelling, required: false);
+        SpelledField.Check(e, "sidewall_orientation", r.SidewallOrientation, ConfinementSurfaceText.Spelling, required: false);
 
         Range("vds_lin_v", r.VdsLinV, 0, 5, required: false);
         Range("vds_sat_v", r.VdsSatV, 0, 5, required: false);
@@ -64,7 +57,7 @@ public static class EvaluateModel
 
     public static EvaluateResponse Run(EvaluateRequest r)
     {
-        var faces = r.Gates == "double" ? GatedFaces.DoubleGate : GatedFaces.TriGate;
+        var faces = SpelledField.ParseOr(r.GateFaces, GateFacesText.Spelling, GateFaces.TriGate);
         var profile = new FinProfile(r.TopWidthNm!.Value, r.BottomWidthNm!.Value, r.HeightNm!.Value, r.CornerRadiusNm ?? 0);
         var eot = r.EotNm!.Value;
         var fin = new FinMeasurement(profile, eot, eot, faces);
@@ -77,7 +70,7 @@ public static class EvaluateModel
             DopingPerCm3 = r.DopingCm3 ?? 0,
             DrainVoltageLinV = r.VdsLinV ?? 0.05,
             DrainVoltageSatV = r.VdsSatV ?? 0.75,
-            Surface = r.Orientation == "100" ? ConfinementSurface.Si100 : ConfinementSurface.Si110,
+            Surface = SpelledField.ParseOr(r.SidewallOrientation, ConfinementSurfaceText.Spelling, ConfinementSurface.Si110),
         };
 
         var g = FinCrossSection.Derive(profile, faces);

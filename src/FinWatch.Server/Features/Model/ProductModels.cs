@@ -18,10 +18,9 @@ public sealed class ProductModels
     /// <summary>The product's parameter set: physics defaults, or the given calibration applied to them.</summary>
     public static CalibrationParameters ParametersOf(Product p, ModelParameterSet? calibration = null)
     {
-        var faces = p.GateFaces == GateFaces.DoubleGate ? GatedFaces.DoubleGate : GatedFaces.TriGate;
         var nominal = new FinMeasurement(
             new FinProfile(p.NominalTopWidthNm, p.NominalBottomWidthNm, p.NominalFinHeightNm, p.NominalCornerRadiusNm),
-            p.ModelEotNm, p.ModelEotNm, faces);
+            p.ModelEotNm, p.ModelEotNm, p.GateFaces);
         var defaults = new CalibrationParameters
         {
             Name = $"{p.Code} physics defaults",
@@ -29,7 +28,7 @@ public sealed class ProductModels
             Nominal = nominal,
             GateLengthNm = p.ModelGateLengthNm,
             DopingPerCm3 = p.ModelChannelDopingCm3,
-            Surface = p.ModelSidewallOrientation == "100" ? ConfinementSurface.Si100 : ConfinementSurface.Si110,
+            Surface = ConfinementSurfaceText.Spelling.Parse(p.ModelSidewallOrientation),
         };
         return calibration is null ? defaults : defaults with
         {

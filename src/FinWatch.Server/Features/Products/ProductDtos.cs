@@ -1,3 +1,4 @@
+using FinWatch.Physics.Analytic;
 using FinWatch.Server.Infrastructure;
 
 namespace FinWatch.Server.Features.Products;
@@ -22,9 +23,9 @@ public sealed record ModelInputs(
     double EotNm = 0.9,
     double GateLengthNm = 20,
     double ChannelDopingCm3 = 1e17,
-    string SidewallOrientation = "110");
+    string SidewallOrientation = ConfinementSurfaceText.Si110);
 
-/// <summary>Create a product. <c>gate_faces</c> is "tri-gate" (top and sidewalls gated) or "double-gate" (hard mask on top).</summary>
+/// <summary>Create a product. <c>gate_faces</c> is "tri-gate" (top and both sidewalls gated) or "double-gate" (hard mask on top, sidewalls only).</summary>
 public sealed record ProductRequest(
     string Code,
     string Name,

@@ -1,5 +1,5 @@
-using FinWatch.Data.Entities;
 using FinWatch.Physics;
+using FinWatch.Physics.Analytic;
 using System.Text.RegularExpressions;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Infrastructure;
@@ -9,15 +9,6 @@ namespace FinWatch.Server.Features.Products;
 /// <summary>The rules of a product request: each field's range and the cross-field rules.</summary>
 public static partial class ProductRules
 {
-    public static GateFaces? ParseFaces(string? text) => text switch
-    {
-        "tri-gate" => GateFaces.TriGate,
-        "double-gate" => GateFaces.DoubleGate,
-        _ => null,
-    };
-
-    public static string FacesName(GateFaces faces) => faces == GateFaces.DoubleGate ? "double-gate" : "tri-gate";
-
     /// <summary>Adds the request's problems, keyed by JSON field path; adds nothing when the request is consistent.</summary>
     public static void Check(ProductRequest request, ValidationErrors errors)
     {
@@ -36,10 +27,7 @@ public static partial class ProductRules
             errors["description"] = "description is at most 2000 characters";
         }
 
-        if (ParseFaces(request.GateFaces) is null)
-        {
-            errors["gate_faces"] = $"'{request.GateFaces}' is not one of: tri-gate, double-gate";
-        }
+        SpelledField.Check(errors, "gate_faces", request.GateFaces, GateFacesText.Spelling, required: true);
 
         if (request.Nominal is not { } nominal)
         {
@@ -73,9 +61,9 @@ public static partial class ProductRules
             }
         }
 
-        if (request.Model is { SidewallOrientation: not ("110" or "100") } m)
+        if (request.Model is { } m)
         {
-            errors["model.sidewall_orientation"] = $"'{m.SidewallOrientation}' is not '110' or '100'";
+            SpelledField.Check(errors, "model.sidewall_orientation", m.SidewallOrientation, ConfinementSurfaceText.Spelling, required: true);
         }
 
         var seen = new HashSet<string>(StringComparer.Ordinal);

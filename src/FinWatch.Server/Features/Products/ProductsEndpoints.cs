@@ -2,6 +2,7 @@ using FinWatch.Server.Features.Audit;
 using FinWatch.Server.Features.Access;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
+using FinWatch.Physics;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -84,7 +85,7 @@ public static class ProductsEndpoints
     {
         product.Name = request.Name;
         product.Description = request.Description ?? "";
-        product.GateFaces = ProductRules.ParseFaces(request.GateFaces)!.Value;
+        product.GateFaces = GateFacesText.Parse(request.GateFaces);
         product.NominalTopWidthNm = request.Nominal.TopWidthNm;
         product.NominalBottomWidthNm = request.Nominal.BottomWidthNm;
         product.NominalFinHeightNm = request.Nominal.FinHeightNm;
@@ -104,7 +105,7 @@ public static class ProductsEndpoints
     }
 
     internal static ProductResponse ToResponse(Product p) => new(
-        p.Code, p.Name, p.Description, ProductRules.FacesName(p.GateFaces),
+        p.Code, p.Name, p.Description, GateFacesText.ToText(p.GateFaces),
         new NominalProfile(p.NominalTopWidthNm, p.NominalBottomWidthNm, p.NominalFinHeightNm, p.NominalCornerRadiusNm, p.NominalLinerThicknessNm),
         p.Specs.OrderBy(s => FinParameters.Position(s.Parameter))
             .Select(s => new SpecLimitDto(s.Parameter, s.Lower, s.Target, s.Upper)).ToList(),

@@ -41,7 +41,7 @@ public static class CalibrationFixture
     {
         Name = "test",
         Version = "test",
-        Nominal = new FinMeasurement(new FinProfile(6, 10, 42, 2), 0.9, 0.9, GatedFaces.TriGate),
+        Nominal = new FinMeasurement(new FinProfile(6, 10, 42, 2), 0.9, 0.9, GateFaces.TriGate),
     };
 
     public static string ElectricalCsv(double[] theta, string product = TestProducts.TriGate)

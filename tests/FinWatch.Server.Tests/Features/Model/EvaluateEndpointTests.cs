@@ -20,7 +20,7 @@ public class EvaluateEndpointTests : IntegrationTest
     public async Task Evaluate_VeryLongGate_GivesTheIdealSwingAndNoRollOff()
     {
         // Ideal long-channel swing (kT/q)·ln 10 = 59.5 mV/dec at 300 K (Sze & Ng, Physics of Semiconductor Devices).
-        var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, corner_radius_nm = 0.0, eot_nm = 1.0, gate_length_nm = 1000.0, doping_cm3 = 0.0, gates = "double", orientation = "110" });
+        var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, corner_radius_nm = 0.0, eot_nm = 1.0, gate_length_nm = 1000.0, doping_cm3 = 0.0, gate_faces = "double-gate", sidewall_orientation = "110" });
         Assert.Equal(59.5, r.GetProperty("swing_lin_mv_per_dec").GetDouble(), 0.2);
         Assert.Equal(0, r.GetProperty("sce_shift_lin_mv").GetDouble(), 0.01);
         Assert.Equal(0, r.GetProperty("dibl_mv_per_v").GetDouble(), 0.01);
@@ -32,7 +32,7 @@ public class EvaluateEndpointTests : IntegrationTest
     {
         // Double gate: the exact lowest mode lies above the thin-oxide form √(ε_Si·t_si·t_ox/(2ε_ox)) (Yan, Ourmazd & Lee 1992)
         // and below the Suzuki et al. (1993) form with its (1 + ε_ox·t_si/(4ε_Si·t_ox)) factor (docs/model.md §B.2).
-        var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0, gates = "double" });
+        var r = await EvaluateAsync(new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0, gate_faces = "double-gate" });
         const double w = 8, tox = 1, eSi = 11.7, eOx = 3.9;
         var thin = Math.Sqrt(eSi * w * tox / (2 * eOx));
         var suzuki = Math.Sqrt(eSi * w * tox / (2 * eOx) * (1 + (eOx * w / (4 * eSi * tox))));
@@ -77,12 +77,35 @@ public class EvaluateEndpointTests : IntegrationTest
     [Theory]
     [InlineData("{\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_length_nm\":20}", "top_width_nm")]
     [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1}", "gate_length_nm")]
-    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_length_nm\":20,\"orientation\":\"111\"}", "orientation")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_length_nm\":20,\"sidewall_orientation\":\"111\"}", "sidewall_orientation")]
     public async Task Evaluate_BadRequest_Returns400NamingTheField(string json, string field)
     {
         using var content = new StringContent(json, System.Text.Encoding.UTF8, "application/json");
         var response = await Client.PostAsync("/api/model/evaluate", content);
         Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
         Assert.True((await ReadJsonAsync(response)).GetProperty("errors").TryGetProperty(field, out _));
+    }
+
+    [Fact]
+    public async Task Evaluate_GateFacesNotOneOfTheProductSpellings_Returns400ListingThem()
+    {
+        var response = await Client.PostAsJsonAsync("/api/model/evaluate",
+            new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0, gate_faces = "tri" });
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        var message = (await ReadJsonAsync(response)).GetProperty("errors").GetProperty("gate_faces")[0].GetString();
+        Assert.Contains("'tri'", message, StringComparison.Ordinal);
+        Assert.Contains("tri-gate", message, StringComparison.Ordinal);
+        Assert.Contains("double-gate (hard mask on top", message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Evaluate_GateFacesAbsent_IsTriGate()
+    {
+        var fin = new { top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 40.0, eot_nm = 1.0, gate_length_nm = 20.0 };
+        var absent = await EvaluateAsync(fin);
+        var tri = await EvaluateAsync(new { fin.top_width_nm, fin.bottom_width_nm, fin.height_nm, fin.eot_nm, fin.gate_length_nm, gate_faces = "tri-gate" });
+        var dbl = await EvaluateAsync(new { fin.top_width_nm, fin.bottom_width_nm, fin.height_nm, fin.eot_nm, fin.gate_length_nm, gate_faces = "double-gate" });
+        Assert.Equal(tri.GetProperty("scale_length_nm").GetDouble(), absent.GetProperty("scale_length_nm").GetDouble());
+        Assert.NotEqual(dbl.GetProperty("scale_length_nm").GetDouble(), absent.GetProperty("scale_length_nm").GetDouble());
     }
 }

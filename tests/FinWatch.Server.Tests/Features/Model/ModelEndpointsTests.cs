@@ -29,7 +29,7 @@ public class ModelEndpointsTests : IntegrationTest
     {
         var response = await Client.PostAsJsonAsync("/api/model/cross-section", new
         {
-            top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 20.0, corner_radius_nm = 0.0, eot_nm = 1.0, doping_cm3 = 0.0, gates = "tri", grid_nm = 0.5,
+            top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 20.0, corner_radius_nm = 0.0, eot_nm = 1.0, doping_cm3 = 0.0, gate_faces = "tri-gate", grid_nm = 0.5,
         });
         Assert.Equal(HttpStatusCode.Accepted, response.StatusCode);
         var started = await ReadJsonAsync(response);
@@ -52,7 +52,7 @@ public class ModelEndpointsTests : IntegrationTest
         // The same shape again comes from the cache.
         var again = await ReadJsonAsync(await Client.PostAsJsonAsync("/api/model/cross-section", new
         {
-            top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 20.0, corner_radius_nm = 0.0, eot_nm = 1.0, doping_cm3 = 0.0, gates = "tri", grid_nm = 0.5,
+            top_width_nm = 8.0, bottom_width_nm = 8.0, height_nm = 20.0, corner_radius_nm = 0.0, eot_nm = 1.0, doping_cm3 = 0.0, gate_faces = "tri-gate", grid_nm = 0.5,
         }));
         Assert.True(again.GetProperty("from_cache").GetBoolean());
         Assert.Equal("done", again.GetProperty("status").GetString());
@@ -74,7 +74,8 @@ public class ModelEndpointsTests : IntegrationTest
 
     [Theory]
     [InlineData("{\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1}", "top_width_nm")]
-    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gates\":\"quad\"}", "gates")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_faces\":\"quad-gate\"}", "gate_faces")]
+    [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"gate_faces\":\"double\"}", "gate_faces")]
     [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40}", "eot_nm")]
     [InlineData("{\"top_width_nm\":8,\"bottom_width_nm\":8,\"height_nm\":40,\"eot_nm\":1,\"grid_nm\":0.01}", "grid_nm")]
     public async Task CrossSection_BadRequest_Returns400NamingTheField(string json, string field)

@@ -15,6 +15,11 @@ export function midWidth(wt, wb) {
   return wt == null || wb == null ? null : (wt + wb) / 2;
 }
 
+/** A product's gate_faces as the floor says it: the API's "tri-gate", or "double-gate" with its hard mask named. */
+export function gateFacesLabel(gateFaces) {
+  return gateFaces === 'double-gate' ? 'double-gate (hard mask on top)' : gateFaces;
+}
+
 /** The largest corner radius the top allows: (Wt/2)·tan(45° + θ/2). */
 export function maxCornerRadius(wt, wb, h) {
   const t = taperDeg(wt, wb, h);

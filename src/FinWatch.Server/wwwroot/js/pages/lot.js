@@ -5,7 +5,7 @@ import { el, fill, $, param } from '../core/dom.js';
 import { getJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
 import { withUnit, when, unitLabel } from '../core/format.js';
-import { drawCrossSection } from '../core/fin.js';
+import { drawCrossSection, gateFacesLabel } from '../core/fin.js';
 
 frame('lot.html');
 
@@ -134,7 +134,7 @@ async function showLot(id) {
   waferSelect.addEventListener('change', () => { showWafer(); });
 
   const chambers = [...new Set(lot.steps.flatMap((s) => s.wafers.flatMap((w) => w.sites.flatMap((x) => [x.etch_chamber, x.liner_chamber]))).filter(Boolean))].sort();
-  fill($('#lot-meta'), `product ${lot.product}${product ? ` (${product.name}, ${product.gate_faces})` : ''} · ${lot.steps.length} step${lot.steps.length > 1 ? 's' : ''}${chambers.length ? ` · chambers ${chambers.join(', ')}` : ''}`);
+  fill($('#lot-meta'), `product ${lot.product}${product ? ` (${product.name}, ${gateFacesLabel(product.gate_faces)})` : ''} · ${lot.steps.length} step${lot.steps.length > 1 ? 's' : ''}${chambers.length ? ` · chambers ${chambers.join(', ')}` : ''}`);
 
   let maps = [];
 

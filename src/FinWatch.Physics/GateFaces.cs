@@ -1,9 +1,10 @@
 namespace FinWatch.Physics;
 
 /// <summary>
-/// Which faces of the fin cross-section the gate covers (docs/model.md §A.4 and A.7).
+/// Which faces of the fin cross-section the gate covers (docs/model.md §A.4 and A.7). Written as text only through
+/// <see cref="GateFacesText"/> ("tri-gate", "double-gate").
 /// </summary>
-public enum GatedFaces
+public enum GateFaces
 {
     /// <summary>
     /// Tri-gate: the flat top, both rounded top corners and both straight sidewalls are gated (A.4).
