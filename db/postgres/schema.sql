@@ -445,3 +445,54 @@ VALUES ('20261205051844_GateFacesText', '10.0.15');
 
 COMMIT;
 
+START TRANSACTION;
+DROP INDEX "IX_alerts_context_id_rule_state";
+
+ALTER TABLE limit_versions ADD check_json text;
+
+ALTER TABLE limit_versions ADD justification character varying(4000);
+
+ALTER TABLE limit_versions ADD verdict character varying(16);
+
+ALTER TABLE alerts ADD back_in_control_at_ms bigint;
+
+ALTER TABLE alerts ADD first_seq bigint NOT NULL DEFAULT 0;
+
+ALTER TABLE alerts ADD first_signal_at_ms bigint NOT NULL DEFAULT 0;
+
+ALTER TABLE alerts ADD last_seq bigint NOT NULL DEFAULT 0;
+
+ALTER TABLE alerts ADD last_signal_at_ms bigint NOT NULL DEFAULT 0;
+
+ALTER TABLE alerts ADD last_signal_seq bigint NOT NULL DEFAULT 0;
+
+ALTER TABLE alerts ADD lot_count integer NOT NULL DEFAULT 0;
+
+ALTER TABLE alerts ADD rules character varying(64) NOT NULL DEFAULT '';
+
+ALTER TABLE alerts ADD signal_count integer NOT NULL DEFAULT 0;
+
+ALTER TABLE alerts ADD wafer_count integer NOT NULL DEFAULT 0;
+
+CREATE INDEX "IX_alerts_context_id_state" ON alerts (context_id, state);
+
+UPDATE alerts SET
+    rules = rule,
+    signal_count = point_count,
+    first_seq = (SELECT p.seq FROM chart_points p WHERE p.id = alerts.first_point_id),
+    last_seq = (SELECT p.seq FROM chart_points p WHERE p.id = alerts.last_point_id),
+    last_signal_seq = (SELECT p.seq FROM chart_points p WHERE p.id = alerts.last_point_id),
+    first_signal_at_ms = (SELECT p.measured_at_ms FROM chart_points p WHERE p.id = alerts.first_point_id),
+    last_signal_at_ms = (SELECT p.measured_at_ms FROM chart_points p WHERE p.id = alerts.last_point_id);
+
+UPDATE alerts SET
+    point_count = (SELECT COUNT(*) FROM chart_points p WHERE p.context_id = alerts.context_id AND p.seq BETWEEN alerts.first_seq AND alerts.last_seq),
+    lot_count = (SELECT COUNT(DISTINCT p.lot_id) FROM chart_points p WHERE p.context_id = alerts.context_id AND p.seq BETWEEN alerts.first_seq AND alerts.last_seq),
+    wafer_count = (SELECT COUNT(DISTINCT p.lot_id || '/' || CAST(p.wafer_slot AS VARCHAR(12))) FROM chart_points p
+                   WHERE p.context_id = alerts.context_id AND p.seq BETWEEN alerts.first_seq AND alerts.last_seq AND p.wafer_slot IS NOT NULL);
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261205083328_ExcursionAlertsAndBaselineCheck', '10.0.15');
+
+COMMIT;
+

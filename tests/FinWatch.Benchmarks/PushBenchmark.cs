@@ -109,7 +109,8 @@ public static class PushBenchmark
         var work = Directory.CreateTempSubdirectory("finwatch-push-").FullName;
         try
         {
-            await using var server = await BenchServer.StartAsync(work, "finwatch.db");
+            // One administrator computes and approves every chart's limits here, so the second-approver rule is off.
+            await using var server = await BenchServer.StartAsync(work, "finwatch.db", "--FinWatch:Monitor:ApproverMustDiffer", "false");
             await server.CreateDemoProductsAsync();
             await PostCsvAsync(server.Http, Csv(baseline));
             foreach (var c in contexts)
@@ -380,7 +381,7 @@ public static class PushBenchmark
         await EnsureAsync(computed, "compute limits of " + c.Code);
         var limit = await computed.Content.ReadFromJsonAsync<JsonElement>();
         var approved = await http.PostAsJsonAsync($"/api/contexts/{c.Code}/limits/{limit.GetProperty("version").GetInt32()}/approve",
-            new { comment = "benchmark", effective_from = limit.GetProperty("to").GetDateTimeOffset() });
+            new { comment = "benchmark", effective_from = limit.GetProperty("to").GetDateTimeOffset(), justification = "benchmark load, not a process decision" });
         await EnsureAsync(approved, "approve limits of " + c.Code);
     }
 

@@ -51,12 +51,24 @@ public static class MonitorFixture
         await ApproveBaselineAsync(client, code);
     }
 
+    /// <summary>
+    /// Computes the draft (as the client's identity) and has a second engineer approve it. The 20-wafer baseline is
+    /// below the usual 25 subgroups, so its verdict is "not stable" and the approval carries a justification.
+    /// </summary>
     public static async Task ApproveBaselineAsync(HttpClient client, string code)
     {
         var computed = await client.PostAsJsonAsync($"/api/contexts/{code}/limits", new { reason = "baseline lot" });
         computed.EnsureSuccessStatusCode();
         var version = (await computed.Content.ReadFromJsonAsync<JsonElement>()).GetProperty("version").GetInt32();
-        var approved = await client.PostAsJsonAsync($"/api/contexts/{code}/limits/{version}/approve", new { comment = "reviewed", effective_from = EffectiveFrom });
+        using var approve = new HttpRequestMessage(HttpMethod.Post, $"/api/contexts/{code}/limits/{version}/approve")
+        {
+            Content = JsonContent.Create(new { comment = "reviewed", effective_from = EffectiveFrom, justification = "test baseline of 20 identical wafers" }),
+        };
+        approve.Headers.Add(TestAuthHandler.Header, SecondApprover);
+        var approved = await client.SendAsync(approve);
         approved.EnsureSuccessStatusCode();
     }
+
+    /// <summary>The identity that approves limits in the tests: not the default administrator who computes them.</summary>
+    public const string SecondApprover = "engineer";
 }

@@ -9,9 +9,10 @@ internal sealed class AlertConfiguration : IEntityTypeConfiguration<Alert>
     public void Configure(EntityTypeBuilder<Alert> builder)
     {
         builder.ToTable("alerts");
-        builder.HasIndex(a => new { a.ContextId, a.Rule, a.State });
+        builder.HasIndex(a => new { a.ContextId, a.State });
         builder.HasIndex(a => a.State);
         builder.Property(a => a.Rule).HasMaxLength(8);
+        builder.Property(a => a.Rules).HasMaxLength(64);
         builder.Property(a => a.State).HasMaxLength(16);
         builder.Property(a => a.LotId).HasMaxLength(64);
         builder.Property(a => a.Chamber).HasMaxLength(64);

@@ -15,6 +15,8 @@ internal sealed class LimitVersionConfiguration : IEntityTypeConfiguration<Limit
         builder.Property(l => l.ApprovedBy).HasMaxLength(200);
         builder.Property(l => l.Reason).HasMaxLength(2000);
         builder.Property(l => l.ApprovalComment).HasMaxLength(2000);
+        builder.Property(l => l.Verdict).HasMaxLength(16);
+        builder.Property(l => l.Justification).HasMaxLength(4000);
         builder.HasOne<ChartContext>().WithMany().HasForeignKey(l => l.ContextId).OnDelete(DeleteBehavior.Restrict);
     }
 }

@@ -30,6 +30,18 @@ public sealed class LimitVersion
     /// <summary>JSON array of {"seq", "reason"} for points left out of the estimate.</summary>
     public string ExcludedJson { get; set; } = "[]";
 
+    /// <summary>
+    /// The baseline check's verdict when the draft was computed: "stable" or "not stable"; null for versions computed
+    /// before the check existed.
+    /// </summary>
+    public string? Verdict { get; set; }
+
+    /// <summary>The baseline check as JSON (rule signals, trend and normality tests, reasons); null with <see cref="Verdict"/>.</summary>
+    public string? CheckJson { get; set; }
+
+    /// <summary>The approver's written justification for approving limits whose baseline is not stable.</summary>
+    public string? Justification { get; set; }
+
     public required string ComputedBy { get; set; }
     public long ComputedAtMs { get; set; }
     public string Reason { get; set; } = "";

@@ -5,7 +5,8 @@ namespace FinWatch.Server.Infrastructure;
 
 /// <summary>
 /// The problem answers the endpoints share: a request that fails validation (400, <c>errors</c> keyed by the JSON field
-/// path in snake_case) and a thing that does not exist (404 with a <c>detail</c> that names it).
+/// path in snake_case), a thing that does not exist (404 with a <c>detail</c> that names it) and a step the procedure
+/// does not allow (403).
 /// </summary>
 public static class Problems
 {
@@ -26,6 +27,15 @@ public static class Problems
         Type = "/problems/not-found",
         Title = title,
         Status = StatusCodes.Status404NotFound,
+        Detail = detail,
+    });
+
+    /// <summary>403 problem+json for a rule of the fab's procedure, not of the role: <paramref name="detail"/> says which and what to do.</summary>
+    public static ProblemHttpResult Forbidden(string title, string detail) => TypedResults.Problem(new ProblemDetails
+    {
+        Type = "/problems/not-allowed",
+        Title = title,
+        Status = StatusCodes.Status403Forbidden,
         Detail = detail,
     });
 }

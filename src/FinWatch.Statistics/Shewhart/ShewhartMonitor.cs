@@ -26,6 +26,11 @@ public sealed class ShewhartMonitor
     /// <param name="multiplier">Sigma multiplier of the limits.</param>
     public ShewhartMonitor(ShewhartChartType type, double center, double sigma, IEnumerable<RunRule> rules,
         ConstantsMode mode = ConstantsMode.Exact, double multiplier = ShewhartCharts.DefaultMultiplier)
+        : this(type, center, sigma, new RunRuleEvaluator(rules), mode, multiplier)
+    {
+    }
+
+    private ShewhartMonitor(ShewhartChartType type, double center, double sigma, RunRuleEvaluator rules, ConstantsMode mode, double multiplier)
     {
         if (!double.IsFinite(center) || !(sigma >= 0) || !double.IsFinite(sigma))
         {
@@ -37,7 +42,7 @@ public sealed class ShewhartMonitor
         this.multiplier = multiplier;
         Center = center;
         Sigma = sigma;
-        this.rules = new RunRuleEvaluator(rules);
+        this.rules = rules;
     }
 
     public double Center { get; }
@@ -81,7 +86,6 @@ public sealed class ShewhartMonitor
             throw new InvalidOperationException("This monitor charts individual values; append a value.");
         }
 
-        var i = index++;
         var m = new RunningMoments();
         double min = double.PositiveInfinity, max = double.NegativeInfinity;
         foreach (var v in subgroup)
@@ -94,7 +98,29 @@ public sealed class ShewhartMonitor
             }
         }
 
-        var n = (int)m.Count;
+        var useRange = type == ShewhartChartType.MeanRange;
+        return AppendSummary(m.Mean, (int)m.Count, useRange ? max - min : m.SampleStandardDeviation, signals);
+    }
+
+    /// <summary>
+    /// Appends a subgroup known only by its summary: its mean, its number of values and its spread (the range on an
+    /// Xbar-R chart, the sample standard deviation on an Xbar-S chart; NaN when unknown or n = 1). Gives exactly what
+    /// appending the values themselves gives. n = 0 is a missing position. On an I-MR chart n must be 1.
+    /// </summary>
+    public MonitorPoint AppendSummary(double mean, int n, double spread, ICollection<RuleSignal>? signals)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(n);
+        if (type == ShewhartChartType.IndividualsMovingRange)
+        {
+            if (n > 1)
+            {
+                throw new InvalidOperationException("This monitor charts individual values; a summary of more than one value is a subgroup.");
+            }
+
+            return Append(n == 0 ? double.NaN : mean, signals);
+        }
+
+        var i = index++;
         if (n == 0)
         {
             return Place(i, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, signals);
@@ -102,15 +128,31 @@ public sealed class ShewhartMonitor
 
         if (n == 1)
         {
-            return Place(i, m.Mean, Center + (multiplier * Sigma), Center - (multiplier * Sigma), double.NaN, double.NaN, double.NaN, signals);
+            return Place(i, mean, Center + (multiplier * Sigma), Center - (multiplier * Sigma), double.NaN, double.NaN, double.NaN, signals);
+        }
+
+        if (n > ControlChartConstants.MaxSubgroupSize)
+        {
+            // Beyond the constants' range the mean's limits are still exact for a known sigma (L·σ/√n); the spread
+            // chart has no limits there.
+            var wide = multiplier * Sigma / Math.Sqrt(n);
+            return Place(i, mean, Center + wide, Center - wide, spread, double.NaN, double.NaN, signals);
         }
 
         var c = ControlChartConstants.Get(n, mode);
         var useRange = type == ShewhartChartType.MeanRange;
         var half = ShewhartCharts.MeanHalfWidth(c, useRange, mode, multiplier, Sigma);
         var (_, su, sl) = SpreadLimits(c, useRange);
-        return Place(i, m.Mean, Center + half, Center - half, useRange ? max - min : m.SampleStandardDeviation, su, sl, signals);
+        return Place(i, mean, Center + half, Center - half, spread, su, sl, signals);
     }
+
+    /// <summary>
+    /// The same chart under revised frozen limits: a monitor with the new centre and sigma that continues this one's
+    /// positions and run-rule state, so a pattern that began under the old limits completes under the new ones (the
+    /// zone scores already placed are kept as they were judged). This monitor must not be appended to afterwards.
+    /// </summary>
+    public ShewhartMonitor Continue(double center, double sigma) =>
+        new(type, center, sigma, rules, mode, multiplier) { previous = previous, index = index };
 
     private (double Center, double Upper, double Lower) SpreadLimits(ChartConstants c, bool useRange) =>
         useRange ? ShewhartCharts.RangeLimits(c, mode, multiplier, Sigma) : ShewhartCharts.DeviationLimits(c, mode, multiplier, Sigma);

@@ -79,4 +79,82 @@ public class ShewhartMonitorTests
         Assert.True(double.IsNaN(monitor.Append(0.2, null).Secondary));
         Assert.Equal(0.3, monitor.Append(0.5, null).Secondary, 12);
     }
+
+    // Consistency property: a subgroup given by its summary (mean, n, standard deviation) is placed exactly as the
+    // subgroup's values are, including its rule signals.
+    [Property(MaxTest = 40)]
+    public bool AppendSummary_EqualsAppendingTheValues(int seed)
+    {
+        var random = new Random(seed);
+        var all = RunRules.WesternElectric.Concat(RunRules.Nelson).ToArray();
+        var byValues = new ShewhartMonitor(ShewhartChartType.MeanStandardDeviation, 0, 1, all);
+        var bySummary = new ShewhartMonitor(ShewhartChartType.MeanStandardDeviation, 0, 1, all);
+        List<RuleSignal> a = [], b = [];
+        for (var i = 0; i < 200; i++)
+        {
+            var n = random.Next(0, 6);
+            var values = Enumerable.Range(0, n).Select(_ => (i * 0.004) + (2 * random.NextDouble()) - 1).ToArray();
+            var mean = n == 0 ? double.NaN : values.Average();
+            var sd = n < 2 ? double.NaN : Math.Sqrt(values.Sum(v => (v - mean) * (v - mean)) / (n - 1));
+            var p = byValues.Append(values, a);
+            var q = bySummary.AppendSummary(mean, n, sd, b);
+            if (!Same(p.Value, q.Value) || !Same(p.Upper, q.Upper) || !Same(p.Z, q.Z) || p.Beyond != q.Beyond || !Same(p.Secondary, q.Secondary))
+            {
+                return false;
+            }
+        }
+
+        return a.Select(s => (s.Rule, s.Index)).SequenceEqual(b.Select(s => (s.Rule, s.Index)));
+
+        static bool Same(double x, double y) => (double.IsNaN(x) && double.IsNaN(y)) || Math.Abs(x - y) <= 1e-12 * Math.Max(1, Math.Abs(x));
+    }
+
+    // Consistency property: revising the limits part-way keeps the run-rule state, so the signals are those of the rule
+    // engine run over the zone scores each point got under the limits in force at its position.
+    [Property(MaxTest = 40)]
+    public bool Continue_KeepsTheRuleStateAcrossRevisedLimits(int seed)
+    {
+        var values = Series(seed, 240);
+        var all = RunRules.WesternElectric.Concat(RunRules.Nelson).ToArray();
+        var monitor = new ShewhartMonitor(ShewhartChartType.IndividualsMovingRange, 0.5, 0.6, all);
+        var signals = new List<RuleSignal>();
+        var z = new double[values.Length];
+        for (var i = 0; i < values.Length; i++)
+        {
+            if (i == 120)
+            {
+                monitor = monitor.Continue(1.4, 0.8);
+            }
+
+            z[i] = monitor.Append(values[i], signals).Z;
+            var expected = double.IsNaN(values[i]) ? double.NaN : (values[i] - (i < 120 ? 0.5 : 1.4)) / (i < 120 ? 0.6 : 0.8);
+            if (!(double.IsNaN(expected) ? double.IsNaN(z[i]) : Math.Abs(expected - z[i]) < 1e-12))
+            {
+                return false;
+            }
+        }
+
+        var reference = RunRuleEvaluation.Evaluate(values, z, all);
+        return signals.Select(s => (s.Rule, s.Index)).SequenceEqual(reference.Signals.Select(s => (s.Rule, s.Index)));
+    }
+
+    [Fact]
+    public void AppendSummary_OnAnIndividualsChart_TakesOneValue()
+    {
+        var monitor = new ShewhartMonitor(ShewhartChartType.IndividualsMovingRange, 0, 1, RunRules.WesternElectric);
+        Assert.Equal(3.5, monitor.AppendSummary(3.5, 1, double.NaN, null).Z, 12);
+        Assert.Throws<InvalidOperationException>(() => monitor.AppendSummary(1, 4, 0.3, null));
+    }
+
+    // Analytic: with a known sigma the mean of n values has standard deviation σ/√n (Montgomery, Introduction to
+    // Statistical Quality Control, §6.2), also beyond the tabulated subgroup sizes, where the spread chart has no limits.
+    [Fact]
+    public void AppendSummary_BeyondTheTabulatedSizes_UsesSigmaOverRootN()
+    {
+        var monitor = new ShewhartMonitor(ShewhartChartType.MeanStandardDeviation, 10, 2, [RunRule.WE1]);
+        var p = monitor.AppendSummary(10.9, 36, 1.8, null);
+        Assert.Equal(0.9 / (2 / 6.0), p.Z, 12);
+        Assert.Equal(10 + (3 * 2 / 6.0), p.Upper, 12);
+        Assert.True(double.IsNaN(p.SecondaryUpper));
+    }
 }

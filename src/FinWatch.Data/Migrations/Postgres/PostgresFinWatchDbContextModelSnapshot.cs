@@ -40,6 +40,10 @@ namespace FinWatch.Data.Migrations.Postgres
                         .HasColumnType("character varying(200)")
                         .HasColumnName("acknowledged_by");
 
+                    b.Property<long?>("BackInControlAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("back_in_control_at_ms");
+
                     b.Property<string>("Chamber")
                         .HasMaxLength(64)
                         .HasColumnType("character varying(64)")
@@ -66,9 +70,33 @@ namespace FinWatch.Data.Migrations.Postgres
                         .HasColumnType("bigint")
                         .HasColumnName("first_point_id");
 
+                    b.Property<long>("FirstSeq")
+                        .HasColumnType("bigint")
+                        .HasColumnName("first_seq");
+
+                    b.Property<long>("FirstSignalAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("first_signal_at_ms");
+
                     b.Property<long>("LastPointId")
                         .HasColumnType("bigint")
                         .HasColumnName("last_point_id");
+
+                    b.Property<long>("LastSeq")
+                        .HasColumnType("bigint")
+                        .HasColumnName("last_seq");
+
+                    b.Property<long>("LastSignalAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("last_signal_at_ms");
+
+                    b.Property<long>("LastSignalSeq")
+                        .HasColumnType("bigint")
+                        .HasColumnName("last_signal_seq");
+
+                    b.Property<int>("LotCount")
+                        .HasColumnType("integer")
+                        .HasColumnName("lot_count");
 
                     b.Property<string>("LotId")
                         .IsRequired()
@@ -94,6 +122,12 @@ namespace FinWatch.Data.Migrations.Postgres
                         .HasColumnType("character varying(8)")
                         .HasColumnName("rule");
 
+                    b.Property<string>("Rules")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("rules");
+
                     b.Property<string>("Severity")
                         .IsRequired()
                         .HasMaxLength(16)
@@ -103,6 +137,10 @@ namespace FinWatch.Data.Migrations.Postgres
                     b.Property<int>("SeverityRank")
                         .HasColumnType("integer")
                         .HasColumnName("severity_rank");
+
+                    b.Property<int>("SignalCount")
+                        .HasColumnType("integer")
+                        .HasColumnName("signal_count");
 
                     b.Property<string>("State")
                         .IsRequired()
@@ -114,6 +152,10 @@ namespace FinWatch.Data.Migrations.Postgres
                         .HasColumnType("bigint")
                         .HasColumnName("updated_at_ms");
 
+                    b.Property<int>("WaferCount")
+                        .HasColumnType("integer")
+                        .HasColumnName("wafer_count");
+
                     b.Property<int?>("WaferSlot")
                         .HasColumnType("integer")
                         .HasColumnName("wafer_slot");
@@ -122,7 +164,7 @@ namespace FinWatch.Data.Migrations.Postgres
 
                     b.HasIndex("State");
 
-                    b.HasIndex("ContextId", "Rule", "State");
+                    b.HasIndex("ContextId", "State");
 
                     b.ToTable("alerts", (string)null);
                 });
@@ -745,6 +787,10 @@ namespace FinWatch.Data.Migrations.Postgres
                         .HasColumnType("double precision")
                         .HasColumnName("centre");
 
+                    b.Property<string>("CheckJson")
+                        .HasColumnType("text")
+                        .HasColumnName("check_json");
+
                     b.Property<long>("ComputedAtMs")
                         .HasColumnType("bigint")
                         .HasColumnName("computed_at_ms");
@@ -771,6 +817,11 @@ namespace FinWatch.Data.Migrations.Postgres
                     b.Property<long>("FromMs")
                         .HasColumnType("bigint")
                         .HasColumnName("from_ms");
+
+                    b.Property<string>("Justification")
+                        .HasMaxLength(4000)
+                        .HasColumnType("character varying(4000)")
+                        .HasColumnName("justification");
 
                     b.Property<int>("PointsUsed")
                         .HasColumnType("integer")
@@ -799,6 +850,11 @@ namespace FinWatch.Data.Migrations.Postgres
                     b.Property<long>("ToMs")
                         .HasColumnType("bigint")
                         .HasColumnName("to_ms");
+
+                    b.Property<string>("Verdict")
+                        .HasMaxLength(16)
+                        .HasColumnType("character varying(16)")
+                        .HasColumnName("verdict");
 
                     b.Property<int>("Version")
                         .HasColumnType("integer")

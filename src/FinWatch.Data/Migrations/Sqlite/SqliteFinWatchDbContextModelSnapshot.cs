@@ -33,6 +33,10 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("TEXT")
                         .HasColumnName("acknowledged_by");
 
+                    b.Property<long?>("BackInControlAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("back_in_control_at_ms");
+
                     b.Property<string>("Chamber")
                         .HasMaxLength(64)
                         .HasColumnType("TEXT")
@@ -59,9 +63,33 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("INTEGER")
                         .HasColumnName("first_point_id");
 
+                    b.Property<long>("FirstSeq")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("first_seq");
+
+                    b.Property<long>("FirstSignalAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("first_signal_at_ms");
+
                     b.Property<long>("LastPointId")
                         .HasColumnType("INTEGER")
                         .HasColumnName("last_point_id");
+
+                    b.Property<long>("LastSeq")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("last_seq");
+
+                    b.Property<long>("LastSignalAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("last_signal_at_ms");
+
+                    b.Property<long>("LastSignalSeq")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("last_signal_seq");
+
+                    b.Property<int>("LotCount")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("lot_count");
 
                     b.Property<string>("LotId")
                         .IsRequired()
@@ -87,6 +115,12 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("TEXT")
                         .HasColumnName("rule");
 
+                    b.Property<string>("Rules")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("rules");
+
                     b.Property<string>("Severity")
                         .IsRequired()
                         .HasMaxLength(16)
@@ -96,6 +130,10 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.Property<int>("SeverityRank")
                         .HasColumnType("INTEGER")
                         .HasColumnName("severity_rank");
+
+                    b.Property<int>("SignalCount")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("signal_count");
 
                     b.Property<string>("State")
                         .IsRequired()
@@ -107,6 +145,10 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("INTEGER")
                         .HasColumnName("updated_at_ms");
 
+                    b.Property<int>("WaferCount")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("wafer_count");
+
                     b.Property<int?>("WaferSlot")
                         .HasColumnType("INTEGER")
                         .HasColumnName("wafer_slot");
@@ -115,7 +157,7 @@ namespace FinWatch.Data.Migrations.Sqlite
 
                     b.HasIndex("State");
 
-                    b.HasIndex("ContextId", "Rule", "State");
+                    b.HasIndex("ContextId", "State");
 
                     b.ToTable("alerts", (string)null);
                 });
@@ -720,6 +762,10 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("REAL")
                         .HasColumnName("centre");
 
+                    b.Property<string>("CheckJson")
+                        .HasColumnType("TEXT")
+                        .HasColumnName("check_json");
+
                     b.Property<long>("ComputedAtMs")
                         .HasColumnType("INTEGER")
                         .HasColumnName("computed_at_ms");
@@ -746,6 +792,11 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.Property<long>("FromMs")
                         .HasColumnType("INTEGER")
                         .HasColumnName("from_ms");
+
+                    b.Property<string>("Justification")
+                        .HasMaxLength(4000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("justification");
 
                     b.Property<int>("PointsUsed")
                         .HasColumnType("INTEGER")
@@ -774,6 +825,11 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.Property<long>("ToMs")
                         .HasColumnType("INTEGER")
                         .HasColumnName("to_ms");
+
+                    b.Property<string>("Verdict")
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("verdict");
 
                     b.Property<int>("Version")
                         .HasColumnType("INTEGER")

@@ -1,4 +1,5 @@
 using FinWatch.Server.Features.Demo;
+using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Infrastructure;
 
 namespace FinWatch.Server.Features;
@@ -11,6 +12,13 @@ public sealed class DemoFeature : IFeature
         if (args.Contains("--demo", StringComparer.Ordinal))
         {
             builder.Configuration[DemoOptions.Section + ":Enabled"] = "true";
+        }
+
+        // One person plays every role in the demo, so the four-eyes rule for limits is off unless set explicitly.
+        var approver = $"{MonitorOptions.Section}:{nameof(MonitorOptions.ApproverMustDiffer)}";
+        if (builder.Configuration.GetValue<bool>(DemoOptions.Section + ":Enabled") && builder.Configuration[approver] is null)
+        {
+            builder.Configuration[approver] = "false";
         }
 
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);

@@ -69,9 +69,7 @@ public static class AlertEndpoints
         }
 
         var alerts = await q.OrderByDescending(a => a.SeverityRank).ThenByDescending(a => a.RaisedAtMs).Take(1000).ToListAsync(cancellationToken);
-        var pointIds = alerts.SelectMany(a => new[] { a.FirstPointId, a.LastPointId }).Distinct().ToList();
-        var seqs = await db.ChartPoints.AsNoTracking().Where(p => pointIds.Contains(p.Id)).ToDictionaryAsync(p => p.Id, p => p.Seq, cancellationToken);
-        return TypedResults.Ok(alerts.Select(a => AlertViews.ToMessage(a, contexts[a.ContextId], seqs[a.FirstPointId], seqs[a.LastPointId])).ToList());
+        return TypedResults.Ok(alerts.Select(a => AlertViews.ToMessage(a, contexts[a.ContextId])).ToList());
     }
 
     private static async Task<Results<Ok<AlertDetailResponse>, ProblemHttpResult>> GetAsync(long id, FinWatchDbContext db, CancellationToken cancellationToken)
@@ -89,16 +87,25 @@ public static class AlertEndpoints
     {
         var context = await db.ChartContexts.AsNoTracking().SingleAsync(c => c.Id == alert.ContextId, cancellationToken);
         var events = await db.AlertEvents.AsNoTracking().Where(e => e.AlertId == alert.Id).OrderBy(e => e.Id).ToListAsync(cancellationToken);
-        var pointIds = events.Where(e => e.PointId is not null).Select(e => e.PointId!.Value).Distinct().ToList();
-        var points = await db.ChartPoints.AsNoTracking().Where(p => pointIds.Contains(p.Id)).OrderBy(p => p.Seq).ToListAsync(cancellationToken);
+
+        // The excursion's points: every point of the chart from its first signal to the last point it collected.
+        var points = await db.ChartPoints.AsNoTracking()
+            .Where(p => p.ContextId == alert.ContextId && p.Seq >= alert.FirstSeq && p.Seq <= alert.LastSeq)
+            .OrderBy(p => p.Seq).ToListAsync(cancellationToken);
         var limits = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == context.Id).ToDictionaryAsync(l => l.Id, cancellationToken);
         var seqById = points.ToDictionary(p => p.Id, p => p.Seq);
+        var lots = points.GroupBy(p => p.LotId).Select(g => new AlertLot(g.Key,
+                [.. g.Where(p => p.WaferSlot is not null).Select(p => p.WaferSlot!.Value).Distinct().Order()],
+                g.Count(p => p.Signals.Length > 0), DateTimeOffset.FromUnixTimeMilliseconds(g.Min(p => p.MeasuredAtMs))))
+            .OrderBy(l => l.FirstMeasuredAt).ToList();
         return new AlertDetailResponse(
-            AlertViews.ToMessage(alert, context, seqById[alert.FirstPointId], seqById[alert.LastPointId]),
+            AlertViews.ToMessage(alert, context),
             context.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries),
             [.. events.Select(e => new AlertEventResponse(e.Kind, DateTimeOffset.FromUnixTimeMilliseconds(e.AtMs), e.By, e.Comment,
-                e.StepsJson is null ? null : JsonSerializer.Deserialize<List<StepTaken>>(e.StepsJson, FeedLog.Json), e.PointId is { } p ? seqById[p] : null))],
+                e.StepsJson is null ? null : JsonSerializer.Deserialize<List<StepTaken>>(e.StepsJson, FeedLog.Json),
+                e.PointId is { } p && seqById.TryGetValue(p, out var seq) ? seq : null))],
             [.. points.Select(p => ContextRules.ToMessage(context, p, p.LimitVersionId is { } l ? limits[l] : null))],
+            lots,
             EvaluateModel.PredictionCaution);
     }
 

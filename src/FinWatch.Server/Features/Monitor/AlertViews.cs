@@ -5,13 +5,21 @@ namespace FinWatch.Server.Features.Monitor;
 
 public static class AlertViews
 {
-    public static AlertMessage ToMessage(Alert a, ChartContext context, long firstSeq, long lastSeq)
+    public const string Signalling = "signalling";
+    public const string BackInControl = "back in control";
+
+    public static AlertMessage ToMessage(Alert a, ChartContext context)
     {
         static DateTimeOffset? T(long? ms) => ms is { } v ? DateTimeOffset.FromUnixTimeMilliseconds(v) : null;
-        var text = RunRules.TryParse(a.Rule, out var r) && r.Count == 1 ? Severity.Describe(r[0]) : a.Rule;
-        return new AlertMessage(a.Id, context.Code, context.Title, a.Rule, text, a.State, a.Severity, a.SeverityRank,
+        var rules = a.Rules.Split(',', StringSplitOptions.RemoveEmptyEntries);
+        return new AlertMessage(a.Id, context.Code, context.Title, a.Rule, Text(a.Rule), rules, [.. rules.Select(Text)], a.State,
+            a.BackInControlAtMs is null ? Signalling : BackInControl, a.Severity, a.SeverityRank,
             DateTimeOffset.FromUnixTimeMilliseconds(a.RaisedAtMs), DateTimeOffset.FromUnixTimeMilliseconds(a.UpdatedAtMs), a.EscalatedAtMs is not null,
-            a.PointCount, firstSeq, lastSeq, a.LotId, a.WaferSlot, a.Chamber, a.PredictedDvtSatMv, a.AcknowledgedBy, T(a.AcknowledgedAtMs),
-            a.ClosedBy, T(a.ClosedAtMs));
+            DateTimeOffset.FromUnixTimeMilliseconds(a.FirstSignalAtMs), DateTimeOffset.FromUnixTimeMilliseconds(a.LastSignalAtMs), T(a.BackInControlAtMs),
+            a.PointCount, a.SignalCount, a.LotCount, a.WaferCount, a.FirstSeq, a.LastSeq, a.LotId, a.WaferSlot, a.Chamber, a.PredictedDvtSatMv,
+            a.AcknowledgedBy, T(a.AcknowledgedAtMs), a.ClosedBy, T(a.ClosedAtMs));
     }
+
+    /// <summary>A rule id in words.</summary>
+    public static string Text(string ruleId) => RunRules.TryParse(ruleId, out var r) && r.Count == 1 ? Severity.Describe(r[0]) : ruleId;
 }

@@ -4,6 +4,7 @@ using FinWatch.Server.Features.Audit;
 using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.Options;
 
 namespace FinWatch.Server.Features.Monitor;
 
@@ -72,6 +73,7 @@ public static class LimitEndpoints
         var version = 1 + (await db.LimitVersions.Where(l => l.ContextId == context.Id).MaxAsync(l => (int?)l.Version, cancellationToken) ?? 0);
         var limit = BaselineLimits.Draft(context, version, centre, sigma!.Value, used, exclude, http.User.Who(),
             clock.GetUtcNow().ToUnixTimeMilliseconds(), r.Reason!.Trim());
+        BaselineLimits.Check(context, limit, used);
         db.LimitVersions.Add(limit);
         await db.SaveChangesAsync(cancellationToken);
         AuditLog.Add(db, http.User.Who(), "limits", $"{code} v{version}", "computed", null, BaselineLimits.Describe(context, limit), clock);
@@ -80,7 +82,8 @@ public static class LimitEndpoints
     }
 
     private static async Task<Results<Ok<LimitResponse>, ValidationProblem, ProblemHttpResult>> ApproveAsync(
-        string code, int version, ApproveRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator, CancellationToken cancellationToken)
+        string code, int version, ApproveRequest r, HttpContext http, FinWatchDbContext db, TimeProvider clock, MonitorEvaluator evaluator,
+        IOptions<MonitorOptions> options, CancellationToken cancellationToken)
     {
         var context = await db.ChartContexts.AsNoTracking().SingleOrDefaultAsync(c => c.Code == code, cancellationToken);
         var limit = context is null ? null : await db.LimitVersions.SingleOrDefaultAsync(l => l.ContextId == context.Id && l.Version == version, cancellationToken);
@@ -101,13 +104,32 @@ public static class LimitEndpoints
             return Problems.Invalid("effective_from", $"effective_from lies between the last point the limits were computed from ({DateTimeOffset.FromUnixTimeMilliseconds(limit.ToMs):u}) and now");
         }
 
+        if (limit.Verdict == BaselineLimits.NotStable && string.IsNullOrWhiteSpace(r.Justification))
+        {
+            return Problems.Invalid("justification", $"the baseline of v{version} is not stable ({string.Join("; ", BaselineLimits.Describe(context, limit).Warnings)}); "
+                + "write why these limits may be approved anyway, or compute a new version from a stable baseline");
+        }
+
+        if (r.Justification is { Length: > 4000 })
+        {
+            return Problems.Invalid("justification", "the justification is at most 4000 characters");
+        }
+
+        var who = http.User.Who();
+        if (options.Value.ApproverMustDiffer && string.Equals(limit.ComputedBy, who, StringComparison.OrdinalIgnoreCase))
+        {
+            return Problems.Forbidden("Limits need a second engineer.",
+                $"{code} v{version} was computed by {limit.ComputedBy}; another engineer approves it (four-eyes rule of this site).");
+        }
+
         var before = BaselineLimits.Describe(context, limit);
         limit.Status = "approved";
-        limit.ApprovedBy = http.User.Who();
+        limit.Justification = string.IsNullOrWhiteSpace(r.Justification) ? null : r.Justification.Trim();
+        limit.ApprovedBy = who;
         limit.ApprovedAtMs = now.ToUnixTimeMilliseconds();
         limit.ApprovalComment = r.Comment?.Trim();
         limit.EffectiveFromMs = effective.ToUnixTimeMilliseconds();
-        AuditLog.Add(db, http.User.Who(), "limits", $"{code} v{version}", "approved", before, BaselineLimits.Describe(context, limit), clock);
+        AuditLog.Add(db, who, "limits", $"{code} v{version}", "approved", before, BaselineLimits.Describe(context, limit), clock);
         await db.SaveChangesAsync(cancellationToken);
         await evaluator.EvaluatePendingAsync(cancellationToken);
         return TypedResults.Ok(BaselineLimits.Describe(context, limit));

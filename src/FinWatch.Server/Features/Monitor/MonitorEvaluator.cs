@@ -2,15 +2,15 @@ using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Infrastructure;
-using FinWatch.Statistics.Rules;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.Options;
 
 namespace FinWatch.Server.Features.Monitor;
 
 /// <summary>
 /// The step after store in the one-way flow: turns each stored ingest batch into points of every chart context it
-/// concerns, judges them by the limits in force when they were measured, evaluates the context's run rules
-/// incrementally (the rule state is rebuilt from the context's last judged points), raises or extends alerts, and
+/// concerns, judges them through <see cref="ChartJudge"/> by the limits in force when they were measured (the rule
+/// state is rebuilt from the context's last judged points), opens or extends the chart's excursion alert, and
 /// records all of it in the live feed, in one transaction per context and batch. Contexts resume after the last batch
 /// they evaluated, so a batch missed by a crash is evaluated at the next run and none twice. Several instances on one
 /// PostgreSQL database coordinate through the database: each context's transaction takes the monitor lock
@@ -18,11 +18,15 @@ namespace FinWatch.Server.Features.Monitor;
 /// so a batch another instance has evaluated meanwhile is not evaluated again, and batches commit in number order
 /// (the ingest lock), so none is skipped.
 /// </summary>
-public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dialect, MonitorGate gate, TimeProvider clock, MonitorFeed feed, Telemetry telemetry, ILogger<MonitorEvaluator> logger)
+public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dialect, MonitorGate gate, TimeProvider clock, MonitorFeed feed, Telemetry telemetry,
+    IOptions<MonitorOptions> options, ILogger<MonitorEvaluator> logger)
     : IBatchStoredListener
 {
     /// <summary>More than the longest rule window (N7, 15 points), so the replayed state equals the full history's.</summary>
     private const int ReplayPoints = 20;
+
+    // The alerts this evaluation opened, for the telemetry (severity, opening rule).
+    private readonly List<(string Severity, string Rule)> raised = [];
 
     /// <summary>A batch was stored: evaluate it (and any batch before it that is still pending).</summary>
     public async Task BatchStoredAsync(StoredBatch batch, CancellationToken cancellationToken) => await EvaluatePendingAsync(cancellationToken);
@@ -45,10 +49,9 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
             var lastBatch = await db.IngestBatches.MaxAsync(b => (long?)b.Id, cancellationToken) ?? 0;
             foreach (var context in contexts.Where(c => c.EvaluatedThroughBatchId < lastBatch))
             {
+                raised.Clear();
                 var committed = await EvaluateContextAsync(context, lastBatch, cancellationToken);
-                // An alert entry with one point raised the alert; one with more extended an open alert.
-                measured.Committed(committed.Count(m => m.Point is not null),
-                    [.. committed.Where(m => m.Alert is { PointCount: 1 }).Select(m => (m.Alert!.Severity, m.Alert.Rule))]);
+                measured.Committed(committed.Count(m => m.Point is not null), [.. raised]);
                 published.AddRange(committed);
             }
         }
@@ -173,102 +176,63 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
     {
         var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
         var limits = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == context.Id && l.Status == "approved")
-            .OrderBy(l => l.EffectiveFromMs).ToListAsync(cancellationToken);
-        var rules = ContextRules.Parse(context.Rules);
-        var evaluator = new RunRuleEvaluator(rules);
+            .ToListAsync(cancellationToken);
+        var judge = new ChartJudge(context, limits, ContextRules.Parse(context.Rules));
         var history = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == context.Id && p.Z != null)
             .OrderByDescending(p => p.Seq).Take(ReplayPoints).ToListAsync(cancellationToken);
         foreach (var p in history.OrderBy(p => p.Seq))
         {
-            evaluator.Append((int)p.Seq, p.Value, p.Z!.Value, null);
+            judge.Replay(p);
         }
 
         var seq = await db.ChartPoints.Where(p => p.ContextId == context.Id).MaxAsync(p => (long?)p.Seq, cancellationToken) ?? 0;
-        var signals = new List<RuleSignal>();
+
+        // The chart's excursion, if one is not closed (the newest, should alerts stored before excursions leave several).
+        var open = await db.Alerts.Where(a => a.ContextId == context.Id && a.State != AlertStates.Closed)
+            .OrderByDescending(a => a.Id).FirstOrDefaultAsync(cancellationToken);
+        var excursion = open is null ? null : await Excursion.ResumeAsync(db, open, cancellationToken);
+        var excursions = new List<Excursion>();
+        if (excursion is not null)
+        {
+            excursions.Add(excursion);
+        }
+
         var staged = new List<(FeedEvent, FeedMessage)>();
         foreach (var point in points)
         {
             point.Seq = ++seq;
-            var limit = limits.LastOrDefault(l => l.EffectiveFromMs <= point.MeasuredAtMs);
-            signals.Clear();
-            if (limit is not null)
+            var fired = judge.Judge(point);
+            db.ChartPoints.Add(point);
+            staged.Add(FeedLog.Stage(db, "point", context, ContextRules.ToMessage(context, point, judge.LimitAt(point.MeasuredAtMs)), null, now));
+            if (excursion is null && fired.Count > 0)
             {
-                var sigmaPoint = ContextRules.PointSigma(context, limit, point.N);
-                point.LimitVersionId = limit.Id;
-                point.Z = sigmaPoint > 0 ? (point.Value - limit.Centre) / sigmaPoint : null;
-                evaluator.Append((int)point.Seq, point.Value, point.Z ?? double.NaN, signals);
-                point.Signals = string.Join(',', signals.Select(s => RunRules.Id(s.Rule)));
+                excursion = Excursion.Open(context, point, now);
+                excursions.Add(excursion);
             }
 
-            db.ChartPoints.Add(point);
-            staged.Add(FeedLog.Stage(db, "point", context, ContextRules.ToMessage(context, point, limit), null, now));
-            if (signals.Count > 0)
+            excursion?.Collect(context, point, fired, now, options.Value.BackInControlAfterPoints);
+        }
+
+        // Points first (the alerts refer to them by id), then the alerts, then their history and the feed.
+        await db.SaveChangesAsync(cancellationToken);
+        foreach (var e in excursions)
+        {
+            e.Attach(db);
+        }
+
+        await db.SaveChangesAsync(cancellationToken);
+        foreach (var e in excursions.Where(e => e.Changed))
+        {
+            e.AddEvents(db);
+            staged.Add(FeedLog.Stage(db, "alert", context, null, AlertViews.ToMessage(e.Alert, context), now));
+            if (e.Raised)
             {
-                await db.SaveChangesAsync(cancellationToken); // the alert refers to the point by id
-                foreach (var signal in signals)
-                {
-                    var alert = await RaiseOrExtendAsync(context, signal.Rule, point, now, cancellationToken);
-                    staged.Add(FeedLog.Stage(db, "alert", context, null, AlertViews.ToMessage(alert, context, await FirstSeqAsync(alert, point, cancellationToken), point.Seq), now));
-                }
+                raised.Add((e.Alert.Severity, e.Alert.Rule));
             }
         }
 
         await db.SaveChangesAsync(cancellationToken);
         return FeedLog.Numbered(staged);
-    }
-
-    private async Task<long> FirstSeqAsync(Alert alert, ChartPoint current, CancellationToken cancellationToken) =>
-        alert.FirstPointId == current.Id ? current.Seq
-            : await db.ChartPoints.Where(p => p.Id == alert.FirstPointId).Select(p => p.Seq).SingleAsync(cancellationToken);
-
-    // One open alert per context and rule: a new signal of the same rule adds its point to it rather than raising another.
-    private async Task<Alert> RaiseOrExtendAsync(ChartContext context, RunRule rule, ChartPoint point, long now, CancellationToken cancellationToken)
-    {
-        var id = RunRules.Id(rule);
-        var alert = await db.Alerts.SingleOrDefaultAsync(a => a.ContextId == context.Id && a.Rule == id && a.State != AlertStates.Closed, cancellationToken);
-        var dvt = point.PredictedDvtSatMv;
-        if (alert is null)
-        {
-            var rank = Severity.Rank(rule, dvt, context.ElectricalConcernMv);
-            alert = new Alert
-            {
-                ContextId = context.Id, Rule = id, State = AlertStates.Open, RaisedAtMs = now, UpdatedAtMs = now,
-                FirstPointId = point.Id, LastPointId = point.Id, PointCount = 1, LotId = point.LotId, WaferSlot = point.WaferSlot,
-                Chamber = point.Chamber, PredictedDvtSatMv = dvt, Severity = Severity.Name(rank), SeverityRank = rank,
-            };
-            db.Alerts.Add(alert);
-            await db.SaveChangesAsync(cancellationToken);
-            db.AlertEvents.Add(new AlertEvent
-            {
-                AlertId = alert.Id, Kind = "raised", AtMs = now, By = "FinWatch", PointId = point.Id,
-                Comment = $"{Severity.Describe(rule)} at lot {point.LotId}{(point.WaferSlot is { } s ? $" wafer {s}" : "")}",
-            });
-        }
-        else
-        {
-            alert.LastPointId = point.Id;
-            alert.PointCount++;
-            alert.UpdatedAtMs = now;
-            alert.LotId = point.LotId;
-            alert.WaferSlot = point.WaferSlot;
-            alert.Chamber = point.Chamber;
-            if (dvt is { } d && (alert.PredictedDvtSatMv is not { } old || Math.Abs(d) > Math.Abs(old)))
-            {
-                alert.PredictedDvtSatMv = d;
-            }
-
-            alert.SeverityRank = Math.Max(alert.SeverityRank, Severity.Rank(rule, alert.PredictedDvtSatMv, context.ElectricalConcernMv));
-            alert.Severity = Severity.Name(alert.SeverityRank);
-            db.Entry(alert).DetectChanges();
-            db.AlertEvents.Add(new AlertEvent
-            {
-                AlertId = alert.Id, Kind = "point-added", AtMs = now, By = "FinWatch", PointId = point.Id,
-                Comment = $"lot {point.LotId}{(point.WaferSlot is { } s ? $" wafer {s}" : "")}",
-            });
-        }
-
-        await db.SaveChangesAsync(cancellationToken);
-        return alert;
     }
 }
 

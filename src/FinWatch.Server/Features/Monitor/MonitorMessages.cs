@@ -6,10 +6,17 @@ public sealed record PointMessage(
     double Value, int N, double? Sd, double? Z, double? Centre, double? Ucl, double? Lcl, int? LimitVersion,
     IReadOnlyList<string> Signals, double? PredictedDvtSatMv);
 
-/// <summary>An alert as lists, the feed and the alert page give it.</summary>
+/// <summary>
+/// An alert (one excursion of one chart) as lists, the feed and the alert page give it: the rule that opened it and every
+/// rule that fired, its state and condition ("signalling" or "back in control"), its severity, when it was raised and
+/// when its first and last signal points were measured, its counts (points, signal points, lots, wafers), its first and
+/// last chart positions, and the last signal point's lot, wafer and chamber.
+/// </summary>
 public sealed record AlertMessage(
-    long Id, string Context, string ContextTitle, string Rule, string RuleText, string State, string Severity, int SeverityRank,
-    DateTimeOffset RaisedAt, DateTimeOffset UpdatedAt, bool Escalated, int PointCount, long FirstPointSeq, long LastPointSeq,
+    long Id, string Context, string ContextTitle, string Rule, string RuleText, IReadOnlyList<string> Rules, IReadOnlyList<string> RuleTexts,
+    string State, string Condition, string Severity, int SeverityRank,
+    DateTimeOffset RaisedAt, DateTimeOffset UpdatedAt, bool Escalated, DateTimeOffset FirstSignalMeasuredAt, DateTimeOffset LastSignalMeasuredAt,
+    DateTimeOffset? BackInControlAt, int PointCount, int SignalCount, int LotCount, int WaferCount, long FirstPointSeq, long LastPointSeq,
     string LotId, int? WaferSlot, string? Chamber, double? PredictedDvtSatMv, string? AcknowledgedBy, DateTimeOffset? AcknowledgedAt,
     string? ClosedBy, DateTimeOffset? ClosedAt);
 

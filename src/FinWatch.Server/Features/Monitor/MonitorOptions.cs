@@ -14,4 +14,11 @@ public sealed class MonitorOptions
     /// <summary>How often the escalation check runs, seconds.</summary>
     [Range(1, 3600)]
     public int CheckEverySeconds { get; set; } = 30;
+
+    /// <summary>An excursion is marked back in control when this many points in a row fire no rule (it stays open until a person closes it).</summary>
+    [Range(1, 1000)]
+    public int BackInControlAfterPoints { get; set; } = 8;
+
+    /// <summary>Limits are approved by someone other than the person who computed them (off in demo mode).</summary>
+    public bool ApproverMustDiffer { get; set; } = true;
 }

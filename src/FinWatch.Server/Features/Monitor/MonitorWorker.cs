@@ -52,9 +52,7 @@ public sealed class MonitorWorker(IServiceScopeFactory scopes, IOptions<MonitorO
                 Comment = $"not acknowledged within {options.Value.EscalateAfterMinutes} min; shown to the supervisors",
             });
             var context = await db.ChartContexts.AsNoTracking().SingleAsync(c => c.Id == a.ContextId, cancellationToken);
-            var seqs = await db.ChartPoints.Where(p => p.Id == a.FirstPointId || p.Id == a.LastPointId).Select(p => new { p.Id, p.Seq }).ToListAsync(cancellationToken);
-            messages.Add(await FeedLog.AddAsync(db, "alert", context,
-                null, AlertViews.ToMessage(a, context, seqs.First(s => s.Id == a.FirstPointId).Seq, seqs.First(s => s.Id == a.LastPointId).Seq), now, cancellationToken));
+            messages.Add(await FeedLog.AddAsync(db, "alert", context, null, AlertViews.ToMessage(a, context), now, cancellationToken));
         }
 
         await db.SaveChangesAsync(cancellationToken);

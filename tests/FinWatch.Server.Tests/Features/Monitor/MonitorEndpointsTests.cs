@@ -46,27 +46,75 @@ public class MonitorEndpointsTests : IntegrationTest
     }
 
     [Fact]
-    public async Task PointBeyondTheLimit_RaisesOneAlert_LaterSignalsAddToIt()
+    public async Task PointBeyondTheLimit_OpensOneExcursion_LaterSignalsOfAnyRuleJoinIt()
     {
         await BaselineAndContextAsync();
+        // The test clock stands days after the monitor day: raised now, measured then.
         await IngestAsync(Client, Wafers("M0001", MonitorDay, 0, 0, 1.5));
         var alerts = (await ReadJsonAsync(await Client.GetAsync("/api/alerts?state=open"))).EnumerateArray().ToList();
         var alert = Assert.Single(alerts);
         Assert.Equal("WE1", alert.GetProperty("rule").GetString());
         Assert.Equal("M0001", alert.GetProperty("lot_id").GetString());
         Assert.Equal(3, alert.GetProperty("wafer_slot").GetInt32());
+        Assert.Equal(23, alert.GetProperty("first_point_seq").GetInt64());
         Assert.Equal(23, alert.GetProperty("last_point_seq").GetInt64());
-        Assert.True(alert.GetProperty("predicted_dvt_sat_mv").GetDouble() < -10, "a 1.5 nm wider top lowers VT,sat by well over 10 mV (G.4)");
+        Assert.Equal("signalling", alert.GetProperty("condition").GetString());
+        // Wafer 3's last site: the fixture measures wafer w at minute w and site s at second s.
+        Assert.Equal(MonitorDay.AddMinutes(2).AddSeconds(4), alert.GetProperty("first_signal_measured_at").GetDateTimeOffset());
+        Assert.Equal(FinWatch.Testing.FinWatchAppFactory.Now, alert.GetProperty("raised_at").GetDateTimeOffset());
+        Assert.True(alert.GetProperty("predicted_dvt_sat_mv").GetDouble() < -10, "a 1.5 nm wider top lowers VT,sat by well over 10 mV (docs/model.md)");
 
         await IngestAsync(Client, Wafers("M0002", MonitorDay.AddHours(2), 1.6));
-        // 1.5 and 1.6 nm in a row: the WE1 alert gains a point, and two of three beyond 2σ (WE2) opens its own alert.
-        alerts = (await ReadJsonAsync(await Client.GetAsync("/api/alerts?state=active"))).EnumerateArray().ToList();
-        Assert.Equal(["WE1", "WE2"], alerts.Select(a => a.GetProperty("rule").GetString()).Order());
-        Assert.Equal(2, alerts.Single(a => a.GetProperty("rule").GetString() == "WE1").GetProperty("point_count").GetInt32());
+        // 1.5 and 1.6 nm in a row: WE1 again and two of three beyond 2σ (WE2), both in the one open excursion.
+        alert = Assert.Single((await ReadJsonAsync(await Client.GetAsync("/api/alerts?state=active"))).EnumerateArray());
+        Assert.Equal(["WE1", "WE2"], alert.GetProperty("rules").EnumerateArray().Select(r => r.GetString()));
+        Assert.Equal(2, alert.GetProperty("point_count").GetInt32());
+        Assert.Equal(2, alert.GetProperty("signal_count").GetInt32());
+        Assert.Equal(2, alert.GetProperty("lot_count").GetInt32());
+        Assert.Equal(2, alert.GetProperty("wafer_count").GetInt32());
+        Assert.Equal(MonitorDay.AddHours(2).AddSeconds(4), alert.GetProperty("last_signal_measured_at").GetDateTimeOffset());
         var c = await ReadJsonAsync(await Client.GetAsync("/api/contexts/TRI-TOP"));
         Assert.Equal("out_of_control", c.GetProperty("state").GetString());
-        Assert.Equal(2, c.GetProperty("unacknowledged_alerts").GetInt32());
+        Assert.Equal(1, c.GetProperty("unacknowledged_alerts").GetInt32());
     }
+
+    [Fact]
+    public async Task Excursion_QuietPoints_MarkItBackInControl_OnlyAPersonClosesIt_ThenANewSignalOpensAnother()
+    {
+        await BaselineAndContextAsync();
+        await IngestAsync(Client, Wafers("M0001", MonitorDay, 1.5));
+        var id = (await ReadJsonAsync(await Client.GetAsync("/api/alerts"))).EnumerateArray().Single().GetProperty("id").GetInt64();
+
+        // Seven quiet wafers: still signalling; the eighth (the default setting) marks it back in control, still open.
+        await IngestAsync(Client, Wafers("M0002", MonitorDay.AddHours(1), new double[7]));
+        Assert.Equal("signalling", (await AlertAsync(id)).GetProperty("alert").GetProperty("condition").GetString());
+        await IngestAsync(Client, Wafers("M0003", MonitorDay.AddHours(2), 0));
+        var detail = await AlertAsync(id);
+        Assert.Equal("back in control", detail.GetProperty("alert").GetProperty("condition").GetString());
+        Assert.Equal("open", detail.GetProperty("alert").GetProperty("state").GetString());
+        Assert.Equal(9, detail.GetProperty("alert").GetProperty("point_count").GetInt32());
+        Assert.Equal(9, detail.GetProperty("points").GetArrayLength()); // the detail gives every point of the excursion
+        Assert.Equal(["M0001", "M0002", "M0003"], detail.GetProperty("lots").EnumerateArray().Select(l => l.GetProperty("lot_id").GetString()));
+        Assert.Equal(7, detail.GetProperty("lots")[1].GetProperty("wafers").GetArrayLength());
+        Assert.Contains(detail.GetProperty("history").EnumerateArray(), e => e.GetProperty("kind").GetString() == "back-in-control");
+
+        // A signal while it is not closed joins it again; after a person closes it, the next signal opens a new one.
+        await IngestAsync(Client, Wafers("M0004", MonitorDay.AddHours(3), -1.5));
+        Assert.Single((await ReadJsonAsync(await Client.GetAsync("/api/alerts"))).EnumerateArray());
+        Assert.Equal("signalling", (await AlertAsync(id)).GetProperty("alert").GetProperty("condition").GetString());
+        (await Client.PostAsJsonAsync($"/api/alerts/{id}/acknowledge", new { comment = "looking" })).EnsureSuccessStatusCode();
+        (await Client.PostAsJsonAsync($"/api/alerts/{id}/disposition", new
+        {
+            steps = new[] { new { step = "Hold the lot", done = true }, new { step = "Check the etch chamber log", done = true } },
+        })).EnsureSuccessStatusCode();
+        (await Client.PostAsJsonAsync($"/api/alerts/{id}/close", new { comment = "chamber recovered" })).EnsureSuccessStatusCode();
+        await IngestAsync(Client, Wafers("M0005", MonitorDay.AddHours(4), 1.5));
+        var all = (await ReadJsonAsync(await Client.GetAsync("/api/alerts"))).EnumerateArray().ToList();
+        Assert.Equal(2, all.Count);
+        Assert.Equal(1, all.Single(a => a.GetProperty("id").GetInt64() != id).GetProperty("point_count").GetInt32());
+    }
+
+    private async Task<JsonElement> AlertAsync(long id) => await ReadJsonAsync(await Client.GetAsync($"/api/alerts/{id}"));
 
     [Fact]
     public async Task Severity_ElectricallyLargeRanksAboveStatisticallyLarge()

@@ -132,6 +132,7 @@ public sealed class ComposeDeploymentTests : IAsyncLifetime
         Assert.Contains(redis.Split(':')[0], compose.ServiceNames);
         env["FinWatch__SignalR__Redis"] = PostgresTestDatabase.Redis!;
         env["FinWatch__SignalR__RedisChannelPrefix"] = Path.GetFileName(folder); // tests side by side do not hear each other
+        env["FinWatch__Monitor__ApproverMustDiffer"] = "false"; // the one bootstrap administrator computes and approves the test limits
 
         // The shared key ring, and the inbox of the instance that watches one, are named volumes: they outlive a container.
         var volumes = new List<(string Name, string Volume)> { ("FinWatch__Auth__DataProtectionKeysPath", "finwatch-keys") };

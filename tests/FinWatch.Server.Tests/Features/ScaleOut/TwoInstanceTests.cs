@@ -102,12 +102,16 @@ public sealed class TwoInstanceTests : IAsyncLifetime
         var seqs = await a.QueryAsync(db => db.ChartPoints.OrderBy(p => p.Seq).Select(p => p.Seq).ToListAsync());
         Assert.Equal(Enumerable.Range(1, 20 + (Lots * 4)).Select(i => (long)i), seqs);
 
+        // One excursion, opened once, holding every point from the first signal on; its signal points are the wafers 4.
         var alert = Assert.Single(await a.QueryAsync(db => db.Alerts.AsNoTracking().ToListAsync()));
-        Assert.Equal(("WE1", Lots), (alert.Rule, alert.PointCount));
-        var signalled = await a.QueryAsync(db => db.AlertEvents.AsNoTracking().Where(e => e.Kind == "raised" || e.Kind == "point-added")
-            .Select(e => e.PointId).ToListAsync());
-        var wafer4 = points.Where(p => p.WaferSlot == 4).Select(p => (long?)p.Id).Order().ToList();
-        Assert.Equal(wafer4, signalled.Order().ToList());
+        Assert.Equal(("WE1", "WE1", Lots), (alert.Rule, alert.Rules, alert.SignalCount));
+        Assert.Equal(alert.LastSeq - alert.FirstSeq + 1, alert.PointCount);
+        var raised = await a.QueryAsync(db => db.AlertEvents.AsNoTracking().Where(e => e.Kind == "raised").ToListAsync());
+        Assert.Equal(alert.FirstPointId, Assert.Single(raised).PointId);
+        var wafer4 = points.Where(p => p.WaferSlot == 4).Select(p => p.Seq).Order().ToList();
+        Assert.Equal(wafer4, points.Where(p => p.Signals.Length > 0).Select(p => p.Seq).Order().ToList());
+        Assert.Equal(wafer4[0], alert.FirstSeq);
+        Assert.Equal(wafer4[^1], alert.LastSignalSeq);
 
         // The live feed: every point once, numbered without a gap.
         var feed = await a.QueryAsync(db => db.FeedEvents.AsNoTracking().OrderBy(e => e.Seq).ToListAsync());
