@@ -71,7 +71,9 @@ public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser
         var item = Page.Locator($".alert-item[data-alert='{id}']");
         await Assertions.Expect(item).ToHaveAttributeAsync("data-state", "open");
         await item.GetByRole(AriaRole.Button).ClickAsync();
-        await Assertions.Expect(Page.Locator("#detail h2")).ToHaveTextAsync($"Alert {id}: WE1");
+        await Assertions.Expect(Page.Locator("#detail h2")).ToContainTextAsync($"Alert {id}: excursion on");
+        await Assertions.Expect(Page.Locator("#detail")).ToContainTextAsync("WE1: one point beyond a 3σ limit");
+        await Assertions.Expect(Page.Locator("#detail .state")).ToHaveTextAsync("signalling"); // the condition in words
 
         await Page.Locator("#action-comment").FillAsync("seen at the tool <b>held</b>");
         await Page.Locator("#action-button").ClickAsync();
@@ -97,7 +99,7 @@ public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser
     }
 
     [BrowserFact]
-    public async Task LimitsPage_ComputesADraftAndApprovesIt()
+    public async Task LimitsPage_ComputesADraftWithItsBaselineCheck_AndASecondEngineerApprovesAnotherWithAJustification()
     {
         await OpenAsync("limits.html?context=TRI-TOP");
         await Assertions.Expect(Page.Locator("#versions tbody tr")).ToHaveCountAsync(1);
@@ -106,10 +108,21 @@ public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser
         await Page.Locator("#reason").FillAsync("re-baseline after chamber clean");
         await Page.Locator("#compute-button").ClickAsync();
         await Assertions.Expect(Page.Locator("#compute-result")).ToContainTextAsync("Draft v2: centre 6.000 nm");
+        await Assertions.Expect(Page.Locator("#compute-result")).ToContainTextAsync("baseline check: not stable");
         var draft = Page.Locator("#versions tr[data-version='2']");
         await Assertions.Expect(draft).ToHaveAttributeAsync("data-status", "draft");
-        await draft.GetByRole(AriaRole.Button, new() { Name = "Approve v2" }).ClickAsync();
-        await Assertions.Expect(Page.Locator("#versions tr[data-version='2']")).ToHaveAttributeAsync("data-status", "approved");
+        await Assertions.Expect(draft.Locator(".state")).ToHaveTextAsync("not stable"); // in words, with its shape
+        await Assertions.Expect(draft).ToContainTextAsync("only 20 subgroups");
+
+        // Another engineer (the test's administrator) computed v3; the person in the browser approves it, with the
+        // justification an unstable baseline needs.
+        (await Client.PostAsJsonAsync("/api/contexts/TRI-TOP/limits", new { from_seq = 1, to_seq = 20, reason = "second look" })).EnsureSuccessStatusCode();
+        await Page.ReloadAsync();
+        var v3 = Page.Locator("#versions tr[data-version='3']");
+        await v3.GetByLabel("justification for approving v3").FillAsync("20 identical wafers: accepted for this qualification run");
+        await v3.GetByRole(AriaRole.Button, new() { Name = "Approve v3" }).ClickAsync();
+        await Assertions.Expect(Page.Locator("#versions tr[data-version='3']")).ToHaveAttributeAsync("data-status", "approved");
+        await Assertions.Expect(Page.Locator("#versions tr[data-version='3']")).ToContainTextAsync("approved although not stable: 20 identical wafers");
         AssertNoPageProblems();
     }
 }

@@ -5,7 +5,6 @@ using FinWatch.Server.Features.Model;
 using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Statistics.Capability;
-using FinWatch.Statistics.Rules;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
 
@@ -37,9 +36,10 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
         var stateAtEnd = alerts.ToDictionary(a => a.Id, a => events.LastOrDefault(e => e.AlertId == a.Id)?.Kind ?? AlertStates.Open);
         var alertById = alerts.ToDictionary(a => a.Id);
 
-        ShiftAlertRow Row(Alert a) => new(a.Id, contextById[a.ContextId].Code, contextById[a.ContextId].Title, a.Rule, RuleText(a.Rule), a.Severity,
-            stateAtEnd[a.Id], DateTimeOffset.FromUnixTimeMilliseconds(a.RaisedAtMs), a.LotId, a.WaferSlot, a.Chamber, a.PredictedDvtSatMv,
-            a.EscalatedAtMs is { } esc && esc < w.EndMs);
+        ShiftAlertRow Row(Alert a) => new(a.Id, contextById[a.ContextId].Code, contextById[a.ContextId].Title, a.Rule, AlertViews.Text(a.Rule),
+            a.Rules.Split(',', StringSplitOptions.RemoveEmptyEntries), a.Severity, stateAtEnd[a.Id], DateTimeOffset.FromUnixTimeMilliseconds(a.RaisedAtMs),
+            DateTimeOffset.FromUnixTimeMilliseconds(a.FirstSignalAtMs), DateTimeOffset.FromUnixTimeMilliseconds(a.LastSignalAtMs), a.SignalCount, a.PointCount,
+            a.LotId, a.WaferSlot, a.Chamber, a.PredictedDvtSatMv, a.EscalatedAtMs is { } esc && esc < w.EndMs);
 
         var raised = alerts.Where(a => a.RaisedAtMs >= w.StartMs).Select(Row).ToList();
         var notClosed = alerts.Where(a => stateAtEnd[a.Id] != AlertStates.Closed).OrderByDescending(a => a.SeverityRank).ThenBy(a => a.RaisedAtMs).ToList();
@@ -70,11 +70,37 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
 
         return new ShiftReportResponse(w.Name, w.Date, o.TimeZone, w.Start, w.End, (w.End - w.Start).TotalHours,
             now >= w.End ? "finished" : now >= w.Start ? "in_progress" : "not_started", now, [.. o.EffectivePattern.Select(s => s.Name)],
-            await LotsAsync(w, products, cancellationToken), raised, actions, [.. notClosed.Select(Row)], outOfControl,
+            await LotsAsync(w, products, cancellationToken), raised, await SignalsMeasuredAsync(w, contexts, points, cancellationToken), actions, [.. notClosed.Select(Row)], outOfControl,
             Risks(w, contexts, points, o.TopRisks), Capability(w, contexts, products, points, o.CapabilityMinPoints), EvaluateModel.PredictionCaution);
     }
 
-    private static string RuleText(string rule) => RunRules.TryParse(rule, out var r) && r.Count == 1 ? Severity.Describe(r[0]) : rule;
+    // Signal points by their measured time, each with the excursion that holds it (the alert of its chart whose chart
+    // positions include it), so the report agrees with the floor and the alert pages whenever the lot was uploaded.
+    private async Task<List<SignalsMeasuredRow>> SignalsMeasuredAsync(ShiftWindow w, List<ChartContext> contexts,
+        Dictionary<int, List<ChartPoint>> points, CancellationToken cancellationToken)
+    {
+        var rows = new List<SignalsMeasuredRow>();
+        foreach (var c in contexts)
+        {
+            var signalled = points[c.Id].Where(p => p.MeasuredAtMs >= w.StartMs && p.Signals.Length > 0).ToList();
+            if (signalled.Count == 0)
+            {
+                continue;
+            }
+
+            var (low, high) = (signalled.Min(p => p.Seq), signalled.Max(p => p.Seq));
+            var alerts = await db.Alerts.AsNoTracking().Where(a => a.ContextId == c.Id && a.FirstSeq <= high && a.LastSeq >= low)
+                .ToListAsync(cancellationToken);
+            rows.AddRange(signalled.GroupBy(p => alerts.FirstOrDefault(a => a.FirstSeq <= p.Seq && p.Seq <= a.LastSeq)).Select(g => new SignalsMeasuredRow(
+                g.Key?.Id, c.Code, c.Title, [.. g.SelectMany(p => p.Signals.Split(',')).Distinct().Order(StringComparer.Ordinal)], g.Count(),
+                g.Select(p => p.LotId).Distinct().Count(), DateTimeOffset.FromUnixTimeMilliseconds(g.Min(p => p.MeasuredAtMs)),
+                DateTimeOffset.FromUnixTimeMilliseconds(g.Max(p => p.MeasuredAtMs)),
+                g.Key is null ? null : DateTimeOffset.FromUnixTimeMilliseconds(g.Key.RaisedAtMs),
+                g.Key is { } a && a.RaisedAtMs >= w.StartMs && a.RaisedAtMs < w.EndMs)));
+        }
+
+        return [.. rows.OrderBy(r => r.FirstMeasuredAt).ThenBy(r => r.Context, StringComparer.Ordinal)];
+    }
 
     private async Task<List<LotMeasuredRow>> LotsAsync(ShiftWindow w, Dictionary<int, Product> products, CancellationToken cancellationToken)
     {

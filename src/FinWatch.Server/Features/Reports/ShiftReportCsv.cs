@@ -22,6 +22,9 @@ public static class ShiftReportCsv
             ("lots_measured", ["lot_id", "product", "step", "wafer_count", "site_count", "chambers", "first_measured_at", "last_measured_at"],
                 [.. r.LotsMeasured.Select(l => new[] { l.LotId, l.Product, l.Step, I(l.WaferCount), I(l.SiteCount), string.Join("; ", l.Chambers), T(l.FirstMeasuredAt), T(l.LastMeasuredAt) })]),
             ("alerts_raised", AlertColumns, [.. r.AlertsRaised.Select(AlertRow)]),
+            ("signals_measured", ["alert_id", "context", "context_title", "rules", "signal_points", "lots", "first_measured_at", "last_measured_at", "raised_at", "raised_in_shift"],
+                [.. r.SignalsMeasured.Select(m => new[] { I(m.AlertId), m.Context, m.ContextTitle, string.Join("; ", m.Rules), I(m.SignalPoints), I(m.Lots),
+                    T(m.FirstMeasuredAt), T(m.LastMeasuredAt), m.RaisedAt is { } t ? T(t) : null, m.RaisedInShift ? "true" : "false" })]),
             ("alert_actions", ["alert_id", "context", "rule", "severity", "lot_id", "action", "at", "by", "comment", "steps"],
                 [.. r.AlertActions.Select(a => new[] { I(a.AlertId), a.Context, a.Rule, a.Severity, a.LotId, a.Action, T(a.At), a.By, a.Comment,
                     a.Steps is null ? null : string.Join(" | ", a.Steps.Select(s => $"{s.Step}: {(s.Done ? "done" : "not done")}{(string.IsNullOrWhiteSpace(s.Note) ? "" : $" ({s.Note})")}")) })]),
@@ -52,10 +55,12 @@ public static class ShiftReportCsv
     }
 
     private static readonly string[] AlertColumns =
-        ["alert_id", "context", "context_title", "rule", "rule_text", "severity", "state_at_shift_end", "raised_at", "lot_id", "wafer_slot", "chamber", "predicted_dvt_sat_mv", "escalated_by_shift_end"];
+        ["alert_id", "context", "context_title", "rule", "rule_text", "rules", "severity", "state_at_shift_end", "raised_at", "first_signal_measured_at",
+            "last_signal_measured_at", "signal_points", "points", "lot_id", "wafer_slot", "chamber", "predicted_dvt_sat_mv", "escalated_by_shift_end"];
 
     private static string?[] AlertRow(ShiftAlertRow a) =>
-        [I(a.Id), a.Context, a.ContextTitle, a.Rule, a.RuleText, a.Severity, a.StateAtShiftEnd, T(a.RaisedAt), a.LotId, I(a.WaferSlot), a.Chamber,
+        [I(a.Id), a.Context, a.ContextTitle, a.Rule, a.RuleText, string.Join("; ", a.Rules), a.Severity, a.StateAtShiftEnd, T(a.RaisedAt),
+            T(a.FirstSignalMeasuredAt), T(a.LastSignalMeasuredAt), I(a.SignalCount), I(a.PointCount), a.LotId, I(a.WaferSlot), a.Chamber,
             N(a.PredictedDvtSatMv), a.EscalatedByShiftEnd ? "true" : "false"];
 
     private static void Record(StringBuilder csv, int width, string?[] fields)

@@ -8,6 +8,7 @@ public sealed record ShiftReportResponse(
     DateTimeOffset GeneratedAt, IReadOnlyList<string> Shifts,
     IReadOnlyList<LotMeasuredRow> LotsMeasured,
     IReadOnlyList<ShiftAlertRow> AlertsRaised,
+    IReadOnlyList<SignalsMeasuredRow> SignalsMeasured,
     IReadOnlyList<AlertActionRow> AlertActions,
     IReadOnlyList<ShiftAlertRow> AlertsOpenAtEnd,
     IReadOnlyList<OutOfControlRow> ContextsOutOfControl,
@@ -19,9 +20,21 @@ public sealed record ShiftReportResponse(
 public sealed record LotMeasuredRow(string LotId, string Product, string Step, int WaferCount, int SiteCount, IReadOnlyList<string> Chambers,
     DateTimeOffset FirstMeasuredAt, DateTimeOffset LastMeasuredAt);
 
-/// <summary>An alert with its state at the shift's end (derived from its history).</summary>
-public sealed record ShiftAlertRow(long Id, string Context, string ContextTitle, string Rule, string RuleText, string Severity, string StateAtShiftEnd,
-    DateTimeOffset RaisedAt, string LotId, int? WaferSlot, string? Chamber, double? PredictedDvtSatMv, bool EscalatedByShiftEnd);
+/// <summary>
+/// An alert (one excursion) with its state at the shift's end (derived from its history), the rules it has fired, and
+/// when its first and last signal points were measured, beside when it was raised.
+/// </summary>
+public sealed record ShiftAlertRow(long Id, string Context, string ContextTitle, string Rule, string RuleText, IReadOnlyList<string> Rules,
+    string Severity, string StateAtShiftEnd, DateTimeOffset RaisedAt, DateTimeOffset FirstSignalMeasuredAt, DateTimeOffset LastSignalMeasuredAt,
+    int SignalCount, int PointCount, string LotId, int? WaferSlot, string? Chamber, double? PredictedDvtSatMv, bool EscalatedByShiftEnd);
+
+/// <summary>
+/// Signal points measured in the shift, by the alert (excursion) that holds them, whenever that alert was raised: the
+/// rules they fired, how many points and lots, their first and last measured time, and whether the alert was raised in
+/// this shift. A lot measured in the shift but uploaded later counts here once it is uploaded.
+/// </summary>
+public sealed record SignalsMeasuredRow(long? AlertId, string Context, string ContextTitle, IReadOnlyList<string> Rules, int SignalPoints, int Lots,
+    DateTimeOffset FirstMeasuredAt, DateTimeOffset LastMeasuredAt, DateTimeOffset? RaisedAt, bool RaisedInShift);
 
 /// <summary>An acknowledgement, disposition (with the reaction-plan steps) or close recorded during the shift.</summary>
 public sealed record AlertActionRow(long AlertId, string Context, string Rule, string Severity, string LotId, string Action, DateTimeOffset At,

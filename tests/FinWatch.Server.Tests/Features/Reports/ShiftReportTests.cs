@@ -127,6 +127,41 @@ public class ShiftReportTests : IntegrationTest
     }
 
     [Fact]
+    public async Task SignalsCountByTheirMeasuredTime_AsWellAsByWhenTheyWereRaised()
+    {
+        // The late alert is handled and closed by 17:00; lot L0002, measured at 21:00 (late shift), is uploaded at 23:00
+        // (night shift) with a wafer 1.5 nm wide: a new excursion raised in the night for a signal measured in the late shift.
+        lateAlert = await ShiftFixture.LateShiftAsync(Client, Factory.Clock, "seen at the tool");
+        Factory.Clock.SetUtcNow(Day.AddHours(16.5));
+        (await Client.PostAsJsonAsync($"/api/alerts/{lateAlert}/disposition", new
+        {
+            steps = new object[] { new { step = "Hold the lot", done = true }, new { step = "Check the etch chamber log", done = true } },
+        })).EnsureSuccessStatusCode();
+        Factory.Clock.SetUtcNow(Day.AddHours(17));
+        (await Client.PostAsJsonAsync($"/api/alerts/{lateAlert}/close", new { comment = "re-measured" })).EnsureSuccessStatusCode();
+        Factory.Clock.SetUtcNow(Day.AddHours(23));
+        await IngestAsync(Client, Wafers("L0002", Day.AddHours(21), 1.5));
+        var later = (await ReadJsonAsync(await Client.GetAsync("/api/alerts?state=open"))).EnumerateArray().Single().GetProperty("id").GetInt64();
+        Factory.Clock.SetUtcNow(Day.AddHours(31));
+
+        var late = await ReportAsync("?date=2026-12-01&shift=late");
+        Assert.Equal([lateAlert], Items(late, "alerts_raised").Select(a => a.GetProperty("id").GetInt64()));
+        var measured = Items(late, "signals_measured");
+        Assert.Equal([lateAlert, later], measured.Select(m => m.GetProperty("alert_id").GetInt64()));
+        Assert.True(measured[0].GetProperty("raised_in_shift").GetBoolean());
+        Assert.False(measured[1].GetProperty("raised_in_shift").GetBoolean());
+        Assert.Equal(Day.AddHours(23), measured[1].GetProperty("raised_at").GetDateTimeOffset());
+        Assert.Equal(Day.AddHours(21).AddSeconds(4), measured[1].GetProperty("first_measured_at").GetDateTimeOffset()); // wafer 1, last site
+        Assert.Equal(1, measured[1].GetProperty("signal_points").GetInt32());
+
+        var night = await ReportAsync("?date=2026-12-01&shift=night");
+        var raised = Assert.Single(Items(night, "alerts_raised"));
+        Assert.Equal(later, raised.GetProperty("id").GetInt64());
+        Assert.Equal(Day.AddHours(21).AddSeconds(4), raised.GetProperty("first_signal_measured_at").GetDateTimeOffset());
+        Assert.Empty(Items(night, "signals_measured")); // nothing was measured in the night
+    }
+
+    [Fact]
     public async Task NightShift_RunsAcrossMidnight_AndBelongsToTheDateItStartsOn()
     {
         await HistoryAsync();
@@ -172,7 +207,7 @@ public class ShiftReportTests : IntegrationTest
         await HistoryAsync();
         var r = await ReportAsync("?date=2026-12-01&shift=early");
         Assert.Equal(Day.AddHours(6), r.GetProperty("start").GetDateTimeOffset());
-        foreach (var section in new[] { "lots_measured", "alerts_raised", "alert_actions", "alerts_open_at_end", "contexts_out_of_control", "dvt_risks" })
+        foreach (var section in new[] { "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "alerts_open_at_end", "contexts_out_of_control", "dvt_risks" })
         {
             Assert.True(Items(r, section).Count == 0, $"{section} should be empty before 14:00: {r.GetProperty(section)}");
         }
@@ -245,7 +280,7 @@ public class ShiftReportTests : IntegrationTest
             Assert.Equal("header", header[1]);
             return g.Skip(1).Select(r => header.Skip(2).Zip(r.Skip(2)).Where(p => p.First.Length > 0).ToDictionary(p => p.First, p => p.Second)).ToList();
         });
-        Assert.Equal(["shift", "lots_measured", "alerts_raised", "alert_actions", "alerts_open_at_end", "contexts_out_of_control", "dvt_risks", "capability_changes"],
+        Assert.Equal(["shift", "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "alerts_open_at_end", "contexts_out_of_control", "dvt_risks", "capability_changes"],
             records.Select(r => r[0]).Distinct());
 
         Assert.Equal("night", sections["shift"][0]["shift"]);

@@ -34,16 +34,37 @@ async function loadQueue() {
   fill(queue, alerts.length === 0 ? el('p', { class: 'notice' }, 'No alert matches these filters.') : alerts.map(card));
 }
 
+// The excursion's condition as a state mark: word, shape and colour, the same marks as a chart's state.
+function condition(a) {
+  return a.condition === 'back in control'
+    ? el('span', { class: 'state in_control' }, 'back in control')
+    : el('span', { class: 'state out_of_control' }, 'signalling');
+}
+
+const plural = (n, word) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
+// When the signals were measured, and when the alert was raised: they can be days apart.
+function measuredSpan(a) {
+  const first = when(a.first_signal_measured_at);
+  const last = when(a.last_signal_measured_at);
+  return `signals measured ${first}${last !== first ? ` – ${last}` : ''} · raised ${when(a.raised_at)}`;
+}
+
 function card(a) {
+  const rules = a.rules?.length ? a.rules : [a.rule];
   return el('article', { class: `alert-item ${a.state}${a.escalated ? ' escalated' : ''}`, dataset: { alert: a.id, state: a.state } },
     el('div', { class: 'head' },
       el('span', { class: `sev ${a.severity}` }, a.severity),
-      el('span', { class: 'rule' }, `${a.rule}: ${a.rule_text}`),
+      condition(a),
       el('span', {}, `· ${alertStateWords[a.state]}`),
       a.escalated ? el('strong', {}, '· escalated to supervisors') : ''),
-    el('div', {}, el('a', { href: `chart.html?context=${encodeURIComponent(a.context)}` }, a.context_title)),
+    el('div', {}, el('a', { href: `chart.html?context=${encodeURIComponent(a.context)}` }, a.context_title),
+      el('span', { class: 'rule' }, ` · rules ${rules.join(', ')}`)),
+    el('div', { class: 'muted' }, measuredSpan(a)),
     el('div', { class: 'muted' },
-      `last at lot ${a.lot_id}${a.wafer_slot ? ` wafer ${a.wafer_slot}` : ''}${a.chamber ? ` · ${a.chamber}` : ''} · ${a.point_count} point${a.point_count > 1 ? 's' : ''} · raised ${when(a.raised_at)}`,
+      `${plural(a.signal_count ?? a.point_count, 'signal point')} of ${plural(a.point_count, 'point')} · ${plural(a.lot_count ?? 1, 'lot')}`,
+      a.wafer_count ? ` · ${plural(a.wafer_count, 'wafer')}` : '',
+      ` · last signal at lot ${a.lot_id}${a.wafer_slot ? ` wafer ${a.wafer_slot}` : ''}${a.chamber ? ` · ${a.chamber}` : ''}`,
       a.predicted_dvt_sat_mv != null ? ` · predicted ΔVT sat ${withUnit(a.predicted_dvt_sat_mv, 'mV', 1)}` : ''),
     el('button', { type: 'button', class: 'quiet', onclick: () => select(a.id) }, selected === a.id ? 'shown on the right' : 'open'));
 }
@@ -57,7 +78,7 @@ async function select(id) {
   const a = d.alert;
   const typed = $('#action-comment')?.value ?? '';
   const previous = shown.id;
-  shown = { id: a.id, state: a.state, points: a.point_count, escalated: a.escalated };
+  shown = { id: a.id, state: a.state, points: a.point_count, escalated: a.escalated, condition: a.condition };
   const unit = units[a.context] ?? '';
   const message = el('div', { role: 'status', 'aria-live': 'polite' });
   const comment = el('textarea', { id: 'action-comment', 'aria-label': 'comment' });
@@ -89,12 +110,22 @@ async function select(id) {
     }
   }
   fill(detail,
-    el('h2', {}, `Alert ${a.id}: ${a.rule}`),
-    el('p', {}, el('span', { class: `sev ${a.severity}` }, a.severity), ` ${a.rule_text} on `, el('a', { href: `chart.html?context=${encodeURIComponent(a.context)}` }, a.context_title)),
+    el('h2', {}, `Alert ${a.id}: excursion on ${a.context_title}`),
+    el('p', {}, el('span', { class: `sev ${a.severity}` }, a.severity), ' ', condition(a),
+      a.back_in_control_at ? ` since ${when(a.back_in_control_at)}` : '', ' · ', el('a', { href: `chart.html?context=${encodeURIComponent(a.context)}` }, 'open the chart')),
     el('p', {}, `State: ${alertStateWords[a.state]}`, a.acknowledged_by ? ` · acknowledged by ${a.acknowledged_by} ${when(a.acknowledged_at)}` : '',
       a.closed_by ? ` · closed by ${a.closed_by} ${when(a.closed_at)}` : ''),
+    el('p', {}, measuredSpan(a)),
+    el('h3', {}, 'Rules that fired'),
+    el('ul', {}, (a.rules?.length ? a.rules : [a.rule]).map((r, i) => el('li', {}, `${r}: ${(a.rule_texts ?? [a.rule_text])[i] ?? ''}`))),
+    el('h3', {}, `Lots involved (${plural(d.lots.length, 'lot')})`),
+    el('div', { class: 'table-box short' }, el('table', {},
+      el('thead', {}, el('tr', {}, el('th', {}, 'lot'), el('th', {}, 'first measured'), el('th', {}, 'wafers'), el('th', { class: 'num' }, 'signal points'))),
+      el('tbody', {}, d.lots.map((l) => el('tr', {},
+        el('td', {}, el('a', { href: `lot.html?lot=${encodeURIComponent(l.lot_id)}` }, l.lot_id)), el('td', {}, when(l.first_measured_at)),
+        el('td', {}, l.wafers.length ? l.wafers.map((w) => `W${w}`).join(' ') : 'lot mean'), el('td', { class: 'num' }, l.signal_points)))))),
     a.predicted_dvt_sat_mv != null ? el('p', { class: 'caution' }, `Largest predicted ΔVT sat among its points: ${withUnit(a.predicted_dvt_sat_mv, 'mV', 1)}. ${d.caution}`) : '',
-    el('h3', {}, 'Points'),
+    el('h3', {}, `Points (${plural(a.point_count, 'point')}, newest first${d.points.length > 200 ? '; the last 200 shown' : ''})`),
     el('div', { class: 'table-box' }, el('table', {},
       el('thead', {}, el('tr', {}, el('th', {}, 'point'), el('th', {}, 'measured'), el('th', {}, 'lot · wafer'), el('th', {}, 'chamber'), el('th', { class: 'num' }, 'value'), el('th', { class: 'num' }, 'ΔVT sat'), el('th', {}, 'rules'))),
       el('tbody', {}, d.points.slice(-200).reverse().map((p) => el('tr', {},
@@ -114,6 +145,11 @@ async function select(id) {
   for (const b of queue.querySelectorAll('.alert-item button')) b.textContent = 'open';
 }
 
+const historyWords = {
+  raised: 'raised', 'rule-added': 'another rule fired', 'back-in-control': 'back in control', 'signalling-again': 'signalling again',
+  escalated: 'escalated', acknowledged: 'acknowledged', dispositioned: 'dispositioned', closed: 'closed',
+};
+
 // Every event is kept and shown; a run of "point added" events folds into one line that opens to the full list.
 function historyItems(history) {
   const items = [];
@@ -129,7 +165,7 @@ function historyItems(history) {
       i = j;
       continue;
     }
-    items.push(el('li', {}, `${when(h.at)} · ${h.kind} by ${h.by}`, h.comment ? `: ${h.comment}` : '',
+    items.push(el('li', {}, `${when(h.at)} · ${historyWords[h.kind] ?? h.kind} by ${h.by}`, h.comment ? `: ${h.comment}` : '',
       h.steps ? el('ul', {}, h.steps.map((st) => el('li', {}, `${st.done ? '✔ done' : '✘ not done'}: ${st.step}${st.note ? ` (${st.note})` : ''}`))) : ''));
     i++;
   }
@@ -148,7 +184,7 @@ function onEntry(entry) {
     timer = null;
     await loadQueue();
     const a = entry.alert;
-    const changed = a && a.id === selected && (a.state !== shown.state || a.point_count !== shown.points || a.escalated !== shown.escalated);
+    const changed = a && a.id === selected && (a.state !== shown.state || a.point_count !== shown.points || a.escalated !== shown.escalated || a.condition !== shown.condition);
     if (changed) await select(selected);
   }, 300);
 }

@@ -89,7 +89,7 @@ $('#compute').addEventListener('submit', async (event) => {
   try {
     const draft = await sendJson('POST', `/api/contexts/${encodeURIComponent(code)}/limits`, body);
     fill($('#compute-result'), el('div', { class: 'notice' },
-      `Draft v${draft.version}: centre ${withUnit(draft.centre, draft.unit)}, σ ${withUnit(draft.sigma, draft.unit)}, UCL ${withUnit(draft.ucl, draft.unit)}, LCL ${withUnit(draft.lcl, draft.unit)} from ${draft.points_used} points. Review it in the versions below and approve it there.`,
+      `Draft v${draft.version}: centre ${withUnit(draft.centre, draft.unit)}, σ ${withUnit(draft.sigma, draft.unit)}, UCL ${withUnit(draft.ucl, draft.unit)}, LCL ${withUnit(draft.lcl, draft.unit)} from ${draft.points_used} points; baseline check: ${draft.verdict}. Review it in the versions below and approve it there.`,
       draft.warnings.map((w) => el('div', { class: 'problem' }, w))));
     await loadVersions();
   } catch (e) {
@@ -114,19 +114,43 @@ async function loadVersions() {
   const versions = await getJson(`/api/contexts/${encodeURIComponent(code)}/limits`);
   const u = context.unit;
   fill($('#versions tbody'), versions.length === 0
-    ? el('tr', {}, el('td', { colspan: 11 }, 'No limits yet: the chart is in its baseline phase.'))
+    ? el('tr', {}, el('td', { colspan: 12 }, 'No limits yet: the chart is in its baseline phase.'))
     : versions.map((v) => el('tr', { dataset: { version: v.version, status: v.status } },
       el('td', { class: 'num' }, `v${v.version}`), el('td', {}, v.status),
       el('td', { class: 'num' }, withUnit(v.centre, u)), el('td', { class: 'num' }, withUnit(v.sigma, u)),
       el('td', { class: 'num' }, withUnit(v.ucl, u)), el('td', { class: 'num' }, withUnit(v.lcl, u)),
       el('td', {}, `${v.points_used} points, ${when(v.from)} – ${when(v.to)}`, v.excluded.length ? `; excluded ${v.excluded.map((x) => `${x.seq} (${x.reason})`).join(', ')}` : ''),
+      el('td', {}, checkCell(v)),
       el('td', {}, `${v.computed_by}, ${when(v.computed_at)}: ${v.reason}`),
-      el('td', {}, v.approved_by ? `${v.approved_by}, ${when(v.approved_at)}${v.approval_comment ? `: ${v.approval_comment}` : ''}` : '—'),
+      el('td', {}, v.approved_by ? `${v.approved_by}, ${when(v.approved_at)}${v.approval_comment ? `: ${v.approval_comment}` : ''}` : '—',
+        v.justification ? el('div', { class: 'muted' }, `approved although not stable: ${v.justification}`) : ''),
       el('td', {}, v.effective_from ? when(v.effective_from) : '—'),
       el('td', {}, v.status === 'draft' ? approveForm(v) : '')))); 
 }
 
+// The verdict as a state mark (word, shape, colour), its reasons, and the tests behind it.
+const verdictClass = { stable: 'in_control', 'not stable': 'out_of_control', 'not checked': 'baseline' };
+function checkCell(v) {
+  const c = v.check;
+  if (!c) return el('span', { class: `state ${verdictClass['not checked']}` }, 'not checked');
+  const t = c.trend;
+  const trend = t.p_value == null ? `trend test: too few points` : `trend (Mann–Kendall): ${t.direction}, p = ${t.p_value.toPrecision(2)}`;
+  const n = c.normality;
+  const normal = n.p_value == null ? `normality: ${n.note ?? 'not tested'}` : `normality (Anderson–Darling, for information): p = ${n.p_value.toPrecision(2)}`;
+  return el('div', {},
+    el('span', { class: `state ${verdictClass[c.verdict]}` }, c.verdict),
+    c.reasons.length ? el('ul', { class: 'reasons' }, c.reasons.map((r) => el('li', {}, r))) : '',
+    el('details', {}, el('summary', {}, 'tests'),
+      el('div', {}, `${c.subgroups} subgroups (${c.recommended_subgroups} usual)`),
+      el('div', {}, c.rule_signals.length ? `rules on the baseline: ${c.rule_signals.map((r) => `${r.rule} on ${r.points} points`).join(', ')}` : 'no rule fired on the baseline'),
+      el('div', {}, trend), el('div', {}, normal)));
+}
+
 function approveForm(v) {
+  const unstable = v.verdict === 'not stable';
+  const justification = unstable
+    ? el('textarea', { rows: 2, placeholder: 'why approve a baseline that is not stable (required)', 'aria-label': `justification for approving v${v.version}` })
+    : null;
   const comment = el('input', { type: 'text', placeholder: 'review comment', 'aria-label': `comment approving v${v.version}`, size: 18 });
   const effective = el('input', { type: 'datetime-local', 'aria-label': `v${v.version} effective from (local time; empty = now)` });
   const message = el('div', { role: 'status' });
@@ -136,6 +160,7 @@ function approveForm(v) {
       try {
         await sendJson('POST', `/api/contexts/${encodeURIComponent(code)}/limits/${v.version}/approve`, {
           comment: comment.value, effective_from: effective.value ? new Date(effective.value).toISOString() : null,
+          justification: justification ? justification.value : null,
         });
         await load();
       } catch (e) {
@@ -143,7 +168,7 @@ function approveForm(v) {
       }
     },
   }, `Approve v${v.version}`);
-  return el('div', {}, comment, ' ', effective, ' ', button, message);
+  return el('div', {}, justification ?? '', comment, ' ', effective, ' ', button, message);
 }
 
 if (code) await load();

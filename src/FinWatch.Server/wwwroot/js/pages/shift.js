@@ -25,13 +25,14 @@ const chartLink = (code, title) => el('a', { href: `chart.html?context=${encodeU
 const alertLink = (id) => el('a', { href: `alerts.html?alert=${id}&state=` }, `#${id}`);
 const wafer = (slot) => (slot ? ` · W${slot}` : '');
 
-const alertHeaders = [['alert'], ['chart'], ['rule'], ['severity'], ['state at the shift end'], ['raised'], ['lot · wafer'], ['chamber'], ['predicted ΔVT sat', 'num']];
+const alertHeaders = [['alert'], ['chart'], ['rules'], ['severity'], ['state at the shift end'], ['signals measured'], ['raised'], ['lot · wafer'], ['chamber'], ['predicted ΔVT sat', 'num']];
+const span = (first, last) => (when(first) === when(last) ? when(first) : `${when(first)} – ${when(last)}`);
 function alertRow(a) {
   return el('tr', { dataset: { alert: a.id, state: a.state_at_shift_end } },
     el('td', {}, alertLink(a.id)), el('td', {}, chartLink(a.context, a.context_title)),
-    el('td', {}, `${a.rule}: ${a.rule_text}`), el('td', {}, el('span', { class: `sev ${a.severity}` }, a.severity)),
+    el('td', {}, a.rules?.length ? a.rules.join(', ') : `${a.rule}: ${a.rule_text}`), el('td', {}, el('span', { class: `sev ${a.severity}` }, a.severity)),
     el('td', {}, alertStateWords[a.state_at_shift_end] ?? a.state_at_shift_end, a.escalated_by_shift_end ? ' · escalated' : ''),
-    el('td', {}, when(a.raised_at)), el('td', {}, lotLink(a.lot_id), wafer(a.wafer_slot)), el('td', {}, a.chamber ?? '—'),
+    el('td', {}, a.first_signal_measured_at ? span(a.first_signal_measured_at, a.last_signal_measured_at) : '—'), el('td', {}, when(a.raised_at)), el('td', {}, lotLink(a.lot_id), wafer(a.wafer_slot)), el('td', {}, a.chamber ?? '—'),
     el('td', { class: 'num' }, mv(a.predicted_dvt_sat_mv)));
 }
 
@@ -63,6 +64,14 @@ function render(r) {
     'No lot was measured in this shift.'));
 
   fill($('#raised'), table('raised', alertHeaders, r.alerts_raised.map(alertRow), 'No alert was raised in this shift.'));
+
+  fill($('#signals-measured'), table('measured', [['alert'], ['chart'], ['rules'], ['signal points', 'num'], ['lots', 'num'], ['measured'], ['raised']],
+    r.signals_measured.map((m) => el('tr', { dataset: { alert: m.alert_id ?? '' } },
+      el('td', {}, m.alert_id ? alertLink(m.alert_id) : '—'), el('td', {}, chartLink(m.context, m.context_title)), el('td', {}, m.rules.join(', ')),
+      el('td', { class: 'num' }, plural(m.signal_points, 'point')), el('td', { class: 'num' }, plural(m.lots, 'lot')),
+      el('td', {}, span(m.first_measured_at, m.last_measured_at)),
+      el('td', {}, m.raised_at ? `${when(m.raised_at)}${m.raised_in_shift ? '' : ' (another shift)'}` : '—'))),
+    'No point measured in this shift fired a rule.'));
 
   fill($('#actions'), table('actions', [['alert'], ['chart'], ['rule'], ['lot'], ['action'], ['when'], ['by'], ['comment'], ['reaction-plan steps']],
     r.alert_actions.map((a) => el('tr', { dataset: { alert: a.alert_id, action: a.action } },
