@@ -54,18 +54,44 @@ public static class DemoFab
     /// [<paramref name="fromUtc"/>, <paramref name="toUtc"/>) (either end open when null).
     /// </summary>
     /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
-    public static void WriteMeasurementsCsv(TextWriter writer, int seed, DemoScale? scale, DateTime? fromUtc, DateTime? toUtc)
+    public static void WriteMeasurementsCsv(TextWriter writer, int seed, DemoScale? scale, DateTime? fromUtc, DateTime? toUtc) =>
+        WriteMeasurementsCsv(writer, seed, scale, fromUtc, toUtc, TimeSpan.Zero);
+
+    /// <summary>
+    /// As <see cref="WriteMeasurementsCsv(TextWriter, int, DemoScale?, DateTime?, DateTime?)"/> with every written time
+    /// moved by <paramref name="shift"/> (whole seconds), so that the history can end when a demo starts.
+    /// <paramref name="fromUtc"/> and <paramref name="toUtc"/> are in the data set's own time, before the shift.
+    /// </summary>
+    /// <exception cref="ArgumentOutOfRangeException">The scale is outside the documented ranges, or the shift is not whole seconds.</exception>
+    public static void WriteMeasurementsCsv(TextWriter writer, int seed, DemoScale? scale, DateTime? fromUtc, DateTime? toUtc, TimeSpan shift)
     {
         ArgumentNullException.ThrowIfNull(writer);
-        IEnumerable<DemoSiteRow> rows = GenerateRows(seed, scale);
+        WriteCsv(writer, GenerateRows(seed, scale).Where(row => (fromUtc is null || row.MeasuredAtUtc >= fromUtc) && (toUtc is null || row.MeasuredAtUtc < toUtc)), shift);
+    }
+
+    /// <summary>
+    /// Writes the given rows (for example one day of <see cref="GenerateRows"/>) as the same CSV, header first, every
+    /// time moved by <paramref name="shift"/> (whole seconds).
+    /// </summary>
+    /// <exception cref="ArgumentOutOfRangeException">The shift is not whole seconds.</exception>
+    public static void WriteCsv(TextWriter writer, IEnumerable<DemoSiteRow> rows, TimeSpan shift)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        ArgumentNullException.ThrowIfNull(rows);
+        RequireWholeSeconds(shift);
         var csv = new CsvLineWriter(writer);
         csv.WriteHeader();
         foreach (DemoSiteRow row in rows)
         {
-            if ((fromUtc is null || row.MeasuredAtUtc >= fromUtc) && (toUtc is null || row.MeasuredAtUtc < toUtc))
-            {
-                csv.Write(row);
-            }
+            csv.Write(shift == TimeSpan.Zero ? row : row with { MeasuredAtUtc = row.MeasuredAtUtc + shift });
+        }
+    }
+
+    private static void RequireWholeSeconds(TimeSpan shift)
+    {
+        if (shift.Ticks % TimeSpan.TicksPerSecond != 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(shift), shift, "The shift must be whole seconds (the CSV writes whole seconds).");
         }
     }
 
@@ -122,9 +148,14 @@ public static class DemoFab
 
     /// <summary>Streams the electrical tests of <paramref name="product"/> (all products when null) as calibration CSV.</summary>
     /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
-    public static void WriteElectricalTestsCsv(TextWriter writer, string? product = null, int seed = DefaultSeed, DemoScale? scale = null)
+    public static void WriteElectricalTestsCsv(TextWriter writer, string? product = null, int seed = DefaultSeed, DemoScale? scale = null) =>
+        WriteElectricalTestsCsv(writer, product, seed, scale, TimeSpan.Zero);
+
+    /// <summary>As above, every test time moved by <paramref name="shift"/> (whole seconds), as the measurements are.</summary>
+    public static void WriteElectricalTestsCsv(TextWriter writer, string? product, int seed, DemoScale? scale, TimeSpan shift)
     {
         ArgumentNullException.ThrowIfNull(writer);
+        RequireWholeSeconds(shift);
         IEnumerable<DemoElectricalTest> tests = GenerateElectricalTests(seed, scale);
         writer.Write(ElectricalTestCsvHeader);
         writer.Write('\n');
@@ -133,7 +164,7 @@ public static class DemoFab
             if (product is null || t.Product == product)
             {
                 writer.Write(string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                    $"{t.LotId},{t.WaferSlot},{t.Product},{t.VtLinV:0.0000},{t.VtSatV:0.0000},{t.TestedAtUtc:yyyy-MM-ddTHH:mm:ss}Z\n"));
+                    $"{t.LotId},{t.WaferSlot},{t.Product},{t.VtLinV:0.0000},{t.VtSatV:0.0000},{t.TestedAtUtc + shift:yyyy-MM-ddTHH:mm:ss}Z\n"));
             }
         }
     }

@@ -51,39 +51,39 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         var seed = options.Value.Seed;
         var scale = new DemoScale(options.Value.Days, options.Value.LotsPerDay);
 
-        // The first weeks are the baseline the demo's limits are computed from; the rest arrives after the limits are approved.
+        // The invented history is moved so that it ends at the moment the demo starts (whole minutes): this shift and
+        // the last one have data. The first weeks are the baseline the demo's limits are computed from; the rest
+        // arrives after the limits are approved.
+        var shift = TimeSpan.FromMinutes(Math.Floor((clock.GetUtcNow().UtcDateTime - DemoFab.EndUtc).TotalMinutes));
         var start = DemoFab.StartUtc(scale);
         var cut = start + TimeSpan.FromDays(Math.Min(20, Math.Max(1, options.Value.Days / 3)));
-        var baseline = await IngestPartAsync(ingest, seed, scale, null, cut, "baseline", stoppingToken);
+        var baseline = await IngestPartAsync(ingest, seed, scale, null, cut, shift, "baseline", stoppingToken);
         if (baseline is null)
         {
             return;
         }
 
-        await DemoMonitor.SetUpAsync(db, scope.ServiceProvider.GetRequiredService<MonitorEvaluator>(), cut, now, stoppingToken);
-        var rest = await IngestPartAsync(ingest, seed, scale, cut, null, "monitoring", stoppingToken);
+        await DemoMonitor.SetUpAsync(db, scope.ServiceProvider.GetRequiredService<MonitorEvaluator>(), cut + shift, now, stoppingToken);
+        var rest = await IngestDaysAsync(db, ingest, seed, scale, cut, shift, stoppingToken);
         if (rest is null)
         {
             return;
         }
 
-        var closed = await DemoMonitor.CloseStaleAlertsAsync(db, new DateTimeOffset(start + TimeSpan.FromDays(options.Value.Days), TimeSpan.Zero).ToUnixTimeMilliseconds(),
-            TimeSpan.FromDays(Math.Max(1, options.Value.Days / 12)), stoppingToken);
-        LogHistory(closed);
-        LogLoaded(baseline.Inserted + rest.Inserted, (baseline.DurationMs + rest.DurationMs) / 1000);
-        await CalibrateAsync(scope.ServiceProvider.GetRequiredService<CalibrateModel>(), seed, scale, stoppingToken);
+        LogLoaded(baseline.Inserted + (int)rest.Value.Inserted, (baseline.DurationMs + rest.Value.DurationMs) / 1000);
+        await CalibrateAsync(scope.ServiceProvider.GetRequiredService<CalibrateModel>(), seed, scale, shift, stoppingToken);
         State = "loaded";
     }
 
-    private async Task<IngestAccepted?> IngestPartAsync(IngestMeasurements ingest, int seed, DemoScale scale, DateTime? from, DateTime? to, string part,
-        CancellationToken stoppingToken)
+    private async Task<IngestAccepted?> IngestPartAsync(IngestMeasurements ingest, int seed, DemoScale scale, DateTime? from, DateTime? to, TimeSpan shift,
+        string part, CancellationToken stoppingToken)
     {
         var pipe = new Pipe();
         var writer = Task.Run(async () =>
         {
             await using var stream = pipe.Writer.AsStream();
             await using var text = new StreamWriter(stream, new UTF8Encoding(false), 64 * 1024);
-            DemoFab.WriteMeasurementsCsv(text, seed, scale, from, to);
+            DemoFab.WriteMeasurementsCsv(text, seed, scale, from, to, shift);
         }, stoppingToken);
         await using var reader = pipe.Reader.AsStream();
         var outcome = await ingest.RunAsync(CsvRowSource.ReadAsync(reader, stoppingToken), "demo", $"invented demo fab, seed {seed}, {part}", stoppingToken);
@@ -99,8 +99,54 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         return null;
     }
 
+    // The rest of the history a day at a time, as the lots arrived, each day through the normal ingest and followed by
+    // the invented floor's handling of its excursions (DemoMonitor.HandleExcursionsAsync). The generator runs once.
+    private async Task<(long Inserted, double DurationMs)?> IngestDaysAsync(FinWatchDbContext db, IngestMeasurements ingest, int seed, DemoScale scale,
+        DateTime cut, TimeSpan shift, CancellationToken stoppingToken)
+    {
+        long inserted = 0;
+        double durationMs = 0;
+        var day = new List<DemoSiteRow>();
+        foreach (var row in DemoFab.GenerateRows(seed, scale).Where(r => r.MeasuredAtUtc >= cut).Select(r => (DemoSiteRow?)r).Append(null))
+        {
+            if (day.Count > 0 && (row is not { } next || next.MeasuredAtUtc.Date != day[0].MeasuredAtUtc.Date))
+            {
+                using var buffer = new MemoryStream();
+                await using (var text = new StreamWriter(buffer, new UTF8Encoding(false), 64 * 1024, leaveOpen: true))
+                {
+                    DemoFab.WriteCsv(text, day, shift);
+                }
+
+                buffer.Position = 0;
+                var outcome = await ingest.RunAsync(CsvRowSource.ReadAsync(buffer, stoppingToken), "demo",
+                    $"invented demo fab, seed {seed}, {day[0].MeasuredAtUtc:yyyy-MM-dd}", stoppingToken);
+                if (outcome.Accepted is not { } a)
+                {
+                    State = "failed";
+                    LogFailed(outcome.Rejected!.ErrorCount, string.Join("; ", outcome.Rejected.Errors.Take(3).Select(e => $"row {e.Row} {e.Column}: {e.Reason}")));
+                    return null;
+                }
+
+                inserted += a.Inserted;
+                durationMs += a.DurationMs;
+                var dayEnd = new DateTimeOffset(Min(day[0].MeasuredAtUtc.Date.AddDays(1), DemoFab.EndUtc) + shift, TimeSpan.Zero);
+                await DemoMonitor.HandleExcursionsAsync(db, dayEnd.ToUnixTimeMilliseconds(), stoppingToken);
+                day.Clear();
+            }
+
+            if (row is { } r)
+            {
+                day.Add(r);
+            }
+        }
+
+        return (inserted, durationMs);
+    }
+
+    private static DateTime Min(DateTime a, DateTime b) => a < b ? a : b;
+
     // The invented electrical tests go through the normal calibration, one product at a time, as an engineer's upload would.
-    private async Task CalibrateAsync(CalibrateModel calibrate, int seed, DemoScale scale, CancellationToken cancellationToken)
+    private async Task CalibrateAsync(CalibrateModel calibrate, int seed, DemoScale scale, TimeSpan shift, CancellationToken cancellationToken)
     {
         foreach (var p in DemoFab.Products)
         {
@@ -113,7 +159,7 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
             using var buffer = new MemoryStream();
             await using (var text = new StreamWriter(buffer, new UTF8Encoding(false), 64 * 1024, leaveOpen: true))
             {
-                DemoFab.WriteElectricalTestsCsv(text, p.Code, seed, scale);
+                DemoFab.WriteElectricalTestsCsv(text, p.Code, seed, scale, shift);
             }
 
             buffer.Position = 0;
@@ -153,8 +199,6 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
     [LoggerMessage(Level = LogLevel.Information, Message = "Demo: loading the invented demo fab (about 650,000 site rows; this takes a little while)")]
     private partial void LogLoading();
 
-    [LoggerMessage(Level = LogLevel.Information, Message = "Demo: {Closed} older alerts given an invented, closed history; the recent ones stay open")]
-    private partial void LogHistory(int closed);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Demo: loaded {Rows} site rows in {Seconds:0.0} s")]
     private partial void LogLoaded(int rows, double seconds);

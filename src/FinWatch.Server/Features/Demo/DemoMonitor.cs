@@ -1,6 +1,7 @@
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Monitor;
+using FinWatch.Statistics.Stability;
 using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Demo;
@@ -82,18 +83,22 @@ public static class DemoMonitor
         foreach (var context in await db.ChartContexts.AsNoTracking().ToListAsync(cancellationToken))
         {
             var points = await db.ChartPoints.AsNoTracking().Where(x => x.ContextId == context.Id).OrderBy(x => x.Seq).ToListAsync(cancellationToken);
-            var (centre, sigma) = BaselineLimits.Estimate(context, points);
-            if (sigma is not > 0)
+            var limit = StablestBaseline(context, points, effective);
+            if (limit is null)
             {
                 continue; // too little baseline in a small demo window: the context stays in its baseline phase
             }
 
-            var limit = BaselineLimits.Draft(context, 1, centre, sigma.Value, points, [], DemoEngineer, effective,
-                "demo: baseline of the invented fab's first weeks");
             limit.Status = "approved";
-            limit.ApprovedBy = DemoEngineer;
+            limit.ApprovedBy = DemoApprover;
             limit.ApprovedAtMs = effective;
             limit.ApprovalComment = "demo: reviewed and approved at the end of the baseline (invented history)";
+            if (limit.Verdict != BaselineLimits.Stable)
+            {
+                limit.Justification = "demo: no window of the invented baseline passes the check; approved so that the chamber is watched, "
+                    + "to be revised after the next maintenance (invented)";
+            }
+
             limit.EffectiveFromMs = Math.Max(effective, limit.ToMs);
             db.LimitVersions.Add(limit);
         }
@@ -103,54 +108,120 @@ public static class DemoMonitor
 
     private const string DemoSupervisor = "shift supervisor S-2 (invented)";
 
+    /// <summary>The second engineer who approves the demo's limits (invented).</summary>
+    private const string DemoApprover = "process engineer P-4 (invented)";
+
     /// <summary>
-    /// The demo's invented past: the whole history is ingested at once, so every alert would otherwise be open and
-    /// dated today. Alerts whose last point is older than <paramref name="quiet"/> before the end of the data are given
-    /// the times of their points and an invented, complete lifecycle (acknowledged, every reaction-plan step reported,
-    /// closed with "no assignable cause" or the planted cause), as a shift would have left them; the recent ones stay open
-    /// for the floor to see. Only the demo does this; the product never rewrites an alert.
+    /// The draft an engineer would approve, chosen with the baseline check itself: the longest window of the baseline
+    /// points that ends at the cut and passes the check (all of them, then 5 subgroups fewer at a time down to the
+    /// usual minimum); when none passes, the window with the fewest reasons, which then needs a justification.
     /// </summary>
-    public static async Task<int> CloseStaleAlertsAsync(FinWatchDbContext db, long endMs, TimeSpan quiet, CancellationToken cancellationToken)
+    private static LimitVersion? StablestBaseline(ChartContext context, List<ChartPoint> points, long effective)
     {
-        var cutoff = endMs - (long)quiet.TotalMilliseconds;
-        IQueryable<ChartPoint> points = db.ChartPoints; // not AsNoTracking: inside the alert query it would untrack the alerts too
-        var stale = await db.Alerts.Where(a => a.State == AlertStates.Open && points.Any(p => p.Id == a.LastPointId && p.MeasuredAtMs < cutoff))
-            .ToListAsync(cancellationToken);
-        var contexts = await db.ChartContexts.AsNoTracking().ToDictionaryAsync(c => c.Id, cancellationToken);
-        foreach (var a in stale)
+        LimitVersion? best = null;
+        var bestReasons = int.MaxValue;
+        for (var n = points.Count; n >= Math.Min(points.Count, BaselineCheck.RecommendedSubgroups) && n > 0; n -= 5)
         {
-            var first = await points.Where(p => p.Id == a.FirstPointId).Select(p => p.MeasuredAtMs).SingleAsync(cancellationToken);
-            var last = await points.Where(p => p.Id == a.LastPointId).Select(p => p.MeasuredAtMs).SingleAsync(cancellationToken);
-            var raised = first + 60_000;
-            var events = await db.AlertEvents.Where(e => e.AlertId == a.Id).OrderBy(e => e.Id).ToListAsync(cancellationToken);
-            var times = await points.Where(p => events.Select(e => e.PointId).Contains(p.Id)).ToDictionaryAsync(p => p.Id, p => p.MeasuredAtMs, cancellationToken);
-            foreach (var e in events)
+            var used = points.GetRange(points.Count - n, n);
+            var (centre, sigma) = BaselineLimits.Estimate(context, used);
+            if (sigma is not > 0)
             {
-                e.AtMs = e.PointId is { } id && times.TryGetValue(id, out var t) ? t + 60_000 : raised;
+                continue;
             }
 
-            var acknowledged = raised + (35 * 60_000);
-            var done = Math.Max(last + (2 * 3_600_000), acknowledged + 3_600_000);
+            var draft = BaselineLimits.Draft(context, 1, centre, sigma.Value, used, [], DemoEngineer, effective,
+                $"demo: the last {n} lots of the invented baseline, chosen with the baseline check");
+            var reasons = BaselineLimits.Check(context, draft, used).Reasons.Count;
+            if (reasons < bestReasons)
+            {
+                (best, bestReasons) = (draft, reasons);
+            }
+
+            if (reasons == 0)
+            {
+                break;
+            }
+        }
+
+        return best;
+    }
+
+    /// <summary>Minutes after a point was measured that the invented history says its lot was uploaded and judged.</summary>
+    private const long UploadDelayMs = 10 * 60_000;
+
+    /// <summary>
+    /// The invented floor at the end of one day of the demo's history. The history is ingested a day at a time, as the
+    /// lots arrived, so the monitor's own times (raised, rule added, back in control) would all be the moment the demo
+    /// started: they are set to when each point's lot was uploaded (its measured time plus ten minutes). Then the
+    /// invented shift handles its excursions as a floor would: an alert is acknowledged 35 minutes after it was
+    /// raised; once it is back in control, its reaction plan is reported an hour later and it is closed. An excursion
+    /// that is still signalling at the end of the history stays as it is, for the floor to see. Only the demo does
+    /// this; the product never rewrites an alert.
+    /// </summary>
+    public static async Task HandleExcursionsAsync(FinWatchDbContext db, long dayEndMs, CancellationToken cancellationToken)
+    {
+        var alerts = await db.Alerts.Where(a => a.State != AlertStates.Closed).ToListAsync(cancellationToken);
+        var contexts = await db.ChartContexts.AsNoTracking().ToDictionaryAsync(c => c.Id, cancellationToken);
+        foreach (var a in alerts)
+        {
+            await DateMachineStepsAsync(db, a, dayEndMs, cancellationToken);
+            var acknowledged = a.RaisedAtMs + (35 * 60_000);
+            if (a.AcknowledgedAtMs is null && acknowledged < dayEndMs)
+            {
+                a.State = AlertStates.Acknowledged;
+                a.AcknowledgedBy = DemoSupervisor;
+                a.AcknowledgedAtMs = acknowledged;
+                db.AlertEvents.Add(new AlertEvent { AlertId = a.Id, Kind = AlertStates.Acknowledged, AtMs = acknowledged, By = DemoSupervisor, Comment = "seen on the floor board; lot held (invented)" });
+            }
+
+            if (a.BackInControlAtMs is not { } back || a.AcknowledgedAtMs is null || back + (80 * 60_000) >= dayEndMs)
+            {
+                continue;
+            }
+
+            var done = Math.Max(back + 3_600_000, a.AcknowledgedAtMs.Value + 600_000);
             var plan = contexts[a.ContextId].ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries);
-            var steps = plan.Select((step, i) => new StepTaken(step, i < 2, i < 2 ? "done; nothing abnormal found (invented)" : "not needed: cause not confirmed")).ToList();
+            var steps = plan.Select((step, i) => new StepTaken(step, i < 2, i < 2 ? "done (invented)" : "not needed: back in control")).ToList();
             db.AlertEvents.AddRange(
-                new AlertEvent { AlertId = a.Id, Kind = AlertStates.Acknowledged, AtMs = acknowledged, By = DemoSupervisor, Comment = "seen on the floor board; lot held (invented)" },
                 new AlertEvent
                 {
-                    AlertId = a.Id, Kind = AlertStates.Dispositioned, AtMs = done, By = DemoSupervisor, Comment = "re-measure agrees with the first reading; no assignable cause (invented)",
+                    AlertId = a.Id, Kind = AlertStates.Dispositioned, AtMs = done, By = DemoSupervisor, Comment = "lots re-measured; the chart came back in control (invented)",
                     StepsJson = System.Text.Json.JsonSerializer.Serialize(steps, FeedLog.Json),
                 },
-                new AlertEvent { AlertId = a.Id, Kind = AlertStates.Closed, AtMs = done + 600_000, By = DemoEngineer, Comment = "false alarm within the expected rate of the rules; lot released (invented)" });
-            a.RaisedAtMs = raised;
+                new AlertEvent { AlertId = a.Id, Kind = AlertStates.Closed, AtMs = done + 600_000, By = DemoEngineer, Comment = "back in control; lots released (invented)" });
             a.State = AlertStates.Closed;
-            a.AcknowledgedBy = DemoSupervisor;
-            a.AcknowledgedAtMs = acknowledged;
             a.ClosedBy = DemoEngineer;
             a.ClosedAtMs = done + 600_000;
             a.UpdatedAtMs = done + 600_000;
         }
 
         await db.SaveChangesAsync(cancellationToken);
-        return stale.Count;
+    }
+
+    // The monitor's own steps of the day happened when their points' lots were uploaded, not when the demo started.
+    private static async Task DateMachineStepsAsync(FinWatchDbContext db, Alert a, long dayEndMs, CancellationToken cancellationToken)
+    {
+        var events = await db.AlertEvents.Where(e => e.AlertId == a.Id && e.By == "FinWatch" && e.AtMs > dayEndMs).ToListAsync(cancellationToken);
+        var ids = events.Select(e => e.PointId).OfType<long>().Append(a.LastPointId).ToList();
+        var measured = await db.ChartPoints.AsNoTracking().Where(p => ids.Contains(p.Id)).ToDictionaryAsync(p => p.Id, p => p.MeasuredAtMs, cancellationToken);
+        foreach (var e in events)
+        {
+            e.AtMs = e.PointId is { } id && measured.TryGetValue(id, out var t) ? t + UploadDelayMs : a.LastSignalAtMs + UploadDelayMs;
+        }
+
+        if (a.RaisedAtMs > dayEndMs)
+        {
+            a.RaisedAtMs = a.FirstSignalAtMs + UploadDelayMs;
+        }
+
+        if (a.BackInControlAtMs > dayEndMs)
+        {
+            a.BackInControlAtMs = events.Where(e => e.Kind == "back-in-control").Select(e => (long?)e.AtMs).LastOrDefault() ?? a.BackInControlAtMs;
+        }
+
+        if (a.UpdatedAtMs > dayEndMs)
+        {
+            a.UpdatedAtMs = measured.TryGetValue(a.LastPointId, out var last) ? last + UploadDelayMs : a.UpdatedAtMs;
+        }
     }
 }

@@ -38,9 +38,11 @@ public class DemoLoaderTests
         var products = await factory.QueryAsync(db => db.Products.Include(p => p.Specs).ToListAsync());
         Assert.Equal(2, products.Count);
         Assert.All(products, p => Assert.NotEmpty(p.Specs));
-        // Two batches: the baseline weeks, then the rest after the demo contexts' limits are approved.
-        var batches = await factory.QueryAsync(db => db.IngestBatches.ToListAsync());
-        Assert.Equal(2, batches.Count);
+        // The baseline first (one batch: the first of the 4 days), then the rest a day at a time after the demo contexts'
+        // limits are approved: the 3 other days.
+        var batches = await factory.QueryAsync(db => db.IngestBatches.OrderBy(b => b.Id).ToListAsync());
+        Assert.Equal(4, batches.Count);
+        Assert.EndsWith("baseline", batches[0].Label, StringComparison.Ordinal);
         Assert.All(batches, b => Assert.Equal("demo", b.Source));
         Assert.True(batches.Sum(b => b.Inserted) > 1000);
         Assert.Equal(batches.Sum(b => b.Inserted), (await factory.CountsAsync()).Measurements);
@@ -51,6 +53,11 @@ public class DemoLoaderTests
 
         var response = await client.GetAsync($"/api/series?product={products[0].Code}&step=FIN-PROFILE&parameter=taper_deg&level=wafer");
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+
+        // The invented history ends when the demo starts (whole minutes before the clock), so this shift has data.
+        var last = await factory.QueryAsync(db => db.Measurements.MaxAsync(m => m.MeasuredAtMs));
+        var now = FinWatchAppFactory.Now.ToUnixTimeMilliseconds();
+        Assert.InRange(now - last, 0, 6 * 3_600_000); // the generator's last lot of the window ends within hours of its end
     }
 
     [Fact]

@@ -30,7 +30,7 @@ const span = (first, last) => (when(first) === when(last) ? when(first) : `${whe
 function alertRow(a) {
   return el('tr', { dataset: { alert: a.id, state: a.state_at_shift_end } },
     el('td', {}, alertLink(a.id)), el('td', {}, chartLink(a.context, a.context_title)),
-    el('td', {}, a.rules?.length ? a.rules.join(', ') : `${a.rule}: ${a.rule_text}`), el('td', {}, el('span', { class: `sev ${a.severity}` }, a.severity)),
+    el('td', {}, `${a.rule}: ${a.rule_text}`, (a.rules ?? []).length > 1 ? `; also ${a.rules.filter((r) => r !== a.rule).join(', ')}` : ''), el('td', {}, el('span', { class: `sev ${a.severity}` }, a.severity)),
     el('td', {}, alertStateWords[a.state_at_shift_end] ?? a.state_at_shift_end, a.escalated_by_shift_end ? ' · escalated' : ''),
     el('td', {}, a.first_signal_measured_at ? span(a.first_signal_measured_at, a.last_signal_measured_at) : '—'), el('td', {}, when(a.raised_at)), el('td', {}, lotLink(a.lot_id), wafer(a.wafer_slot)), el('td', {}, a.chamber ?? '—'),
     el('td', { class: 'num' }, mv(a.predicted_dvt_sat_mv)));
