@@ -1,6 +1,5 @@
 using FinWatch.Physics;
 using FinWatch.Testing;
-using Microsoft.Data.Sqlite;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore.Infrastructure;
 using Microsoft.EntityFrameworkCore.Migrations;
@@ -12,35 +11,20 @@ namespace FinWatch.Data.Tests;
 /// ("TriGate", "DoubleGate") read back as the same gate configuration after it, stored as the API's spelling; Down
 /// writes the old names again.
 /// </summary>
-public sealed class GateFacesMigrationTests : IDisposable
+public sealed class GateFacesMigrationTests : MigrationTest
 {
     private const string MigrationName = "GateFacesText";
 
-    private readonly SqliteConnection connection = new("Data Source=:memory:");
-
-    public GateFacesMigrationTests() => connection.Open();
-
     [Fact]
-    public void Sqlite_ProductsStoredWithEnumNames_ReadBackAfterTheMigrationAndRevertOnDown()
-    {
-        using var db = new SqliteFinWatchDbContext(new DbContextOptionsBuilder<SqliteFinWatchDbContext>().UseSqlite(connection).Options);
-        MigrateAcrossAndBack(db);
-    }
+    public void Sqlite_ProductsStoredWithEnumNames_ReadBackAfterTheMigrationAndRevertOnDown() => OnSqlite(MigrateAcrossAndBack);
 
     [ScaleOutFact]
-    public async Task Postgres_ProductsStoredWithEnumNames_ReadBackAfterTheMigrationAndRevertOnDown()
-    {
-        await using var database = await PostgresTestDatabase.CreateAsync();
-        await using (var db = new PostgresFinWatchDbContext(new DbContextOptionsBuilder<PostgresFinWatchDbContext>().UseNpgsql(database.ConnectionString).Options))
-        {
-            MigrateAcrossAndBack(db);
-        }
-    }
+    public Task Postgres_ProductsStoredWithEnumNames_ReadBackAfterTheMigrationAndRevertOnDown() => OnPostgresAsync(MigrateAcrossAndBack);
 
     private static void MigrateAcrossAndBack(FinWatchDbContext db)
     {
         var migrator = db.GetService<IMigrator>();
-        var before = MigrationBefore(db);
+        var (before, _) = Around(db, MigrationName);
         migrator.Migrate(before);
         InsertProduct(db, "TRN-OLD", "TriGate");
         InsertProduct(db, "BRM-OLD", "DoubleGate");
@@ -56,15 +40,6 @@ public sealed class GateFacesMigrationTests : IDisposable
         Assert.Equal(["DoubleGate", "TriGate"], StoredText(db));
     }
 
-    /// <summary>The id of the migration just before GateFacesText in the provider's set.</summary>
-    private static string MigrationBefore(FinWatchDbContext db)
-    {
-        var ids = db.GetService<IMigrationsAssembly>().Migrations.Keys.Order(StringComparer.Ordinal).ToList();
-        var index = ids.FindIndex(id => id.EndsWith("_" + MigrationName, StringComparison.Ordinal));
-        Assert.True(index > 0, $"no migration named {MigrationName} after a first migration");
-        return ids[index - 1];
-    }
-
     // Plain SQL: the model's converter cannot write the old names, and the columns are the same on both providers.
     private static void InsertProduct(FinWatchDbContext db, string code, string storedFaces) => db.Database.ExecuteSql(
         $"""
@@ -76,6 +51,4 @@ public sealed class GateFacesMigrationTests : IDisposable
     /// <summary>The column's raw text, ordered by product code (BRM-OLD, TRN-OLD).</summary>
     private static List<string> StoredText(FinWatchDbContext db) =>
         [.. db.Database.SqlQueryRaw<string>("SELECT gate_faces AS \"Value\" FROM products ORDER BY code")];
-
-    public void Dispose() => connection.Dispose();
 }
