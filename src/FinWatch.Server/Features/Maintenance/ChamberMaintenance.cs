@@ -170,8 +170,7 @@ public static class ChamberMaintenance
         var r = WelchTest.Compare(before, after);
         double? p = double.IsNaN(r.PValue) ? null : r.PValue;
         var suggest = p < Alpha;
-        var moved = string.Create(CultureInfo.InvariantCulture,
-            $"mean {Format(r.FirstMean, unit)} in the {r.FirstCount} points before {what}, {Format(r.SecondMean, unit)} in the {r.SecondCount} after (Welch's t-test p = {p?.ToString("G3", CultureInfo.InvariantCulture) ?? "not defined: no spread"})");
+        var moved = $"mean {Format(r.FirstMean, unit)} in the {r.FirstCount} points before {what}, {Format(r.SecondMean, unit)} in the {r.SecondCount} after (Welch's t-test, {Probability(p)})";
         var message = suggest
             ? $"The mean moved at the maintenance: {moved}. Consider computing new limits from the points after it."
             : $"No shift at the maintenance: {moved}; no new baseline is suggested.";
@@ -182,8 +181,16 @@ public static class ChamberMaintenance
     /// <summary>The kind in the fab's words ("wet clean").</summary>
     public static string Words(string kind) => kind.Replace('_', ' ');
 
+    // As the pages write numbers: more decimals for small magnitudes.
     private static string Format(double value, string unit) =>
-        string.Create(CultureInfo.InvariantCulture, $"{value:G5} {unit}").TrimEnd();
+        (value.ToString(Math.Abs(value) >= 100 ? "0.0" : Math.Abs(value) >= 10 ? "0.00" : "0.000", CultureInfo.InvariantCulture) + " " + unit).TrimEnd();
+
+    private static string Probability(double? p) => p switch
+    {
+        null => "p not defined: neither side varies",
+        < 0.0001 => "p < 0.0001",
+        _ => string.Create(CultureInfo.InvariantCulture, $"p = {p:0.####}"),
+    };
 
     private static double? Mean(double[] values) => values.Length == 0 ? null : values.Average();
 
