@@ -470,6 +470,28 @@ VALUES ('20261205051840_GateFacesText', '10.0.15');
 COMMIT;
 
 BEGIN TRANSACTION;
+CREATE TABLE "maintenance_events" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_maintenance_events" PRIMARY KEY AUTOINCREMENT,
+    "chamber" TEXT NOT NULL,
+    "kind" TEXT NOT NULL,
+    "occurred_at_ms" INTEGER NOT NULL,
+    "performed_by" TEXT NOT NULL,
+    "note" TEXT NOT NULL,
+    "recorded_by" TEXT NOT NULL,
+    "recorded_at_ms" INTEGER NOT NULL,
+    "source" TEXT NOT NULL
+);
+
+CREATE INDEX "IX_maintenance_events_chamber_occurred_at_ms" ON "maintenance_events" ("chamber", "occurred_at_ms");
+
+CREATE INDEX "IX_maintenance_events_occurred_at_ms" ON "maintenance_events" ("occurred_at_ms");
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261205083213_AddMaintenanceEvents', '10.0.15');
+
+COMMIT;
+
+BEGIN TRANSACTION;
 DROP INDEX "IX_alerts_context_id_rule_state";
 
 ALTER TABLE "limit_versions" ADD "check_json" TEXT NULL;

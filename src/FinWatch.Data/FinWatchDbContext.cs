@@ -18,6 +18,7 @@ public abstract class FinWatchDbContext(DbContextOptions options) : IdentityUser
     public DbSet<IngestBatch> IngestBatches => Set<IngestBatch>();
     public DbSet<LotStep> LotSteps => Set<LotStep>();
     public DbSet<LotChamber> LotChambers => Set<LotChamber>();
+    public DbSet<MaintenanceEvent> MaintenanceEvents => Set<MaintenanceEvent>();
     public DbSet<ModelStamp> ModelStamps => Set<ModelStamp>();
     public DbSet<ModelParameterSet> ModelParameterSets => Set<ModelParameterSet>();
     public DbSet<ElectricalTest> ElectricalTests => Set<ElectricalTest>();

@@ -2,10 +2,7 @@ using FinWatch.Server.Features;
 using FinWatch.Server.Infrastructure;
 
 // A command of the executable (`backup <file>`, `help`) runs instead of the web server.
-if (await ServerCommands.TryRunAsync(args) is { } exitCode)
-{
-    return exitCode;
-}
+if (await ServerCommands.TryRunAsync(args) is { } exitCode) return exitCode;
 
 var builder = WebApplication.CreateBuilder(args);
 builder.AddFinWatchHost();
@@ -23,6 +20,7 @@ var features = new FeatureList(builder, args)
     .Add<ModelFeature>()
     .Add<CalibrationsFeature>()
     .Add<MonitorFeature>()
+    .Add<MaintenanceFeature>()
     .Add<ReportsFeature>();
 var app = builder.Build();
 // The database is migrated first; a feature's command (`admin add`, `keys add`) may then run instead of the server.

@@ -1,5 +1,6 @@
 using FinWatch.Testing;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.Infrastructure;
 using Microsoft.EntityFrameworkCore.Migrations;
 
 namespace FinWatch.Data.Tests;
@@ -9,16 +10,20 @@ namespace FinWatch.Data.Tests;
 /// readable: every old field and history entry stays, and the excursion fields are filled from them (rules, signal count,
 /// first and last signal, the points, lots and wafers over the chart positions they span). Down keeps the old fields.
 /// </summary>
-public sealed class ExcursionMigrationTests() : MigrationAcross("ExcursionAlertsAndBaselineCheck")
+public sealed class ExcursionMigrationTests : MigrationTest
 {
+    private const string MigrationName = "ExcursionAlertsAndBaselineCheck";
+
     [Fact]
-    public void Sqlite_AlertsStoredPerRule_KeepTheirHistoryAndGainTheirExcursionFields() => OnSqlite();
+    public void Sqlite_AlertsStoredPerRule_KeepTheirHistoryAndGainTheirExcursionFields() => OnSqlite(MigrateAcrossAndBack);
 
     [ScaleOutFact]
-    public Task Postgres_AlertsStoredPerRule_KeepTheirHistoryAndGainTheirExcursionFields() => OnPostgresAsync();
+    public Task Postgres_AlertsStoredPerRule_KeepTheirHistoryAndGainTheirExcursionFields() => OnPostgresAsync(MigrateAcrossAndBack);
 
-    protected override void Across(FinWatchDbContext db, IMigrator migrator, string before)
+    private static void MigrateAcrossAndBack(FinWatchDbContext db)
     {
+        var migrator = db.GetService<IMigrator>();
+        var (before, _) = Around(db, MigrationName);
         migrator.Migrate(before);
         StoreTheOldWay(db);
 

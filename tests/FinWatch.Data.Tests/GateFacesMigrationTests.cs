@@ -1,6 +1,7 @@
 using FinWatch.Physics;
 using FinWatch.Testing;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.Infrastructure;
 using Microsoft.EntityFrameworkCore.Migrations;
 
 namespace FinWatch.Data.Tests;
@@ -10,16 +11,20 @@ namespace FinWatch.Data.Tests;
 /// ("TriGate", "DoubleGate") read back as the same gate configuration after it, stored as the API's spelling; Down
 /// writes the old names again.
 /// </summary>
-public sealed class GateFacesMigrationTests() : MigrationAcross("GateFacesText")
+public sealed class GateFacesMigrationTests : MigrationTest
 {
+    private const string MigrationName = "GateFacesText";
+
     [Fact]
-    public void Sqlite_ProductsStoredWithEnumNames_ReadBackAfterTheMigrationAndRevertOnDown() => OnSqlite();
+    public void Sqlite_ProductsStoredWithEnumNames_ReadBackAfterTheMigrationAndRevertOnDown() => OnSqlite(MigrateAcrossAndBack);
 
     [ScaleOutFact]
-    public Task Postgres_ProductsStoredWithEnumNames_ReadBackAfterTheMigrationAndRevertOnDown() => OnPostgresAsync();
+    public Task Postgres_ProductsStoredWithEnumNames_ReadBackAfterTheMigrationAndRevertOnDown() => OnPostgresAsync(MigrateAcrossAndBack);
 
-    protected override void Across(FinWatchDbContext db, IMigrator migrator, string before)
+    private static void MigrateAcrossAndBack(FinWatchDbContext db)
     {
+        var migrator = db.GetService<IMigrator>();
+        var (before, _) = Around(db, MigrationName);
         migrator.Migrate(before);
         InsertProduct(db, "TRN-OLD", "TriGate");
         InsertProduct(db, "BRM-OLD", "DoubleGate");

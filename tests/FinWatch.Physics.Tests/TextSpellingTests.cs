@@ -54,6 +54,21 @@ public sealed class TextSpellingTests
         Assert.False(ConfinementSurfaceText.Spelling.TryParse("111", out _));
     }
 
+    [Theory]
+    [InlineData(MaintenanceKind.WetClean, "wet_clean")]
+    [InlineData(MaintenanceKind.PartReplacement, "part_replacement")]
+    [InlineData(MaintenanceKind.Seasoning, "seasoning")]
+    [InlineData(MaintenanceKind.PreventiveMaintenance, "preventive_maintenance")]
+    [InlineData(MaintenanceKind.Repair, "repair")]
+    [InlineData(MaintenanceKind.Other, "other")]
+    public void MaintenanceKindText_EachValue_RoundTripsThroughItsSpelling(MaintenanceKind kind, string text)
+    {
+        Assert.Equal(text, MaintenanceKindText.ToText(kind));
+        Assert.Equal(kind, MaintenanceKindText.Spelling.Parse(text));
+        Assert.Contains(text, MaintenanceKindText.Spelling.Described, StringComparison.Ordinal);
+        Assert.False(MaintenanceKindText.Spelling.TryParse(text.ToUpperInvariant(), out _)); // one spelling, case-sensitive
+    }
+
     [Fact]
     public void TextSpelling_ValueMissingOrTextRepeated_Throws()
     {

@@ -5,6 +5,31 @@ namespace FinWatch.Server.Infrastructure;
 /// <summary>The times of the files FinWatch reads (measured at, tested at): ISO 8601 with a zone.</summary>
 public static class ZonedTime
 {
+    /// <summary>Why a text is refused as a time: its form.</summary>
+    public const string NotZoned = "not an ISO 8601 time with a zone, such as 2026-11-20T09:30:00Z";
+
+    private static readonly DateTimeOffset Earliest = new(2000, 1, 1, 0, 0, 0, TimeSpan.Zero);
+
+    /// <summary>
+    /// Why <paramref name="text"/> is not the time of something that has happened (an ISO 8601 time with a zone, from
+    /// 2000 up to five minutes past the server clock), or null when it is; <paramref name="at"/> is then that time in UTC.
+    /// </summary>
+    public static string? ProblemWithPastTime(string text, DateTimeOffset now, out DateTimeOffset at)
+    {
+        if (!TryParse(text, out at))
+        {
+            return NotZoned;
+        }
+
+        if (at > now.AddMinutes(5) || at < Earliest)
+        {
+            return $"the time lies in the future (server clock {now:u}) or before 2000";
+        }
+
+        at = at.ToUniversalTime();
+        return null;
+    }
+
     /// <summary>An ISO 8601 time with a zone ("Z" or an offset); a date alone or a local time is refused as ambiguous.</summary>
     public static bool TryParse(string value, out DateTimeOffset at) =>
         TryParseUtcFast(value, out at)

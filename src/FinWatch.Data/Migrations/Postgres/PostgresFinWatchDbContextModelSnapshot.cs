@@ -933,6 +933,68 @@ namespace FinWatch.Data.Migrations.Postgres
                     b.ToTable("lot_steps", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.MaintenanceEvent", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("bigint")
+                        .HasColumnName("id");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<long>("Id"));
+
+                    b.Property<string>("Chamber")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("chamber");
+
+                    b.Property<string>("Kind")
+                        .IsRequired()
+                        .HasMaxLength(32)
+                        .HasColumnType("character varying(32)")
+                        .HasColumnName("kind");
+
+                    b.Property<string>("Note")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("character varying(2000)")
+                        .HasColumnName("note");
+
+                    b.Property<long>("OccurredAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("occurred_at_ms");
+
+                    b.Property<string>("PerformedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("performed_by");
+
+                    b.Property<long>("RecordedAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("recorded_at_ms");
+
+                    b.Property<string>("RecordedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("recorded_by");
+
+                    b.Property<string>("Source")
+                        .IsRequired()
+                        .HasMaxLength(260)
+                        .HasColumnType("character varying(260)")
+                        .HasColumnName("source");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("OccurredAtMs");
+
+                    b.HasIndex("Chamber", "OccurredAtMs");
+
+                    b.ToTable("maintenance_events", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.Measurement", b =>
                 {
                     b.Property<long>("Id")

@@ -908,6 +908,66 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.ToTable("lot_steps", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.MaintenanceEvent", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<string>("Chamber")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("chamber");
+
+                    b.Property<string>("Kind")
+                        .IsRequired()
+                        .HasMaxLength(32)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("kind");
+
+                    b.Property<string>("Note")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("note");
+
+                    b.Property<long>("OccurredAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("occurred_at_ms");
+
+                    b.Property<string>("PerformedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("performed_by");
+
+                    b.Property<long>("RecordedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("recorded_at_ms");
+
+                    b.Property<string>("RecordedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("recorded_by");
+
+                    b.Property<string>("Source")
+                        .IsRequired()
+                        .HasMaxLength(260)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("source");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("OccurredAtMs");
+
+                    b.HasIndex("Chamber", "OccurredAtMs");
+
+                    b.ToTable("maintenance_events", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.Measurement", b =>
                 {
                     b.Property<long>("Id")

@@ -4,9 +4,9 @@ namespace FinWatch.Server.Features.Access;
 
 /// <summary>
 /// Who may do what. People have one role each on a ladder; each role includes the rights of the ones below it:
-/// technicians ingest, enter data and acknowledge alerts; supervisors also disposition and close alerts; engineers also
-/// manage products, specifications, chart contexts, limits, reaction plans and model calibrations; administrators also
-/// manage people and keys. Everyone signed in reads. A tool key only ingests; a display token only reads the floor
+/// technicians ingest, enter data and acknowledge alerts; supervisors also disposition and close alerts and record
+/// chamber maintenance; engineers also manage products, specifications, chart contexts, limits, reaction plans and
+/// model calibrations; administrators also manage people and keys. Everyone signed in reads. A tool key only ingests; a display token only reads the floor
 /// overview and the charts.
 /// </summary>
 public static class Roles
@@ -53,6 +53,7 @@ public static class Permissions
 
     public const string Ingest = "ingest";
     public const string Acknowledge = "acknowledge";
+    /// <summary>Disposition and close alerts; record chamber maintenance (supervisors and up).</summary>
     public const string Disposition = "disposition";
     public const string Engineer = "engineer";
     public const string Administer = "administer";

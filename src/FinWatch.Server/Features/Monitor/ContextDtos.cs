@@ -1,3 +1,5 @@
+using FinWatch.Server.Features.Maintenance;
+
 namespace FinWatch.Server.Features.Monitor;
 
 public sealed record ContextRequest(
@@ -33,7 +35,7 @@ public sealed record ContextResponse(
     string Code, string Title, string Product, string Step, string Parameter, string Unit, string? Chamber, string ChartType, string Subgroup,
     IReadOnlyList<string> Rules, IReadOnlyList<string> ReactionPlan, double ElectricalConcernMv,
     string Phase, string State, string WorstSeverity, int OpenAlerts, int UnacknowledgedAlerts, int EscalatedAlerts, long Points,
-    LimitResponse? Limits, PointMessage? LastPoint);
+    LimitResponse? Limits, PointMessage? LastPoint, MaintenanceSince? Maintenance);
 
 public sealed record LimitComputeRequest(long? FromSeq, long? ToSeq, IReadOnlyList<ExcludedPoint>? Exclude, string? Reason);
 

@@ -1,5 +1,6 @@
 using FinWatch.Server.Features.Audit;
 using FinWatch.Server.Features.Access;
+using FinWatch.Server.Features.Maintenance;
 using System.Text.RegularExpressions;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
@@ -225,11 +226,12 @@ public static partial class ContextEndpoints
         LimitVersion? lastLimit = last?.LimitVersionId is { } id ? await db.LimitVersions.AsNoTracking().SingleAsync(l => l.Id == id, cancellationToken) : null;
         var unit = FinParameters.TryGet(c.Parameter, out var p) ? p.Unit : "";
         var state = limit is null ? "baseline" : alerts.Count > 0 ? "out_of_control" : "in_control";
+        var maintenance = await ChamberMaintenance.SinceAsync(db, c, last?.Chamber, unit, cancellationToken);
         return new ContextResponse(c.Code, c.Title, product, c.Step, c.Parameter, unit, c.Chamber, c.ChartType, c.Subgroup,
             c.Rules.Split(',', StringSplitOptions.RemoveEmptyEntries), c.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries), c.ElectricalConcernMv,
             limit is null ? "baseline" : "monitoring", state, Severity.Name(alerts.Count == 0 ? 0 : alerts.Max(a => a.SeverityRank)),
             alerts.Count, alerts.Count(a => a.State == AlertStates.Open), alerts.Count(a => a.EscalatedAtMs is not null && a.State == AlertStates.Open),
-            count, limit is null ? null : BaselineLimits.Describe(c, limit), last is null ? null : ContextRules.ToMessage(c, last, lastLimit));
+            count, limit is null ? null : BaselineLimits.Describe(c, limit), last is null ? null : ContextRules.ToMessage(c, last, lastLimit), maintenance);
     }
 
     internal static ProblemHttpResult NotFound(string what) => Problems.NotFound("Not found.", $"There is no chart context or limit version '{what}'.");

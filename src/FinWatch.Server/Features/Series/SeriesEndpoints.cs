@@ -1,5 +1,6 @@
 using System.Runtime.InteropServices;
 using FinWatch.Data;
+using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Infrastructure;
 using FinWatch.Statistics;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -11,9 +12,10 @@ public sealed record SeriesPoint(
     DateTime MeasuredAt, string LotId, int WaferSlot, string? SiteId, string? EtchChamber, string? LinerChamber,
     double Value, int N, double? Sd);
 
+/// <summary>A stored series with the maintenance events its points follow (<c>first_point</c> is a position in <c>points</c>).</summary>
 public sealed record SeriesResponse(
     string Product, string Step, string Parameter, string Unit, string Level, string? Chamber,
-    int Count, bool Truncated, IReadOnlyList<SeriesPoint> Points);
+    int Count, bool Truncated, IReadOnlyList<SeriesPoint> Points, IReadOnlyList<MaintenanceMarker> Maintenance);
 
 public static class SeriesEndpoints
 {
@@ -41,7 +43,9 @@ public static class SeriesEndpoints
         var (points, truncated) = lvl == "site"
             ? await SitesAsync(rows, max, cancellationToken)
             : await WaferMeansAsync(rows, max, cancellationToken);
-        return TypedResults.Ok(new SeriesResponse(query.Product, query.Step, query.Parameter.Name, query.Parameter.Unit, lvl, chamber, points.Count, truncated, points));
+        var maintenance = await ChamberMaintenance.ForSeriesAsync(db, chamber, to, points, p => p.MeasuredAt, p => p.EtchChamber, p => p.LinerChamber, cancellationToken);
+        return TypedResults.Ok(new SeriesResponse(query.Product, query.Step, query.Parameter.Name, query.Parameter.Unit, lvl, chamber, points.Count, truncated, points,
+            maintenance));
     }
 
     private static async Task<(List<SeriesPoint>, bool)> SitesAsync(IAsyncEnumerable<SeriesRow> rows, int max, CancellationToken cancellationToken)

@@ -1,5 +1,6 @@
 using FinWatch.Server.Infrastructure;
 using FinWatch.Data;
+using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Features.Series;
 using FinWatch.Statistics.Forecast;
 using FinWatch.Statistics.Shewhart;
@@ -21,7 +22,10 @@ public sealed record ForecastResponse(
     double? High,
     IReadOnlyList<string> Notes);
 
-/// <summary>The drift forecast of a stored series in lots and in hours, from the lot means of the last <c>window</c> lots.</summary>
+/// <summary>
+/// The drift forecast of a stored series in lots and in hours, from the lot means of the last <c>window</c> lots; with a
+/// chamber, next to the time since that chamber's last maintenance before the last lot (null without one).
+/// </summary>
 public sealed record DriftResponse(
     StoredContext Context,
     int Window,
@@ -31,7 +35,8 @@ public sealed record DriftResponse(
     double? Lsl,
     double? Usl,
     ForecastResponse InLots,
-    ForecastResponse InHours);
+    ForecastResponse InHours,
+    ForecastMaintenance? Maintenance);
 
 public static class ForecastEndpoints
 {
@@ -90,7 +95,8 @@ public static class ForecastEndpoints
         var inLots = DriftForecast.Estimate(lotPositions, recent, limits, PositionUnit.LotIndex);
         var inHours = DriftForecast.Estimate(hours, recent, limits, PositionUnit.Hours);
         var context = new StoredContext(query.Product, query.Step, query.Parameter.Name, query.Parameter.Unit, chamber, "lot", false);
-        return TypedResults.Ok(new DriftResponse(context, w, means.Length, lcl, ucl, spec?.Lower, spec?.Upper, Map(inLots), Map(inHours)));
+        var maintenance = await ChamberMaintenance.BeforeLastLotAsync(db, chamber, [.. lots.Select(l => l.At)], cancellationToken);
+        return TypedResults.Ok(new DriftResponse(context, w, means.Length, lcl, ucl, spec?.Lower, spec?.Upper, Map(inLots), Map(inHours), maintenance));
     }
 
     private static ForecastResponse Map(DriftForecastResult r) => new(

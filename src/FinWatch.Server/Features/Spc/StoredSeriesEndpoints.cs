@@ -1,5 +1,6 @@
 using FinWatch.Server.Features.Access;
 using FinWatch.Data;
+using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Features.Series;
 using FinWatch.Server.Infrastructure;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -27,11 +28,15 @@ public sealed record StoredContext(
     string Level,
     bool Truncated);
 
-/// <summary>The analysis of a stored series: its context, what each position is, and the analysis in the contract's shape.</summary>
+/// <summary>
+/// The analysis of a stored series: its context, what each position is, the analysis in the contract's shape, and the
+/// maintenance events its points follow (<c>first_point</c> is a position in <c>points</c>).
+/// </summary>
 public sealed record StoredAnalysisResponse(
     StoredContext Context,
     IReadOnlyList<StoredPoint> Points,
-    AnalysisResponse Analysis);
+    AnalysisResponse Analysis,
+    IReadOnlyList<MaintenanceMarker> Maintenance);
 
 /// <summary>
 /// GET /api/series/chart and /api/series/capability: the same engine and response shapes as POST /api/spc/analyses, on
@@ -165,6 +170,7 @@ public static class StoredSeriesEndpoints
         }
 
         var context = new StoredContext(query.Product, query.Step, query.Parameter.Name, query.Parameter.Unit, chamber, subgrouped ? "wafer" : lvl, truncated);
-        return TypedResults.Ok(new StoredAnalysisResponse(context, points, RunAnalysis.Run(request)));
+        var maintenance = await ChamberMaintenance.ForSeriesAsync(db, chamber, to, points, p => p.MeasuredAt, p => p.EtchChamber, p => p.LinerChamber, cancellationToken);
+        return TypedResults.Ok(new StoredAnalysisResponse(context, points, RunAnalysis.Run(request), maintenance));
     }
 }

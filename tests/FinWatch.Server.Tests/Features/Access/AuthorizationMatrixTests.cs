@@ -77,6 +77,10 @@ public sealed class AuthorizationMatrixTests : IntegrationTest
         ["GET /api/audit/csv"] = "read",
         ["GET /api/reports/shift"] = "read",
         ["GET /api/reports/shift.csv"] = "read",
+        ["POST /api/maintenance"] = "disposition",
+        ["GET /api/maintenance"] = "read",
+        ["POST /api/maintenance/import"] = "disposition",
+        ["GET /api/contexts/{code}/maintenance"] = "floor",
     };
 
     private static readonly Dictionary<string, string[]> Rights = new(StringComparer.Ordinal)

@@ -16,95 +16,31 @@ public static class ElectricalTestCsv
     /// <summary>Plausible threshold voltages, V: wider than any FinFET, narrow enough to catch mV typed as V.</summary>
     public const double MinVtV = -1.0, MaxVtV = 2.0;
 
-    private static readonly DateTimeOffset Earliest = new(2000, 1, 1, 0, 0, 0, TimeSpan.Zero);
-
     /// <summary>Reads and validates the whole file; the rows are returned only when there is no error.</summary>
     public static async Task<(List<ElectricalTestRow> Rows, List<RowError> Errors)> ReadAsync(
         Stream stream, DateTimeOffset now, CancellationToken cancellationToken)
     {
         var rows = new List<ElectricalTestRow>();
         var errors = new List<RowError>();
-        using var csv = new CsvRecordReader(stream);
-        var fields = new List<string>(Columns.Length);
-        try
+        var seen = new Dictionary<(string, int), int>();
+        await CsvTable.ReadAsync(stream, Columns, [], (row, cell) =>
         {
-            if (!await csv.ReadRecordAsync(fields, cancellationToken))
+            if (Parse(row, cell, now, errors) is not { } parsed)
             {
-                errors.Add(RowError.For(1, null, null, $"the file is empty; expected a header row: {string.Join(',', Columns)}"));
-                return (rows, errors);
+                return;
             }
 
-            var map = MapHeader(fields, errors);
-            if (errors.Count > 0)
+            if (seen.TryGetValue((parsed.LotId, parsed.WaferSlot), out var first))
             {
-                return (rows, errors);
+                errors.Add(RowError.For(row, "wafer_slot", parsed.WaferSlot.ToString(CultureInfo.InvariantCulture),
+                    $"lot {parsed.LotId} wafer {parsed.WaferSlot} already appears in row {first}; give one result per wafer (the mean of its test structures)"));
+                return;
             }
 
-            var seen = new Dictionary<(string, int), int>();
-            while (await csv.ReadRecordAsync(fields, cancellationToken))
-            {
-                var row = csv.Records;
-                if (fields.Count != map.Length)
-                {
-                    errors.Add(RowError.For(row, null, null, $"the row has {fields.Count} fields but the header has {map.Length}"));
-                    continue;
-                }
-
-                string? Cell(string column)
-                {
-                    var i = Array.IndexOf(map, column);
-                    var v = i < fields.Count ? fields[i].Trim() : "";
-                    return v.Length == 0 ? null : v;
-                }
-
-                if (Parse(row, Cell, now, errors) is { } parsed)
-                {
-                    if (seen.TryGetValue((parsed.LotId, parsed.WaferSlot), out var first))
-                    {
-                        errors.Add(RowError.For(row, "wafer_slot", parsed.WaferSlot.ToString(CultureInfo.InvariantCulture),
-                            $"lot {parsed.LotId} wafer {parsed.WaferSlot} already appears in row {first}; give one result per wafer (the mean of its test structures)"));
-                        continue;
-                    }
-
-                    seen[(parsed.LotId, parsed.WaferSlot)] = row;
-                    rows.Add(parsed);
-                }
-            }
-        }
-        catch (CsvFormatException e)
-        {
-            errors.Add(RowError.For(e.Row, null, null, $"{e.Message} (line {e.Line})"));
-        }
-
-        if (errors.Count == 0 && rows.Count == 0)
-        {
-            errors.Add(RowError.For(1, null, null, "the file has a header row but no data rows"));
-        }
-
+            seen[(parsed.LotId, parsed.WaferSlot)] = row;
+            rows.Add(parsed);
+        }, errors, cancellationToken);
         return (rows, errors);
-    }
-
-    private static string[] MapHeader(List<string> header, List<RowError> errors)
-    {
-        var map = header.Select(h => h.Trim().ToLowerInvariant()).ToArray();
-        for (var i = 0; i < map.Length; i++)
-        {
-            if (!Columns.Contains(map[i]))
-            {
-                errors.Add(RowError.For(1, header[i], header[i], $"unknown column; the columns are {string.Join(", ", Columns)}"));
-            }
-            else if (Array.IndexOf(map, map[i]) != i)
-            {
-                errors.Add(RowError.For(1, header[i], header[i], "the column appears twice"));
-            }
-        }
-
-        foreach (var c in Columns.Where(c => !map.Contains(c)))
-        {
-            errors.Add(RowError.For(1, c, null, "the header lacks this required column"));
-        }
-
-        return map;
     }
 
     private static ElectricalTestRow? Parse(int row, Func<string, string?> cell, DateTimeOffset now, List<RowError> errors)
@@ -140,16 +76,12 @@ public static class ElectricalTestCsv
         {
             errors.Add(RowError.For(row, "tested_at", null, "a value is required"));
         }
-        else if (!ZonedTime.TryParse(atText, out at))
+        else if (ZonedTime.ProblemWithPastTime(atText, now, out at) is { } problem)
         {
-            errors.Add(RowError.For(row, "tested_at", atText, "not an ISO 8601 time with a zone, such as 2026-11-20T09:30:00Z"));
-        }
-        else if (at > now.AddMinutes(5) || at < Earliest)
-        {
-            errors.Add(RowError.For(row, "tested_at", atText, $"the time lies in the future (server clock {now:u}) or before 2000"));
+            errors.Add(RowError.For(row, "tested_at", atText, problem));
         }
 
-        return errors.Count > before ? null : new ElectricalTestRow(row, lot!, slot, product!, lin!.Value, sat!.Value, at.ToUniversalTime());
+        return errors.Count > before ? null : new ElectricalTestRow(row, lot!, slot, product!, lin!.Value, sat!.Value, at);
     }
 
     private static double? Voltage(int row, string column, string? text, List<RowError> errors)

@@ -41,3 +41,25 @@ export const alertStateWords = {
   dispositioned: 'dispositioned',
   closed: 'closed',
 };
+
+/** What was done in a maintenance, in the fab's words (the API's kinds as keys). */
+export const maintenanceWords = {
+  wet_clean: 'wet clean',
+  part_replacement: 'part replacement',
+  seasoning: 'seasoning',
+  preventive_maintenance: 'preventive maintenance',
+  repair: 'repair after a fault',
+  other: 'other work',
+};
+
+/**
+ * A chart's last maintenance in words: "3 lots (12 points) and 14.5 h since the wet clean of ETA-1", or on a floor
+ * tile (brief) "3 lots and 14.5 h since the wet clean".
+ */
+export function maintenanceSince(m, brief = false) {
+  const what = `the ${maintenanceWords[m.last.kind] ?? m.last.kind}${brief ? '' : ` of ${m.chamber}`}`;
+  if (m.points_since === 0) return `no point measured since ${what}`;
+  const lots = `${m.lots_since} lot${m.lots_since === 1 ? '' : 's'}`;
+  const points = brief ? '' : ` (${m.points_since} point${m.points_since === 1 ? '' : 's'})`;
+  return `${lots}${points} and ${withUnit(m.hours_since, 'h', 1)} since ${what}`;
+}

@@ -12,6 +12,7 @@ const pages = [
   ['whatif.html', 'What-if', 'read'],
   ['entry.html', 'Log data', 'ingest'],
   ['shift.html', 'Shift report', 'read'],
+  ['maintenance.html', 'Maintenance', 'read'],
   ['audit.html', 'Audit', 'read'],
   ['people.html', 'People & keys', 'administer'],
 ];

@@ -4,7 +4,7 @@ import { el, fill, $, param } from '../core/dom.js';
 import { getJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
 import { LiveFeed } from '../core/live.js';
-import { withUnit, number, when, stateWords, unitLabel } from '../core/format.js';
+import { withUnit, number, when, stateWords, unitLabel, maintenanceWords, maintenanceSince } from '../core/format.js';
 import { makeChart, palette } from '../core/charts.js';
 
 const banner = frame('chart.html');
@@ -12,6 +12,7 @@ const select = { context: $('#context'), range: $('#range'), chamber: $('#chambe
 let context = null;
 let product = null;
 let points = [];          // every point loaded for the range (all chambers)
+let markers = [];         // maintenance events of the chart's chambers, each with the first point after it
 let control = null;
 let dvt = null;
 let capability = null;
@@ -49,6 +50,7 @@ async function load() {
   context = await getJson(`/api/contexts/${encodeURIComponent(code)}`);
   product = await getJson(`/api/products/${encodeURIComponent(context.product)}`);
   points = await getJson(`/api/contexts/${encodeURIComponent(code)}/points?${rangeQuery()}&limit=20000`);
+  markers = (await getJson(`/api/contexts/${encodeURIComponent(code)}/maintenance?${rangeQuery()}`)).markers;
   $('#limits-link').href = `limits.html?context=${encodeURIComponent(code)}`;
   document.title = `FinWatch · ${context.title}`;
   fill($('#title'), context.title);
@@ -81,7 +83,26 @@ function summary() {
   ];
   const s = spec();
   if (s) items.push(el('div', {}, el('label', {}, 'specification'), `LSL ${withUnit(s.lower, context.unit)} · target ${withUnit(s.target, context.unit)} · USL ${withUnit(s.upper, context.unit)}`));
+  const m = context.maintenance;
+  items.push(el('div', {}, el('label', {}, 'last maintenance'), m
+    ? el('span', { class: 'maint' }, `${maintenanceSince(m)} (finished ${when(m.last.at)})`)
+    : 'none recorded for this chart\'s chamber'));
   fill($('#summary'), items);
+  fill($('#suggestion'), m?.baseline.suggest_new_baseline
+    ? el('div', { class: 'suggestion', role: 'status' }, el('b', {}, 'New baseline suggested. '), m.baseline.message, ' ',
+      el('a', { href: `limits.html?context=${encodeURIComponent(context.code)}` }, 'Compute limits from the points after it'))
+    : '');
+}
+
+/** The maintenance markers of the points in view: a dashed line before the first point after each, and a diamond on it. */
+function maintenanceLines(view) {
+  if (view.length === 0) return [];
+  const first = view[0].seq;
+  const last = view[view.length - 1].seq;
+  return markers
+    .filter((m) => !chamberFilter() || m.chamber === chamberFilter())
+    .map((m) => ({ ...m, x: (m.first_point ?? last + 1) - 0.5 }))
+    .filter((m) => m.x >= first - 0.5 && m.x <= last + 0.5);
 }
 
 function series(view) {
@@ -116,6 +137,20 @@ function drawControl() {
   ];
   if (s?.upper != null) datasets.push({ label: 'USL', data: flat(s.upper), borderColor: palette.plum, borderDash: [10, 5], pointRadius: 0, borderWidth: 1.5 });
   if (s?.lower != null) datasets.push({ label: 'LSL', data: flat(s.lower), borderColor: palette.plum, borderDash: [10, 5], pointRadius: 0, borderWidth: 1.5 });
+  const maintenance = maintenanceLines(view);
+  if (maintenance.length) {
+    // A dashed line across the data at each maintenance, a diamond at its top labelled with what was done.
+    const ys = view.flatMap((p) => [p.value, p.ucl, p.lcl].filter((v) => v != null)).concat([s?.upper, s?.lower].filter((v) => v != null));
+    const [bottom, top] = [Math.min(...ys), Math.max(...ys)];
+    for (const m of maintenance) {
+      datasets.push({ label: '', data: [{ x: m.x, y: bottom }, { x: m.x, y: top }], borderColor: palette.accent, borderDash: [6, 4], borderWidth: 1.5, pointRadius: 0 });
+    }
+    datasets.push({
+      label: 'maintenance (diamond on a dashed line)', data: maintenance.map((m) => ({ x: m.x, y: top })), maintenance, showLine: false,
+      pointStyle: 'rectRot', pointRadius: 7, pointBackgroundColor: palette.accent, borderColor: palette.accent,
+      pointLabels: maintenance.map((m) => maintenanceWords[m.kind] ?? m.kind), pointLabelColor: palette.accent,
+    });
+  }
   control?.destroy();
   control = makeChart($('#control'), {
     type: 'line',
@@ -127,15 +162,20 @@ function drawControl() {
         y: { title: { display: true, text: `${context.title} [${unit}]` } },
       },
       plugins: {
-        legend: { labels: { filter: (item) => !item.text.startsWith('zone') || item.text === 'zone +1σ' } },
+        legend: { labels: { filter: (item) => item.text !== '' && (!item.text.startsWith('zone') || item.text === 'zone +1σ') } },
         tooltip: { callbacks: { label: (item) => tooltip(view, item) } },
       },
     },
   });
-  fill($('#legend'), `${view.length} points shown${chamberFilter() ? ` (chamber ${chamberFilter()})` : ''}. Triangles mark points where a rule fired, labelled with the rule; dashed lines are the ±1σ and ±2σ zones; plum dashed lines are the specification limits. Limits step where a new version took effect: each point is judged by the limits in force when it was measured.`);
+  fill($('#legend'), `${view.length} points shown${chamberFilter() ? ` (chamber ${chamberFilter()})` : ''}. Triangles mark points where a rule fired, labelled with the rule; dashed lines are the ±1σ and ±2σ zones; plum dashed lines are the specification limits. Limits step where a new version took effect: each point is judged by the limits in force when it was measured.${maintenance.length ? ` Blue diamonds on dashed lines mark maintenance (${maintenance.length} in view), labelled with what was done: the points right of a line were measured after it.` : ''}`);
 }
 
 function tooltip(view, item) {
+  if (item.dataset.maintenance) {
+    const m = item.dataset.maintenance[item.dataIndex];
+    return `${maintenanceWords[m.kind] ?? m.kind} of ${m.chamber}, finished ${when(m.at)}`;
+  }
+  if (item.dataset.label === '') return null; // a maintenance line: its diamond has the words
   if (item.datasetIndex !== 0) return `${item.dataset.label}: ${withUnit(item.parsed.y, context.unit)}`;
   const p = view[item.dataIndex];
   return [

@@ -3,7 +3,7 @@ import { el, fill, $ } from '../core/dom.js';
 import { getJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
 import { LiveFeed } from '../core/live.js';
-import { withUnit, when, stateWords } from '../core/format.js';
+import { withUnit, when, stateWords, maintenanceSince } from '../core/format.js';
 
 const banner = frame('index.html');
 const board = $('#board');
@@ -25,7 +25,14 @@ function tile(c) {
             c.unacknowledged_alerts > 0 ? `, ${c.unacknowledged_alerts} not acknowledged` : '',
             c.escalated_alerts > 0 ? `, ${c.escalated_alerts} escalated` : '')
         : el('span', {}, c.phase === 'baseline' ? `${c.points} baseline points` : 'no active alerts'),
-      last?.predicted_dvt_sat_mv != null ? el('span', { title: 'predicted ΔVT (saturation), engineering estimate' }, `ΔVT ${withUnit(last.predicted_dvt_sat_mv, 'mV', 1)}`) : ''));
+      last?.predicted_dvt_sat_mv != null ? el('span', { title: 'predicted ΔVT (saturation), engineering estimate' }, `ΔVT ${withUnit(last.predicted_dvt_sat_mv, 'mV', 1)}`) : ''),
+    c.maintenance ? el('div', { class: 'meta' }, el('span', { class: 'maint' }, maintenanceLine(c.maintenance))) : '');
+}
+
+/** The chart's last maintenance in words, and a suggested new baseline. */
+function maintenanceLine(m) {
+  const since = maintenanceSince(m, true);
+  return m.baseline.suggest_new_baseline ? `${since} · new baseline suggested` : since;
 }
 
 function render(flash = new Set()) {
