@@ -68,6 +68,7 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
 
         await OpenAsync($"limits.html?context={worst}");
         await Assertions.Expect(Page.Locator("#versions tr[data-status='approved']")).ToHaveCountAsync(1);
+        await Assertions.Expect(Page.Locator("#budget")).ToContainTextAsync(new Regex(@"A false alarm about every [\d.]+ h"));
         await ShotAsync("limits");
 
         var lot = (await Client.GetFromJsonAsync<JsonElement>("/api/lots?page_size=1")).GetProperty("items")[0].GetProperty("lot_id").GetString()!;
