@@ -5,6 +5,7 @@ using FinWatch.Benchmarks;
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- csv [rows] [rounds]
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- csv-agree [inputs] [seed]
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- rules
+//   dotnet run -c Release --project tests/FinWatch.Benchmarks -- run-length
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- model
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- solver
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- push [minutes] [clients] [lots-per-minute]
@@ -15,6 +16,7 @@ return args.FirstOrDefault() switch
     "csv" => await CsvReadBenchmark.RunAsync((int)Arg(1, 1_000_000), (int)Arg(2, 7)),
     "csv-agree" => await CsvAgreement.RunAsync((int)Arg(1, 5000), (int)Arg(2, 1)),
     "rules" => RulesBenchmark.Run(),
+    "run-length" => RunLengthBenchmark.Run(),
     "model" => ModelBenchmark.Run(),
     "solver" => SolverBenchmark.Run(),
     "push" => await PushBenchmark.RunAsync(Arg(1, 3.0), (int)Arg(2, 500), Arg(3, 50)),
@@ -24,7 +26,7 @@ return args.FirstOrDefault() switch
 
 static int Usage()
 {
-    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | csv [rows] [rounds] | csv-agree [inputs] [seed] | rules | model | solver | push [minutes] [clients] [lots-per-minute] | timerange [rows]");
+    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | csv [rows] [rounds] | csv-agree [inputs] [seed] | rules | run-length | model | solver | push [minutes] [clients] [lots-per-minute] | timerange [rows]");
     return 2;
 }
 

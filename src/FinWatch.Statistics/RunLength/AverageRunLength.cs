@@ -1,3 +1,4 @@
+using FinWatch.Statistics.Rules;
 using MathNet.Numerics.Distributions;
 
 namespace FinWatch.Statistics.RunLength;
@@ -164,6 +165,65 @@ public static class AverageRunLength
         return WesternElectricChain.For(mask).AverageRunLength(shift);
     }
 
+    /// <summary>
+    /// Exact ARL of a 3-sigma Shewhart chart with run rules given as <see cref="RunRule"/> values, for the rules the zone
+    /// chain covers: WE1–WE4, their equals N1, N5 and N6 (docs/statistics.md §3.2), and N2 (nine in a row on one side).
+    /// Same model and method as <see cref="ShewhartWithRules"/>; use <see cref="HasExactChain"/> to ask first and
+    /// <see cref="RuleSetRunLength"/> for any rule set.
+    /// </summary>
+    /// <remarks>N2 alone in control gives 2⁹ − 1 = 511 (a run of nine equal outcomes of a fair coin); with WE4 also
+    /// enabled N2 never signals first, since every run of nine contains a run of eight that ended a point earlier.</remarks>
+    /// <param name="rules">The enabled rules (duplicates allowed).</param>
+    /// <param name="shift">Mean shift δ in sigma units of the plotted statistic; any finite value.</param>
+    /// <returns>The ARL, ≥ 1.</returns>
+    /// <exception cref="ArgumentException">The set is empty or holds N3, N4, N7 or N8 (no exact chain here).</exception>
+    /// <exception cref="ArgumentOutOfRangeException">δ is not finite.</exception>
+    public static double ShewhartWithRunRules(IEnumerable<RunRule> rules, double shift)
+    {
+        ArgumentNullException.ThrowIfNull(rules);
+        RequireFinite(shift, nameof(shift));
+        var mask = ChainMask(rules);
+        if (mask is null or 0)
+        {
+            throw new ArgumentException(
+                "The exact chain needs at least one rule, all of them among WE1–WE4, N1, N2, N5 and N6.", nameof(rules));
+        }
+
+        return WesternElectricChain.For(mask.Value).AverageRunLength(shift);
+    }
+
+    /// <summary>
+    /// Whether <see cref="ShewhartWithRunRules"/> covers the set: not empty, and every rule among WE1–WE4, N1, N2, N5 and N6.
+    /// </summary>
+    public static bool HasExactChain(IEnumerable<RunRule> rules) => ChainMask(rules) is > 0;
+
+    /// <summary>The chain's rule mask (N1, N5, N6 flag exactly what WE1, WE2, WE3 flag), or null for a rule it does not cover.</summary>
+    private static int? ChainMask(IEnumerable<RunRule> rules)
+    {
+        ArgumentNullException.ThrowIfNull(rules);
+        var mask = 0;
+        foreach (var rule in rules)
+        {
+            var bit = rule switch
+            {
+                RunRule.WE1 or RunRule.N1 => 1,
+                RunRule.WE2 or RunRule.N5 => 2,
+                RunRule.WE3 or RunRule.N6 => 4,
+                RunRule.WE4 => 8,
+                RunRule.N2 => WesternElectricChain.N2Bit,
+                _ => 0,
+            };
+            if (bit == 0)
+            {
+                return null;
+            }
+
+            mask |= bit;
+        }
+
+        return mask;
+    }
+
     private static void RequirePositive(double value, string name)
     {
         if (!(value > 0) || !double.IsFinite(value))
@@ -172,7 +232,7 @@ public static class AverageRunLength
         }
     }
 
-    private static void RequireFinite(double value, string name)
+    internal static void RequireFinite(double value, string name)
     {
         if (!double.IsFinite(value))
         {

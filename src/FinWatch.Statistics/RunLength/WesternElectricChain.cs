@@ -5,10 +5,11 @@ using MathNet.Numerics.LinearAlgebra;
 namespace FinWatch.Statistics.RunLength;
 
 /// <summary>
-/// Exact ARL of a 3-sigma Shewhart chart with any subset of the Western Electric rules 1–4 (docs/statistics.md §3.1) by a Markov
-/// chain over the zone history (Champ &amp; Woodall 1987). Each point falls into one of eight zones (beyond ±3, ±(2, 3],
-/// ±(1, 2], ±(0, 1]); the state keeps only what the active rules need of the past: beyond-2-sigma sides of the last two
-/// points (WE2), beyond-1-sigma sides of the last four (WE3) and the signed same-side run length capped at 7 (WE4).
+/// Exact ARL of a 3-sigma Shewhart chart with any subset of the Western Electric rules 1–4 (docs/statistics.md §3.1) and
+/// Nelson's test 2 (nine in a row on one side, §3.2) by a Markov chain over the zone history (Champ &amp; Woodall 1987).
+/// Each point falls into one of eight zones (beyond ±3, ±(2, 3], ±(1, 2], ±(0, 1]); the state keeps only what the
+/// active rules need of the past: beyond-2-sigma sides of the last two points (WE2), beyond-1-sigma sides of the last
+/// four (WE3) and the signed same-side run length, capped at 7 for WE4 and at 8 for N2.
 /// Windows are truncated at the start (docs/statistics.md §3.3 item 5), so the chain starts from an empty history. States with the
 /// same future are merged (Moore's partition refinement), which is exact because the zone probabilities do not
 /// depend on the state.
@@ -32,7 +33,13 @@ internal sealed class WesternElectricChain
     /// <summary>Number of transient states after merging.</summary>
     public int StateCount => next.GetLength(0);
 
-    /// <summary>The chain for a rule set given as a bit mask (bit r − 1 set for rule WE r), built once and cached.</summary>
+    /// <summary>Bit of <c>N2</c> in a rule mask; bits 0 to 3 are WE1 to WE4.</summary>
+    public const int N2Bit = 16;
+
+    /// <summary>
+    /// The chain for a rule set given as a bit mask (bit r − 1 set for rule WE r, <see cref="N2Bit"/> for N2), built once
+    /// and cached.
+    /// </summary>
     public static WesternElectricChain For(int ruleMask) => Cache.GetOrAdd(ruleMask, Build);
 
     /// <summary>ARL from an empty history when each point is N(<paramref name="shift"/>, 1) in sigma units.</summary>
@@ -84,6 +91,9 @@ internal sealed class WesternElectricChain
         var we2 = (ruleMask & 2) != 0;
         var we3 = (ruleMask & 4) != 0;
         var we4 = (ruleMask & 8) != 0;
+        var n2 = (ruleMask & N2Bit) != 0;
+        // The same-side run is only counted as far as the longest run rule needs (8 points for WE4, 9 for N2).
+        var runCap = n2 ? 8 : we4 ? 7 : 0;
 
         // Raw states by breadth-first search from the empty history.
         var index = new Dictionary<History, int>();
@@ -100,13 +110,13 @@ internal sealed class WesternElectricChain
                 var side = zone < 4 ? 1 : -1;
                 var depth = side > 0 ? 3 - zone : zone - 4; // 3 beyond 3 sigma, 2 beyond 2, 1 beyond 1, 0 inside 1
                 var current = states[s];
-                if (Signals(current, side, depth, we1, we2, we3, we4))
+                if (Signals(current, side, depth, we1, we2, we3, we4, n2))
                 {
                     successors[zone] = Signal;
                     continue;
                 }
 
-                var following = current.Then(side, depth, we2, we3, we4);
+                var following = current.Then(side, depth, we2, we3, runCap);
                 if (!index.TryGetValue(following, out var id))
                 {
                     id = states.Count;
@@ -123,7 +133,7 @@ internal sealed class WesternElectricChain
         return Minimise(raw);
     }
 
-    private static bool Signals(History history, int side, int depth, bool we1, bool we2, bool we3, bool we4)
+    private static bool Signals(History history, int side, int depth, bool we1, bool we2, bool we3, bool we4, bool n2)
     {
         if (we1 && depth >= 3)
         {
@@ -145,7 +155,7 @@ internal sealed class WesternElectricChain
             }
         }
 
-        return we4 && history.Run * side >= 7;
+        return (we4 && history.Run * side >= 7) || (n2 && history.Run * side >= 8);
     }
 
     /// <summary>Moore's partition refinement: merge states whose successors are in the same blocks for every zone.</summary>
@@ -208,11 +218,11 @@ internal sealed class WesternElectricChain
         int Beyond1Lag4,
         int Run)
     {
-        public History Then(int side, int depth, bool we2, bool we3, bool we4)
+        public History Then(int side, int depth, bool we2, bool we3, int runCap)
         {
             var beyond2 = depth >= 2 ? side : 0;
             var beyond1 = depth >= 1 ? side : 0;
-            var run = Run * side > 0 ? Math.Clamp(Run + side, -7, 7) : side;
+            var run = Run * side > 0 ? Math.Clamp(Run + side, -runCap, runCap) : side;
             return new History(
                 we2 ? beyond2 : 0,
                 we2 ? Beyond2Lag1 : 0,
@@ -220,7 +230,7 @@ internal sealed class WesternElectricChain
                 we3 ? Beyond1Lag1 : 0,
                 we3 ? Beyond1Lag2 : 0,
                 we3 ? Beyond1Lag3 : 0,
-                we4 ? run : 0);
+                runCap > 0 ? run : 0);
         }
     }
 }

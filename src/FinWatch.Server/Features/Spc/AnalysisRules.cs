@@ -7,6 +7,18 @@ public static class AnalysisRules
     public const int MaxPoints = 1_000_000;
     public const double MaxMagnitude = 1e100;
 
+    /// <summary>Each rule id or set name that <see cref="Statistics.Rules.RunRules.TryParse"/> does not know, under "rules".</summary>
+    public static void CheckRuleIds(IEnumerable<string?>? ids, ValidationErrors e)
+    {
+        foreach (var id in ids ?? [])
+        {
+            if (!Statistics.Rules.RunRules.TryParse(id ?? "", out _))
+            {
+                e.Add("rules", $"'{id}' is not a rule: use WE1–WE4, N1–N8, westernElectric or nelson");
+            }
+        }
+    }
+
     public static void Check(AnalysisRequest r, ValidationErrors e)
     {
 
@@ -78,13 +90,7 @@ public static class AnalysisRules
             e.Add("sigma_multiplier", "the sigma multiplier must be above 0 and at most 10");
         }
 
-        foreach (var id in r.Rules ?? [])
-        {
-            if (!Statistics.Rules.RunRules.TryParse(id ?? "", out _))
-            {
-                e.Add("rules", $"'{id}' is not a rule: use WE1–WE4, N1–N8, westernElectric or nelson");
-            }
-        }
+        CheckRuleIds(r.Rules, e);
 
         if (r.Ewma is { } ewma)
         {

@@ -15,5 +15,6 @@ public sealed class SpcFeature : IFeature
         StoredSeriesEndpoints.Map(endpoints);
         ThreeWayEndpoints.Map(endpoints);
         ForecastEndpoints.Map(endpoints);
+        RunLengthEndpoints.Map(endpoints);
     }
 }

@@ -58,6 +58,9 @@ public sealed class AuthorizationMatrixTests : IntegrationTest
         ["GET /api/contexts/{code}/limits"] = "read",
         ["POST /api/contexts/{code}/limits"] = "engineer",
         ["POST /api/contexts/{code}/limits/{version:int}/approve"] = "engineer",
+        ["GET /api/contexts/{code}/run-length"] = "read",
+        ["POST /api/contexts/run-length"] = "read",
+        ["GET /api/run-length"] = "read",
         ["GET /api/feed"] = "floor",
         ["GET /hubs/monitor/negotiate"] = "floor", // the negotiate endpoint has no method metadata; GET stands for it
         ["GET /hubs/monitor"] = "floor",

@@ -3,7 +3,7 @@
 import { el, fill, $, param } from '../core/dom.js';
 import { getJson, sendJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
-import { withUnit, when } from '../core/format.js';
+import { withUnit, number, when } from '../core/format.js';
 import { makeChart, palette } from '../core/charts.js';
 
 frame('limits.html');
@@ -25,6 +25,7 @@ async function load() {
   $('#plan-text').value = context.reaction_plan.join('\n');
   $('#rules').value = context.rules.join(',');
   $('#concern').value = context.electrical_concern_mv;
+  showBudget();
   if (!$('#from-seq').value) {
     // Default: the points before the limits in force took effect, else the first 25 (common practice: 20-25 subgroups).
     $('#from-seq').value = points[0]?.seq ?? 1;
@@ -95,6 +96,57 @@ $('#compute').addEventListener('submit', async (event) => {
   } catch (e) {
     fill($('#compute-result'), el('div', { class: 'problem' }, e.message));
   }
+});
+
+// The alarm budget of the rules in the box, asked again as they are typed; only the answer to the latest ask is shown.
+let budgetAsk = 0;
+let budgetTimer = 0;
+
+async function showBudget() {
+  const ask = ++budgetAsk;
+  const rules = $('#rules').value.split(',').map((s) => s.trim()).filter(Boolean);
+  if (rules.length === 0) {
+    fill($('#budget'), el('p', { class: 'problem' }, 'No rule chosen: the chart would raise no alarm and catch no shift.'));
+    return;
+  }
+  try {
+    const budget = await sendJson('POST', '/api/contexts/run-length', { chart_type: context.chart_type, rules, context: code });
+    if (ask === budgetAsk) drawBudget(budget);
+  } catch (e) {
+    const messages = Object.values(e.problem?.errors ?? {}).flat();
+    if (ask === budgetAsk) fill($('#budget'), el('p', { class: 'problem' }, messages.length ? messages.join('\n') : e.message));
+  }
+}
+
+const inPoints = (n) => withUnit(n, 'points', n >= 100 ? 0 : 1);
+const inHours = (h) => withUnit(h, 'h', h >= 10 ? 0 : 1);
+const perDay = (n) => (n >= 1 ? n.toFixed(1) : n.toPrecision(2));
+
+function drawBudget(b) {
+  const fa = b.false_alarm;
+  const falseAlarms = fa.points == null
+    ? 'False alarms are too rare to estimate with these rules.'
+    : fa.hours == null
+      ? `A false alarm about every ${inPoints(fa.points)} while the process is in control.`
+      : `A false alarm about every ${inHours(fa.hours)} (${inPoints(fa.points)}) while the process is in control: about ${perDay(b.false_alarms_per_day)} false alarms a day.`;
+  const caught = b.detection.map((d) => (d.points == null
+    ? `A ${d.shift_sigma}σ shift is practically never caught by these rules.`
+    : `A ${d.shift_sigma}σ shift is caught in about ${inPoints(d.points)}${d.hours == null ? '' : ` (${inHours(d.hours)})`}.`));
+  const rate = b.points_per_day > 0
+    ? `At this chart's rate of ${withUnit(b.points_per_day, 'points a day', 1)}, measured over the last ${number(b.rate.days, b.rate.days >= 10 ? 0 : 1)} days.`
+    : '';
+  const how = fa.method.startsWith('exact')
+    ? 'Worked out exactly (a Markov chain over the zones).'
+    : `Estimated by ${fa.method.replace(/^simulation, /, 'simulation: ')}.`;
+  fill($('#budget'),
+    el('ul', {}, el('li', {}, falseAlarms), caught.map((text) => el('li', {}, text))),
+    el('p', { class: 'muted' }, `Each point is ${b.plotted_statistic}; σ is that of the point. ${rate} ${how}`),
+    b.notes.map((n) => el('p', { class: 'muted' }, n)));
+}
+
+$('#rules').addEventListener('input', () => {
+  clearTimeout(budgetTimer);
+  budgetTimer = setTimeout(showBudget, 250);
 });
 
 $('#plan').addEventListener('submit', async (event) => {
