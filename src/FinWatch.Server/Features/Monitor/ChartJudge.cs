@@ -15,7 +15,6 @@ namespace FinWatch.Server.Features.Monitor;
 public sealed class ChartJudge(ChartContext context, IReadOnlyList<LimitVersion> approvedLimits, IReadOnlyList<RunRule> rules)
 {
     private readonly IReadOnlyList<LimitVersion> limits = [.. approvedLimits.OrderBy(l => l.EffectiveFromMs)];
-    private readonly List<long> seqByIndex = [];
     private ShewhartMonitor? monitor;
     private int? monitorLimitId;
 
@@ -41,10 +40,10 @@ public sealed class ChartJudge(ChartContext context, IReadOnlyList<LimitVersion>
     }
 
     /// <summary>
-    /// Judges a new point: sets its limit version, z and signal ids, and returns the rules it fired with the chart
-    /// positions (seq) of each pattern's points. A point before any approved limits is stored unjudged.
+    /// Judges a new point: sets its limit version, z and signal ids, and returns the rules it fired. A point before any
+    /// approved limits is stored unjudged.
     /// </summary>
-    public IReadOnlyList<(RunRule Rule, long[] PatternSeqs)> Judge(ChartPoint point)
+    public IReadOnlyList<RunRule> Judge(ChartPoint point)
     {
         var limit = LimitAt(point.MeasuredAtMs);
         if (limit is null)
@@ -57,7 +56,7 @@ public sealed class ChartJudge(ChartContext context, IReadOnlyList<LimitVersion>
         point.LimitVersionId = limit.Id;
         point.Z = double.IsNaN(placed.Z) ? null : placed.Z;
         point.Signals = string.Join(',', signals.Select(s => RunRules.Id(s.Rule)));
-        return [.. signals.Select(s => (s.Rule, s.Pattern.Select(i => seqByIndex[i]).ToArray()))];
+        return [.. signals.Select(s => s.Rule)];
     }
 
     private MonitorPoint Place(ChartPoint point, LimitVersion limit, List<RuleSignal>? signals)
@@ -72,7 +71,6 @@ public sealed class ChartJudge(ChartContext context, IReadOnlyList<LimitVersion>
         }
 
         monitorLimitId = limit.Id;
-        seqByIndex.Add(point.Seq);
         return ChartType == ShewhartChartType.IndividualsMovingRange
             ? monitor.Append(point.Value, signals)
             : monitor.AppendSummary(point.Value, point.N, point.Sd ?? double.NaN, signals);

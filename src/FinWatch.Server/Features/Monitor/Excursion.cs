@@ -50,18 +50,21 @@ public sealed class Excursion
         return new Excursion(alert, true, [], []) { firstPoint = point };
     }
 
-    /// <summary>The chart's excursion that is not closed, with the lots and wafers it has collected so far.</summary>
-    public static async Task<Excursion> ResumeAsync(FinWatchDbContext db, Alert alert, CancellationToken cancellationToken)
+    /// <summary>
+    /// The chart's excursion that is not closed. Of the lots and wafers it has collected so far, only those the new
+    /// points could repeat are read (<paramref name="incomingLots"/>): the stored counts cover the rest.
+    /// </summary>
+    public static async Task<Excursion> ResumeAsync(FinWatchDbContext db, Alert alert, IReadOnlyCollection<string> incomingLots, CancellationToken cancellationToken)
     {
         var involved = await db.ChartPoints.AsNoTracking()
-            .Where(p => p.ContextId == alert.ContextId && p.Seq >= alert.FirstSeq && p.Seq <= alert.LastSeq)
+            .Where(p => p.ContextId == alert.ContextId && p.Seq >= alert.FirstSeq && p.Seq <= alert.LastSeq && incomingLots.Contains(p.LotId))
             .Select(p => new { p.LotId, p.WaferSlot }).Distinct().ToListAsync(cancellationToken);
         return new Excursion(alert, false, [.. involved.Select(w => w.LotId)],
             [.. involved.Where(w => w.WaferSlot is not null).Select(w => (w.LotId, w.WaferSlot!.Value))]);
     }
 
     /// <summary>Adds a point of the chart (after the first signal) with the rules it fired, if any.</summary>
-    public void Collect(ChartContext context, ChartPoint point, IReadOnlyList<(RunRule Rule, long[] PatternSeqs)> fired, long nowMs, int quietPoints)
+    public void Collect(ChartContext context, ChartPoint point, IReadOnlyList<RunRule> fired, long nowMs, int quietPoints)
     {
         var a = Alert;
         Changed = true;
@@ -69,14 +72,15 @@ public sealed class Excursion
         a.UpdatedAtMs = nowMs;
         a.LastSeq = point.Seq;
         a.PointCount++;
-        lots.Add(point.LotId);
-        if (point.WaferSlot is { } slot)
+        if (lots.Add(point.LotId))
         {
-            wafers.Add((point.LotId, slot));
+            a.LotCount++;
         }
 
-        a.LotCount = lots.Count;
-        a.WaferCount = wafers.Count;
+        if (point.WaferSlot is { } slot && wafers.Add((point.LotId, slot)))
+        {
+            a.WaferCount++;
+        }
         if (fired.Count > 0)
         {
             Signal(context, point, fired);
@@ -88,7 +92,7 @@ public sealed class Excursion
         }
     }
 
-    private void Signal(ChartContext context, ChartPoint point, IReadOnlyList<(RunRule Rule, long[] PatternSeqs)> fired)
+    private void Signal(ChartContext context, ChartPoint point, IReadOnlyList<RunRule> fired)
     {
         var a = Alert;
         a.SignalCount++;
@@ -105,10 +109,10 @@ public sealed class Excursion
         if (a.BackInControlAtMs is not null)
         {
             a.BackInControlAtMs = null;
-            events.Add(("signalling-again", point, $"{Severity.Describe(fired[0].Rule)} at lot {Where(point)}"));
+            events.Add(("signalling-again", point, $"{Severity.Describe(fired[0])} at lot {Where(point)}"));
         }
 
-        foreach (var (rule, _) in fired)
+        foreach (var rule in fired)
         {
             var id = RunRules.Id(rule);
             if (!rules.Contains(id))

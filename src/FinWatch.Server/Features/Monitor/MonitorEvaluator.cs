@@ -190,7 +190,7 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
         // The chart's excursion, if one is not closed (the newest, should alerts stored before excursions leave several).
         var open = await db.Alerts.Where(a => a.ContextId == context.Id && a.State != AlertStates.Closed)
             .OrderByDescending(a => a.Id).FirstOrDefaultAsync(cancellationToken);
-        var excursion = open is null ? null : await Excursion.ResumeAsync(db, open, cancellationToken);
+        var excursion = open is null ? null : await Excursion.ResumeAsync(db, open, [.. points.Select(p => p.LotId).Distinct()], cancellationToken);
         var excursions = new List<Excursion>();
         if (excursion is not null)
         {
