@@ -131,6 +131,32 @@ public static class DemoFab
         }
     }
 
+    /// <summary>The first lot number after the history of <paramref name="scale"/> (lots are numbered Q30001, Q30002, … in start order).</summary>
+    /// <exception cref="ArgumentOutOfRangeException">The scale is outside the ranges documented on <see cref="DemoScale"/>.</exception>
+    public static int FirstLotNumberAfter(DemoScale? scale = null)
+    {
+        DemoScale s = Validate(scale);
+        return LotPlan.FirstLotNumber + (int)Math.Floor(s.Days * s.LotsPerDay);
+    }
+
+    /// <summary>The id of the simulated live profile tool (<see cref="LiveProfileLot"/>).</summary>
+    public static string LiveProfileToolId => FabLayout.LiveProfileTool.Id;
+
+    /// <summary>
+    /// One more lot after the history, as the simulated live profile tool measures it: the <see cref="ProfileStep"/>
+    /// rows of lot <c>Q{lotNumber}</c> whose last site is measured at <paramref name="lastSiteUtc"/> (in the data set's
+    /// own time: it may lie after <see cref="EndUtc"/>, and the planted drifts go on). The same arguments give the same
+    /// rows. Lot numbers at or after <see cref="FirstLotNumberAfter"/> do not repeat a lot of the history.
+    /// </summary>
+    /// <exception cref="ArgumentOutOfRangeException">The lot number is below the first lot, or the wafer count is outside 1..25.</exception>
+    public static IEnumerable<DemoSiteRow> LiveProfileLot(int seed, int lotNumber, DateTime lastSiteUtc, int wafersPerLot = 25)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(lotNumber, LotPlan.FirstLotNumber);
+        ArgumentOutOfRangeException.ThrowIfLessThan(wafersPerLot, 1);
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(wafersPerLot, 25);
+        return LiveLots.ProfileLot(seed, lotNumber, DateTime.SpecifyKind(lastSiteUtc, DateTimeKind.Utc), wafersPerLot);
+    }
+
     /// <summary>The header of the electrical-test CSV that <c>POST /api/model/calibrations</c> reads.</summary>
     public const string ElectricalTestCsvHeader = "lot_id,wafer_slot,product,vt_lin_v,vt_sat_v,tested_at";
 

@@ -38,6 +38,12 @@ internal static class FabLayout
         new("MP12", 0.04, 0.03, -0.15, 0.010, 0.12, 0.15),
     ];
 
+    /// <summary>
+    /// The profile tool that the demo simulates live after the history (a third tool, matched like the other two): it
+    /// measures one new lot at a time through the server's normal ingest.
+    /// </summary>
+    public static readonly MetrologyTool LiveProfileTool = new("MP13", 0.02, 0.01, -0.05, 0.005, 0.12, 0.15);
+
     /// <summary>The CD tool of the post-etch step reads the top a little wide and the foot a little narrow.</summary>
     public static readonly MetrologyTool CdTool = new("MC21", 0.20, -0.15, 0.0, 0.0, 0.15, 0.20);
 

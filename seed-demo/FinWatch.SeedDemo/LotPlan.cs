@@ -100,10 +100,10 @@ internal sealed record LotPlan(
     }
 
     /// <summary>Time from the first to the last site of a step (the last site's offset).</summary>
-    private static TimeSpan Duration(int wafers, int sites) =>
+    public static TimeSpan Duration(int wafers, int sites) =>
         TimeSpan.FromSeconds((wafers - 1) * SecondsPerWafer + (sites - 1) * SecondsPerSite);
 
-    private static DateTime Second(DateTime t) => new(t.Ticks - t.Ticks % TimeSpan.TicksPerSecond, DateTimeKind.Utc);
+    public static DateTime Second(DateTime t) => new(t.Ticks - t.Ticks % TimeSpan.TicksPerSecond, DateTimeKind.Utc);
 
     private static DateTime Max(DateTime a, DateTime b) => a >= b ? a : b;
 }

@@ -87,18 +87,9 @@ internal static class RowStream
 
         if (run.IsProfile)
         {
-            var noise = SeededRandom.Create(seed, lot.Index, SeededRandom.ProfileNoiseStream);
-            IReadOnlyList<SitePosition> sites = lot.Recipe.ProfileSites;
-            for (int w = 0; w < wafers.Length; w++)
+            foreach (DemoSiteRow row in ProfileRows(seed, lot, wafers, run.StartUtc))
             {
-                for (int s = 0; s < sites.Count; s++)
-                {
-                    var (top, bottom, height, radius, liner) = FinModel.ProfileSite(wafers[w], sites[s], lot.ProfileTool, noise);
-                    yield return new DemoSiteRow(
-                        lot.LotId, wafers[w].Slot, sites[s].Id, sites[s].XMm, sites[s].YMm, product, DemoFab.ProfileStep,
-                        lot.EtchTool.Id, wafers[w].Chamber.Id, lot.Liner.Tool, lot.Liner.Id, lot.ProfileTool.Id,
-                        At(run.StartUtc, w, s), lot.ProfileOperator, top, bottom, height, radius, liner);
-                }
+                yield return row;
             }
         }
         else
@@ -117,6 +108,25 @@ internal static class RowStream
                         lot.EtchTool.Id, wafer.Chamber.Id, null, null, FabLayout.CdTool.Id,
                         At(run.StartUtc, w, s), lot.CdOperator, top, bottom, null, null, null);
                 }
+            }
+        }
+    }
+
+    /// <summary>The profile step's rows of a lot whose first site is measured at <paramref name="startUtc"/>, in time order.</summary>
+    public static IEnumerable<DemoSiteRow> ProfileRows(int seed, LotPlan lot, WaferState[] wafers, DateTime startUtc)
+    {
+        var noise = SeededRandom.Create(seed, lot.Index, SeededRandom.ProfileNoiseStream);
+        IReadOnlyList<SitePosition> sites = lot.Recipe.ProfileSites;
+        string product = lot.Recipe.Product.Code;
+        for (int w = 0; w < wafers.Length; w++)
+        {
+            for (int s = 0; s < sites.Count; s++)
+            {
+                var (top, bottom, height, radius, liner) = FinModel.ProfileSite(wafers[w], sites[s], lot.ProfileTool, noise);
+                yield return new DemoSiteRow(
+                    lot.LotId, wafers[w].Slot, sites[s].Id, sites[s].XMm, sites[s].YMm, product, DemoFab.ProfileStep,
+                    lot.EtchTool.Id, wafers[w].Chamber.Id, lot.Liner.Tool, lot.Liner.Id, lot.ProfileTool.Id,
+                    At(startUtc, w, s), lot.ProfileOperator, top, bottom, height, radius, liner);
             }
         }
     }
