@@ -24,6 +24,8 @@ public sealed class DemoFeature : IFeature
         builder.Services.AddOptions<DemoOptions>().BindConfiguration(DemoOptions.Section);
         builder.Services.AddSingleton<DemoLoader>();
         builder.Services.AddHostedService(sp => sp.GetRequiredService<DemoLoader>());
+        builder.Services.AddSingleton<DemoTool>();
+        builder.Services.AddHostedService(sp => sp.GetRequiredService<DemoTool>());
     }
 
     // The demo has no endpoints of its own: it feeds the others (and About says whether it runs).

@@ -2,7 +2,9 @@ using System.IO.Pipelines;
 using System.Text;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
+using FinWatch.Physics;
 using FinWatch.SeedDemo;
+using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Features.Measurements;
 using FinWatch.Server.Features.Model.Calibrations;
 using FinWatch.Server.Features.Monitor;
@@ -55,6 +57,7 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         // the last one have data. The first weeks are the baseline the demo's limits are computed from; the rest
         // arrives after the limits are approved.
         var shift = TimeSpan.FromMinutes(Math.Floor((clock.GetUtcNow().UtcDateTime - DemoFab.EndUtc).TotalMinutes));
+        await RecordMaintenanceAsync(db, shift, stoppingToken);
         var start = DemoFab.StartUtc(scale);
         var cut = start + TimeSpan.FromDays(Math.Min(20, Math.Max(1, options.Value.Days / 3)));
         var baseline = await IngestPartAsync(ingest, seed, scale, null, cut, shift, "baseline", stoppingToken);
@@ -141,6 +144,26 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         }
 
         return (inserted, durationMs);
+    }
+
+    /// <summary>Who records the invented chamber log (the audit trail names it).</summary>
+    public const string Recorder = "demo loader";
+
+    // The invented chamber log: each planted maintenance as its crew recorded it when the chamber went back to
+    // production, moved with the rest of the history; through the maintenance log's own checks, records and audit.
+    private async Task RecordMaintenanceAsync(FinWatchDbContext db, TimeSpan shift, CancellationToken cancellationToken)
+    {
+        var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        var events = DemoFab.Events.Where(e => e.LoggedAs is not null)
+            .Select(e => new CheckedMaintenance(e.Chamber, e.LoggedAs!.Value, new DateTimeOffset(e.BackInProductionUtc + shift, TimeSpan.Zero).ToUnixTimeMilliseconds(),
+                e.Crew, e.LoggedAs switch
+                {
+                    MaintenanceKind.WetClean => "wet clean at the RF-hour interval; seasoned and released to production (invented)",
+                    MaintenanceKind.PartReplacement => "edge ring replaced at its RF-hour limit; seasoned and released to production (invented)",
+                    _ => "scheduled preventive maintenance; released to production (invented)",
+                }))
+            .Where(e => e.OccurredAtMs <= now).ToList();
+        await MaintenanceLog.RecordAsync(db, events, Recorder, "invented demo fab", clock, cancellationToken);
     }
 
     private static DateTime Min(DateTime a, DateTime b) => a < b ? a : b;

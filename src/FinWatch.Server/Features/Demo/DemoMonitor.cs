@@ -1,6 +1,8 @@
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Server.Features.Monitor;
+using FinWatch.Statistics.Rules;
+using FinWatch.Statistics.RunLength;
 using FinWatch.Statistics.Stability;
 using Microsoft.EntityFrameworkCore;
 
@@ -80,9 +82,15 @@ public static class DemoMonitor
         await db.SaveChangesAsync(cancellationToken);
         await evaluator.EvaluatePendingAsync(cancellationToken);
         var effective = new DateTimeOffset(effectiveFromUtc, TimeSpan.Zero).ToUnixTimeMilliseconds();
-        foreach (var context in await db.ChartContexts.AsNoTracking().ToListAsync(cancellationToken))
+        foreach (var context in await db.ChartContexts.ToListAsync(cancellationToken))
         {
             var points = await db.ChartPoints.AsNoTracking().Where(x => x.ContextId == context.Id).OrderBy(x => x.Seq).ToListAsync(cancellationToken);
+            var budget = points.Count < 2 ? null : ChooseRules(points.Count / Math.Max(1.0, (points[^1].MeasuredAtMs - points[0].MeasuredAtMs) / 86_400_000.0));
+            if (budget is not null)
+            {
+                context.Rules = string.Join(',', budget.Rules.Select(RunRules.Id));
+            }
+
             var limit = StablestBaseline(context, points, effective);
             if (limit is null)
             {
@@ -92,7 +100,7 @@ public static class DemoMonitor
             limit.Status = "approved";
             limit.ApprovedBy = DemoApprover;
             limit.ApprovedAtMs = effective;
-            limit.ApprovalComment = "demo: reviewed and approved at the end of the baseline (invented history)";
+            limit.ApprovalComment = "demo: reviewed and approved at the end of the baseline (invented history). " + budget?.Describe();
             if (limit.Verdict != BaselineLimits.Stable)
             {
                 limit.Justification = "demo: no window of the invented baseline passes the check; approved so that the chamber is watched, "
@@ -104,6 +112,50 @@ public static class DemoMonitor
         }
 
         await db.SaveChangesAsync(cancellationToken);
+    }
+
+    /// <summary>
+    /// The invented floor's alarm budget: each chart may raise a false alarm at most about once in this many days while
+    /// its process is in control (a choice of the invented floor, not a published figure).
+    /// </summary>
+    public const double FalseAlarmBudgetDays = 14;
+
+    // The Western Electric combinations an engineer would consider, all with the 3σ rule.
+    private static readonly RunRule[][] Candidates =
+    [
+        [RunRule.WE1, RunRule.WE2, RunRule.WE3, RunRule.WE4],
+        [RunRule.WE1, RunRule.WE2, RunRule.WE3], [RunRule.WE1, RunRule.WE2, RunRule.WE4], [RunRule.WE1, RunRule.WE3, RunRule.WE4],
+        [RunRule.WE1, RunRule.WE2], [RunRule.WE1, RunRule.WE3], [RunRule.WE1, RunRule.WE4],
+        [RunRule.WE1],
+    ];
+
+    /// <summary>A rule set chosen with the alarm budget, and what it costs and catches at the chart's point rate.</summary>
+    public sealed record RuleChoice(RunRule[] Rules, double PointsPerDay, double FalseAlarmDays, double OneSigmaPoints)
+    {
+        public string Describe() => string.Create(System.Globalization.CultureInfo.InvariantCulture,
+            $"Rules {string.Join(", ", Rules.Select(RunRules.Id))} chosen with the alarm budget: at {PointsPerDay:0.0} lots a day, a false alarm about every "
+            + $"{FalseAlarmDays:0} days in control (the floor allows one in {FalseAlarmBudgetDays:0}), and a 1σ shift caught in about {OneSigmaPoints:0} lots.");
+    }
+
+    /// <summary>
+    /// The rule set an engineer would pick with the alarm budget (GET /api/contexts/{code}/run-length): among the
+    /// candidates whose expected time between false alarms, at the chart's point rate, is at least
+    /// <see cref="FalseAlarmBudgetDays"/>, the one that catches a 1σ shift soonest; the 3σ rule alone when none fits.
+    /// </summary>
+    public static RuleChoice ChooseRules(double pointsPerDay)
+    {
+        RuleChoice? best = null;
+        foreach (var rules in Candidates)
+        {
+            var inControl = RuleSetRunLength.Estimate(rules, 0).Points;
+            var choice = new RuleChoice(rules, pointsPerDay, inControl / pointsPerDay, RuleSetRunLength.Estimate(rules, 1).Points);
+            if ((choice.FalseAlarmDays >= FalseAlarmBudgetDays || rules.Length == 1) && (best is null || choice.OneSigmaPoints < best.OneSigmaPoints))
+            {
+                best = choice;
+            }
+        }
+
+        return best!;
     }
 
     private const string DemoSupervisor = "shift supervisor S-2 (invented)";

@@ -16,4 +16,9 @@ public sealed class DemoOptions
 
     /// <summary>Lots started per day.</summary>
     public double LotsPerDay { get; set; } = 24;
+
+    /// <summary>
+    /// Seconds between the lots of the simulated profile tool that keeps measuring after the history (0: no live tool).
+    /// </summary>
+    public int LiveLotSeconds { get; set; } = 60;
 }

@@ -61,6 +61,94 @@ public class DemoLoaderTests
     }
 
     [Fact]
+    public async Task Demo_RecordsThePlantedMaintenancesInTheChamberLog_MovedWithTheHistory()
+    {
+        using var factory = DemoFactory();
+        using var client = factory.CreateClient();
+        Assert.Equal("loaded", await WaitForDemoAsync(factory));
+
+        var log = await factory.QueryAsync(db => db.MaintenanceEvents.OrderBy(e => e.OccurredAtMs).ToListAsync());
+        var planted = SeedDemo.DemoFab.Events.Where(e => e.IsMaintenance).ToList();
+        Assert.Equal(planted.Count, log.Count);
+        // The history ends when the demo starts: the generator's end is the clock (to the minute), and each event keeps
+        // its distance to it, logged when the chamber went back to production.
+        var shift = FinWatchAppFactory.Now.UtcDateTime - SeedDemo.DemoFab.EndUtc;
+        Assert.All(planted.Zip(log), pair =>
+        {
+            var (e, stored) = pair;
+            Assert.Equal(e.Chamber, stored.Chamber);
+            Assert.Equal(e.LoggedAs, stored.Kind);
+            Assert.InRange(stored.OccurredAtMs - new DateTimeOffset(e.AtUtc + SeedDemo.DemoFab.MaintenanceDowntime + shift).ToUnixTimeMilliseconds(), -60_000, 0);
+            Assert.Equal(DemoLoader.Recorder, stored.RecordedBy);
+        });
+        Assert.Equal(log.Count, await factory.QueryAsync(db => db.AuditEntries.CountAsync(a => a.Entity == "maintenance")));
+    }
+
+    [Fact]
+    public async Task Demo_RuleSets_AreChosenWithTheAlarmBudget()
+    {
+        // At 3 lots a day every Western Electric combination keeps within one false alarm in 14 days, so the fullest set
+        // (the one that catches a 1σ shift soonest) is chosen; at 24 points a day only the 3σ rule with one more does.
+        // Run lengths: Champ & Woodall (1987), Table 1 (WE1-WE4 91.75 points in control; from memory), which the
+        // run-length engine's own tests check.
+        Assert.Equal("WE1, WE2, WE3, WE4", string.Join(", ", DemoMonitor.ChooseRules(3).Rules));
+        var busy = DemoMonitor.ChooseRules(24);
+        Assert.True(busy.FalseAlarmDays >= DemoMonitor.FalseAlarmBudgetDays, busy.Describe());
+        Assert.True(busy.Rules.Length < 4);
+        Assert.Equal(["WE1"], DemoMonitor.ChooseRules(10_000).Rules.Select(r => r.ToString()));
+
+        using var factory = DemoFactory();
+        using var client = factory.CreateClient();
+        Assert.Equal("loaded", await WaitForDemoAsync(factory));
+        var limits = await factory.QueryAsync(db => db.LimitVersions.Where(l => l.Status == "approved").ToListAsync());
+        Assert.NotEmpty(limits);
+        Assert.All(limits, l => Assert.Contains("chosen with the alarm budget", l.ApprovalComment, StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public async Task Demo_SimulatedTool_SendsALotThroughTheIngestWithItsOwnKey_EveryInterval()
+    {
+        using var factory = DemoFactory().With("FinWatch:Demo:LiveLotSeconds", "60");
+        factory.DefaultIdentity = "none"; // the product's own schemes: the tool's key, as on a real floor
+        factory.UseKestrel(0);
+        factory.StartServer();
+        Assert.Equal("loaded", await WaitForDemoAsync(factory));
+        for (var i = 0; i < 100 && await factory.QueryAsync(db => db.ApiKeys.CountAsync(k => k.Name == DemoTool.KeyName)) == 0; i++)
+        {
+            await Task.Delay(100);
+        }
+
+        var key = await factory.QueryAsync(db => db.ApiKeys.SingleAsync(k => k.Name == DemoTool.KeyName));
+        Assert.Equal(FinWatch.Server.Features.Access.ApiKeys.IngestScope, key.Scope);
+        var before = await factory.QueryAsync(db => db.IngestBatches.CountAsync());
+        var tool = factory.Services.GetRequiredService<DemoTool>();
+
+        for (var lot = 1; lot <= 2; lot++)
+        {
+            factory.Clock.Advance(TimeSpan.FromSeconds(60));
+            for (var i = 0; i < 200 && tool.LotsSent < lot; i++)
+            {
+                await Task.Delay(100);
+            }
+
+            Assert.Equal(lot, tool.LotsSent);
+        }
+
+        // Two batches through the HTTP CSV ingest, lots numbered after the history, measured by the live tool up to now.
+        var batches = await factory.QueryAsync(db => db.IngestBatches.OrderBy(b => b.Id).Skip(before).ToListAsync());
+        Assert.Equal(2, batches.Count);
+        Assert.All(batches, b => Assert.Equal("api-csv", b.Source));
+        var first = SeedDemo.DemoFab.FirstLotNumberAfter(new SeedDemo.DemoScale(4, 3));
+        var live = await factory.QueryAsync(db => db.Measurements.Where(m => m.MetrologyTool == SeedDemo.DemoFab.LiveProfileToolId).ToListAsync());
+        Assert.Equal([$"Q{first}", $"Q{first + 1}"], live.Select(m => m.LotId).Distinct().Order());
+        Assert.Equal(FinWatchAppFactory.Now.AddSeconds(120).ToUnixTimeMilliseconds(), live.Max(m => m.MeasuredAtMs));
+        Assert.Equal($"Q{first + 1}", tool.LastLot);
+        // The key was used, and its creation is in the audit trail.
+        Assert.NotNull(await factory.QueryAsync(db => db.ApiKeys.Where(k => k.Id == key.Id).Select(k => k.LastUsedAtMs).SingleAsync()));
+        Assert.Equal(1, await factory.QueryAsync(db => db.AuditEntries.CountAsync(a => a.Entity == "key" && a.Action == "created" && a.By == DemoLoader.Recorder)));
+    }
+
+    [Fact]
     public async Task Demo_LongEnoughWindow_CalibratesEachProductOnItsInventedElectricalTests()
     {
         // Lots reach electrical test 18 days after their profile, so a 21-day window has tested lots of both products.
