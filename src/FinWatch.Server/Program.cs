@@ -4,7 +4,9 @@ using FinWatch.Server.Infrastructure;
 // A command of the executable (`backup <file>`, `help`) runs instead of the web server.
 if (await ServerCommands.TryRunAsync(args) is { } exitCode) return exitCode;
 
-var builder = WebApplication.CreateBuilder(args);
+// Switches without a value (`--demo`) are read by their features; the configuration reader would take the next
+// argument as their value, so a setting written after `--demo` would be lost.
+var builder = WebApplication.CreateBuilder([.. args.Where(a => a != "--demo")]);
 builder.AddFinWatchHost();
 var features = new FeatureList(builder, args)
     .Add<AccessFeature>()

@@ -1,6 +1,9 @@
 using FinWatch.Data;
 using FinWatch.Data.Entities;
+using FinWatch.Physics;
+using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Features.Monitor;
+using FinWatch.Server.Features.Parameters;
 using FinWatch.Statistics.Rules;
 using FinWatch.Statistics.RunLength;
 using FinWatch.Statistics.Stability;
@@ -97,17 +100,8 @@ public static class DemoMonitor
                 continue; // too little baseline in a small demo window: the context stays in its baseline phase
             }
 
-            limit.Status = "approved";
-            limit.ApprovedBy = DemoApprover;
-            limit.ApprovedAtMs = effective;
-            limit.ApprovalComment = "demo: reviewed and approved at the end of the baseline (invented history). " + budget?.Describe();
-            if (limit.Verdict != BaselineLimits.Stable)
-            {
-                limit.Justification = "demo: no window of the invented baseline passes the check; approved so that the chamber is watched, "
-                    + "to be revised after the next maintenance (invented)";
-            }
-
-            limit.EffectiveFromMs = Math.Max(effective, limit.ToMs);
+            Approve(limit, effective, "demo: reviewed and approved at the end of the baseline (invented history). " + budget?.Describe(),
+                "demo: no window of the invented baseline passes the check; approved so that the chamber is watched, to be revised after the next maintenance (invented)");
             db.LimitVersions.Add(limit);
         }
 
@@ -212,6 +206,7 @@ public static class DemoMonitor
     /// </summary>
     public static async Task HandleExcursionsAsync(FinWatchDbContext db, long dayEndMs, CancellationToken cancellationToken)
     {
+        await RebaselineAfterMaintenanceAsync(db, dayEndMs, cancellationToken);
         var alerts = await db.Alerts.Where(a => a.State != AlertStates.Closed).ToListAsync(cancellationToken);
         var contexts = await db.ChartContexts.AsNoTracking().ToDictionaryAsync(c => c.Id, cancellationToken);
         foreach (var a in alerts)
@@ -250,10 +245,83 @@ public static class DemoMonitor
         await db.SaveChangesAsync(cancellationToken);
     }
 
-    // The monitor's own steps of the day happened when their points' lots were uploaded, not when the demo started.
+    /// <summary>
+    /// The invented engineer's answer to the chart's new-baseline suggestion: once <see cref="ChamberMaintenance.Window"/>
+    /// points of a chamber's chart follow its last maintenance and Welch's test says the mean moved there (the same
+    /// test the chart page shows), new limits are computed from those points with the baseline check, approved by the
+    /// second engineer at the end of that day and audited, as the limits page would do it.
+    /// </summary>
+    private static async Task RebaselineAfterMaintenanceAsync(FinWatchDbContext db, long dayEndMs, CancellationToken cancellationToken)
+    {
+        var events = await db.MaintenanceEvents.AsNoTracking().Where(e => e.OccurredAtMs <= dayEndMs).ToListAsync(cancellationToken);
+        foreach (var context in await db.ChartContexts.AsNoTracking().Where(c => c.Chamber != null).ToListAsync(cancellationToken))
+        {
+            var last = events.Where(e => e.Chamber == context.Chamber).MaxBy(e => e.OccurredAtMs);
+            var limits = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == context.Id).ToListAsync(cancellationToken);
+            if (last is null || limits.Count == 0 || limits.Any(l => l.Status == "approved" && l.FromMs > last.OccurredAtMs))
+            {
+                continue; // no maintenance, no limits yet, or limits from after this maintenance already
+            }
+
+            var points = db.ChartPoints.AsNoTracking().Where(p => p.ContextId == context.Id);
+            var after = await points.Where(p => p.MeasuredAtMs > last.OccurredAtMs).OrderBy(p => p.Seq).Take(ChamberMaintenance.Window).ToListAsync(cancellationToken);
+            if (after.Count < ChamberMaintenance.Window)
+            {
+                continue;
+            }
+
+            var before = await points.Where(p => p.MeasuredAtMs <= last.OccurredAtMs).OrderByDescending(p => p.Seq).Take(ChamberMaintenance.Window)
+                .Select(p => p.Value).ToArrayAsync(cancellationToken);
+            var unit = FinParameters.TryGet(context.Parameter, out var parameter) ? parameter.Unit : "";
+            var suggestion = ChamberMaintenance.Suggest(ChamberMaintenance.Marker(last, after[0].Seq), before, [.. after.Select(p => p.Value)], unit);
+            if (!suggestion.SuggestNewBaseline)
+            {
+                continue;
+            }
+
+            var (centre, sigma) = BaselineLimits.Estimate(context, after);
+            if (sigma is not > 0)
+            {
+                continue;
+            }
+
+            var limit = BaselineLimits.Draft(context, limits.Max(l => l.Version) + 1, centre, sigma.Value, after, [], DemoEngineer, dayEndMs,
+                $"demo: new baseline after the {ChamberMaintenance.Words(MaintenanceKindText.ToText(last.Kind))} of {last.Chamber}: {suggestion.Message}");
+            BaselineLimits.Check(context, limit, after);
+            Approve(limit, dayEndMs, "demo: new limits from the lots after the maintenance, as the chart suggested (invented history)",
+                "demo: the lots after the maintenance are the chamber's new state; approved so that it is watched from now, to be reviewed with more lots (invented)");
+            db.LimitVersions.Add(limit);
+            await db.SaveChangesAsync(cancellationToken);
+            var code = $"{context.Code} v{limit.Version}";
+            db.AuditEntries.Add(new AuditEntry
+            {
+                AtMs = dayEndMs, By = DemoApprover, Entity = "limits", Key = code, Action = "approved",
+                AfterJson = System.Text.Json.JsonSerializer.Serialize(BaselineLimits.Describe(context, limit), FeedLog.Json),
+            });
+        }
+
+        await db.SaveChangesAsync(cancellationToken);
+    }
+
+    private static void Approve(LimitVersion limit, long atMs, string comment, string justification)
+    {
+        limit.Status = "approved";
+        limit.ApprovedBy = DemoApprover;
+        limit.ApprovedAtMs = atMs;
+        limit.ApprovalComment = comment;
+        if (limit.Verdict != BaselineLimits.Stable)
+        {
+            limit.Justification = justification;
+        }
+
+        limit.EffectiveFromMs = Math.Max(atMs, limit.ToMs);
+    }
+
+    // The monitor's own steps of the day happened when their points' lots were uploaded, not when the demo started
+    // (at or after the day's end: on the last day the clock may not have moved on since the history ended).
     private static async Task DateMachineStepsAsync(FinWatchDbContext db, Alert a, long dayEndMs, CancellationToken cancellationToken)
     {
-        var events = await db.AlertEvents.Where(e => e.AlertId == a.Id && e.By == "FinWatch" && e.AtMs > dayEndMs).ToListAsync(cancellationToken);
+        var events = await db.AlertEvents.Where(e => e.AlertId == a.Id && e.By == "FinWatch" && e.AtMs >= dayEndMs).ToListAsync(cancellationToken);
         var ids = events.Select(e => e.PointId).OfType<long>().Append(a.LastPointId).ToList();
         var measured = await db.ChartPoints.AsNoTracking().Where(p => ids.Contains(p.Id)).ToDictionaryAsync(p => p.Id, p => p.MeasuredAtMs, cancellationToken);
         foreach (var e in events)
@@ -261,17 +329,17 @@ public static class DemoMonitor
             e.AtMs = e.PointId is { } id && measured.TryGetValue(id, out var t) ? t + UploadDelayMs : a.LastSignalAtMs + UploadDelayMs;
         }
 
-        if (a.RaisedAtMs > dayEndMs)
+        if (a.RaisedAtMs >= dayEndMs)
         {
             a.RaisedAtMs = a.FirstSignalAtMs + UploadDelayMs;
         }
 
-        if (a.BackInControlAtMs > dayEndMs)
+        if (a.BackInControlAtMs >= dayEndMs)
         {
             a.BackInControlAtMs = events.Where(e => e.Kind == "back-in-control").Select(e => (long?)e.AtMs).LastOrDefault() ?? a.BackInControlAtMs;
         }
 
-        if (a.UpdatedAtMs > dayEndMs)
+        if (a.UpdatedAtMs >= dayEndMs)
         {
             a.UpdatedAtMs = measured.TryGetValue(a.LastPointId, out var last) ? last + UploadDelayMs : a.UpdatedAtMs;
         }
