@@ -122,6 +122,23 @@ public static class ChamberMaintenance
         double? hours = after.Count == 0 ? null : (after.Max(p => p.MeasuredAtMs) - last.OccurredAtMs) / 3_600_000.0;
         var marker = Marker(last, after.Count == 0 ? null : after[0].Seq);
         var suggestion = Suggest(marker, [.. before], [.. after.Take(Window).Select(p => p.Value)], unit);
+        if (suggestion.SuggestNewBaseline)
+        {
+            // Once limits computed from points after the maintenance are approved, the suggestion has been followed.
+            var rebased = await db.LimitVersions.AsNoTracking()
+                .Where(l => l.ContextId == context.Id && l.Status == "approved" && l.FromMs > last.OccurredAtMs)
+                .OrderByDescending(l => l.Version).Select(l => (int?)l.Version).FirstOrDefaultAsync(cancellationToken);
+            if (rebased is { } version)
+            {
+                suggestion = suggestion with
+                {
+                    SuggestNewBaseline = false,
+                    Message = suggestion.Message.Replace(ConsiderNewLimits, string.Create(CultureInfo.InvariantCulture,
+                        $" New limits (v{version}) computed from the points after it are approved."), StringComparison.Ordinal),
+                };
+            }
+        }
+
         return new MaintenanceSince(chamber, marker, after.Select(p => p.LotId).Distinct(StringComparer.Ordinal).Count(), after.Count, hours, suggestion);
     }
 
@@ -154,6 +171,8 @@ public static class ChamberMaintenance
         return new ForecastMaintenance(chamber, marker, lots, hours, message);
     }
 
+    private const string ConsiderNewLimits = " Consider computing new limits from the points after it.";
+
     /// <summary>
     /// Welch's t-test of the points after a maintenance against those before it (docs/statistics.md §4.5): a new
     /// baseline is suggested when both sides have at least <see cref="MinimumEachSide"/> points and p &lt; <see cref="Alpha"/>.
@@ -172,7 +191,7 @@ public static class ChamberMaintenance
         var suggest = p < Alpha;
         var moved = $"mean {Format(r.FirstMean, unit)} in the {r.FirstCount} points before {what}, {Format(r.SecondMean, unit)} in the {r.SecondCount} after (Welch's t-test, {Probability(p)})";
         var message = suggest
-            ? $"The mean moved at the maintenance: {moved}. Consider computing new limits from the points after it."
+            ? $"The mean moved at the maintenance: {moved}.{ConsiderNewLimits}"
             : $"No shift at the maintenance: {moved}; no new baseline is suggested.";
         return new(suggest, message, Window, r.FirstCount, r.SecondCount, r.FirstMean, r.SecondMean, r.Difference, unit,
             Finite(r.T), Finite(r.DegreesOfFreedom), p, Alpha);

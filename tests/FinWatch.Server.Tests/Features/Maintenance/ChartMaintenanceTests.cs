@@ -88,6 +88,30 @@ public class ChartMaintenanceTests : IntegrationTest
     }
 
     [Fact]
+    public async Task Context_NewLimitsFromThePointsAfterTheMaintenance_TheSuggestionIsFollowed()
+    {
+        await ChartWithMaintenanceAsync(0.3);
+        await ApproveBaselineAsync(Client, Code); // v1 from the 20 points before the wet clean: the suggestion stands
+        var suggested = (await ReadJsonAsync(await Client.GetAsync($"/api/contexts/{Code}"))).GetProperty("maintenance").GetProperty("baseline");
+        Assert.True(suggested.GetProperty("suggest_new_baseline").GetBoolean());
+
+        // v2 from points 21–30 (lot A0001, after the clean), approved by the second engineer.
+        var computed = await Client.PostAsJsonAsync($"/api/contexts/{Code}/limits", new { from_seq = 21, to_seq = 30, reason = "after the wet clean" });
+        computed.EnsureSuccessStatusCode();
+        using var approve = new HttpRequestMessage(HttpMethod.Post, $"/api/contexts/{Code}/limits/2/approve")
+        {
+            Content = JsonContent.Create(new { comment = "new baseline", effective_from = AfterLotAt.AddHours(1), justification = "10 wafers after the clean" }),
+        };
+        approve.Headers.Add(FinWatch.Testing.TestAuthHandler.Header, SecondApprover);
+        (await Client.SendAsync(approve)).EnsureSuccessStatusCode();
+
+        var followed = (await ReadJsonAsync(await Client.GetAsync($"/api/contexts/{Code}"))).GetProperty("maintenance").GetProperty("baseline");
+        Assert.False(followed.GetProperty("suggest_new_baseline").GetBoolean());
+        Assert.Equal(suggested.GetProperty("p_value").GetDouble(), followed.GetProperty("p_value").GetDouble());
+        Assert.EndsWith("New limits (v2) computed from the points after it are approved.", followed.GetProperty("message").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task Context_NoShiftAfterTheMaintenance_SuggestsNothing()
     {
         await ChartWithMaintenanceAsync(0.0);
