@@ -116,5 +116,18 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
     /// <summary>Waits until the page's live-feed line says it is connected and current.</summary>
     protected Task WaitLiveAsync() => Page.Locator(".link-state[data-state='live']").WaitForAsync();
 
+    /// <summary>Photographs the whole page to FINWATCH_SCREENSHOTS/<paramref name="name"/>.png when that folder is set.</summary>
+    protected async Task ScreenshotIfAskedAsync(string name)
+    {
+        if (Environment.GetEnvironmentVariable("FINWATCH_SCREENSHOTS") is { Length: > 0 } dir)
+        {
+            Directory.CreateDirectory(dir);
+            await Page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(dir, name + ".png"), FullPage = true });
+        }
+    }
+
+    protected async Task AssertNoSidewaysScrollAsync() =>
+        Assert.True(await Page.EvaluateAsync<bool>("() => document.documentElement.scrollWidth <= window.innerWidth"), "the page is wider than the window");
+
     protected void AssertNoPageProblems() => Assert.True(problems.Count == 0, "the page reported: " + string.Join(" | ", problems));
 }

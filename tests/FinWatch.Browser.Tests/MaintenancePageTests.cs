@@ -25,18 +25,6 @@ public sealed class MaintenancePageTests(BrowserFixture browser) : BrowserTest(b
         await IngestAsync(Client, Wafers("A0001", new DateTimeOffset(2026, 11, 24, 6, 0, 0, TimeSpan.Zero), [.. before.Take(10).Select(o => o + 0.3)]));
     }
 
-    private async Task ShotAsync(string name)
-    {
-        if (Environment.GetEnvironmentVariable("FINWATCH_SCREENSHOTS") is { Length: > 0 } dir)
-        {
-            Directory.CreateDirectory(dir);
-            await Page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(dir, name + ".png"), FullPage = true });
-        }
-    }
-
-    private async Task AssertNoSidewaysScrollAsync() =>
-        Assert.True(await Page.EvaluateAsync<bool>("() => document.documentElement.scrollWidth <= window.innerWidth"), "the page is wider than the window");
-
     [BrowserFact]
     public async Task Form_RecordsAMaintenance_ThatTheChartAndTheFloorShow()
     {
@@ -56,7 +44,7 @@ public sealed class MaintenancePageTests(BrowserFixture browser) : BrowserTest(b
         await Assertions.Expect(row).ToContainTextAsync("22 Nov 2026, 12:00");
         await Assertions.Expect(row).ToContainTextAsync(Person);
         await AssertNoSidewaysScrollAsync();
-        await ShotAsync("maintenance");
+        await ScreenshotIfAskedAsync("maintenance");
 
         var stored = (await Client.GetFromJsonAsync<JsonElement>("/api/maintenance")).EnumerateArray().Single();
         Assert.Equal(("ETA-1", "wet_clean", "Crew Amber", Person), (stored.GetProperty("chamber").GetString(), stored.GetProperty("kind").GetString(),
@@ -69,12 +57,12 @@ public sealed class MaintenancePageTests(BrowserFixture browser) : BrowserTest(b
         await Assertions.Expect(Page.Locator("#suggestion")).ToContainTextAsync("New baseline suggested");
         await Assertions.Expect(Page.Locator("#legend")).ToContainTextAsync("Blue diamonds on dashed lines mark maintenance (1 in view)");
         await AssertNoSidewaysScrollAsync();
-        await ShotAsync("chart-maintenance");
+        await ScreenshotIfAskedAsync("chart-maintenance");
 
         await OpenAsync("index.html");
         await WaitLiveAsync();
         await Assertions.Expect(Page.Locator($".tile[data-context='{Code}']")).ToContainTextAsync("1 lot and 42.2 h since the wet clean · new baseline suggested");
-        await ShotAsync("floor-maintenance");
+        await ScreenshotIfAskedAsync("floor-maintenance");
         AssertNoPageProblems();
     }
 

@@ -1,3 +1,4 @@
+using System.Net.Http.Json;
 using FinWatch.Testing;
 using Microsoft.Playwright;
 using static FinWatch.Testing.ShiftFixture;
@@ -7,7 +8,8 @@ namespace FinWatch.Browser.Tests;
 /// <summary>
 /// The shift report page for the late shift of 2026-12-01 (ShiftFixture, default pattern, UTC): lot L0001 measured at
 /// 14:30 with wafer means 6.02, 5.98, 6.02, 5.98 and 7.5 nm raises one WE1 alert at 15:00, acknowledged at 16:00
-/// (ShiftReportTests works out the Cpk values shown here by hand).
+/// (ShiftReportTests works out the Cpk values shown here by hand); a wet clean of ETA-1 finished at 15:30. The page is
+/// photographed to FINWATCH_SCREENSHOTS when it is set.
 /// </summary>
 public sealed class ShiftReportPageTests(BrowserFixture browser) : BrowserTest(browser)
 {
@@ -17,6 +19,11 @@ public sealed class ShiftReportPageTests(BrowserFixture browser) : BrowserTest(b
         await TestProducts.CreateBothAsync(Client);
         await ShiftFixture.LateShiftAsync(Client, Factory.Clock, "seen at the tool <b>held</b>");
         Factory.Clock.SetUtcNow(Day.AddHours(23));
+        (await Client.PostAsJsonAsync("/api/maintenance", new
+        {
+            chamber = "ETA-1", kind = "wet_clean", occurred_at = Day.AddHours(15.5), performed_by = "Crew Amber",
+            note = "chamber opened after 1200 RF hours; edge ring and focus ring replaced, 25 seasoning wafers run before release to production",
+        })).EnsureSuccessStatusCode();
     }
 
     [BrowserFact]
@@ -43,6 +50,13 @@ public sealed class ShiftReportPageTests(BrowserFixture browser) : BrowserTest(b
 
         await Assertions.Expect(Page.Locator("#actions-table tbody tr")).ToHaveCountAsync(1);
         await Assertions.Expect(Page.Locator("#actions-table")).ToContainTextAsync("seen at the tool <b>held</b>"); // text, not markup
+        var maintenance = Page.Locator("#maintenance-table tbody tr");
+        await Assertions.Expect(maintenance).ToHaveCountAsync(1);
+        await Assertions.Expect(maintenance).ToContainTextAsync("wet clean"); // in words, not the API's wet_clean
+        await Assertions.Expect(maintenance).ToContainTextAsync("01 Dec 2026, 15:30"); // the browser runs in UTC
+        await Assertions.Expect(maintenance).ToContainTextAsync("ETA-1");
+        await Assertions.Expect(maintenance).ToContainTextAsync("Crew Amber");
+        await Assertions.Expect(maintenance).ToContainTextAsync("test administrator"); // who recorded it through the API
         await Assertions.Expect(Page.Locator("#open-table tbody tr")).ToHaveCountAsync(1);
         await Assertions.Expect(Page.Locator("#ooc-table tbody tr")).ToContainTextAsync("out of control");
         await Assertions.Expect(Page.Locator("#risks-table tbody tr")).ToHaveCountAsync(5);
@@ -55,6 +69,9 @@ public sealed class ShiftReportPageTests(BrowserFixture browser) : BrowserTest(b
         await Assertions.Expect(capability).ToContainTextAsync("6.300 nm");
         await Assertions.Expect(capability).ToContainTextAsync("-1.19 (Cpk)");
         await Assertions.Expect(Page.Locator("#report-caution")).ToContainTextAsync("not measured thresholds");
+
+        await AssertNoSidewaysScrollAsync();
+        await ScreenshotIfAskedAsync("shift-maintenance");
 
         var href = await Page.Locator("#csv-link").GetAttributeAsync("href");
         Assert.Equal("/api/reports/shift.csv?date=2026-12-01&shift=late", href);
@@ -71,6 +88,7 @@ public sealed class ShiftReportPageTests(BrowserFixture browser) : BrowserTest(b
         await Page.Locator("#show-shift").ClickAsync();
         await Assertions.Expect(Page.Locator("#report-title")).ToHaveTextAsync("Shift report: early, 2026-12-01");
         await Assertions.Expect(Page.Locator("#raised-none")).ToHaveTextAsync("No alert was raised in this shift.");
+        await Assertions.Expect(Page.Locator("#maintenance-none")).ToContainTextAsync("none recorded");
         await Assertions.Expect(Page.Locator("#csv-link")).ToHaveAttributeAsync("href", "/api/reports/shift.csv?date=2026-12-01&shift=early");
         AssertNoPageProblems();
     }

@@ -13,7 +13,7 @@ public static class ReportEndpoints
     {
         var group = app.MapGroup("/api/reports").WithTags("Reports");
         group.MapGet("/shift", JsonAsync)
-            .WithSummary("Shift report: lots measured, alerts raised, handled and open, contexts out of control, predicted ΔVT risks, Cpk changes (format=csv for CSV)");
+            .WithSummary("Shift report: lots measured, alerts raised, handled and open, chamber maintenance, contexts out of control, predicted ΔVT risks, Cpk changes (format=csv for CSV)");
         group.MapGet("/shift.csv", CsvAsync).WithSummary("The shift report as CSV, one section after another");
     }
 

@@ -1,6 +1,7 @@
 using System.Text.Json;
 using FinWatch.Data;
 using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Features.Model;
 using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Features.Parameters;
@@ -70,7 +71,8 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
 
         return new ShiftReportResponse(w.Name, w.Date, o.TimeZone, w.Start, w.End, (w.End - w.Start).TotalHours,
             now >= w.End ? "finished" : now >= w.Start ? "in_progress" : "not_started", now, [.. o.EffectivePattern.Select(s => s.Name)],
-            await LotsAsync(w, products, cancellationToken), raised, await SignalsMeasuredAsync(w, contexts, points, cancellationToken), actions, [.. notClosed.Select(Row)], outOfControl,
+            await LotsAsync(w, products, cancellationToken), raised, await SignalsMeasuredAsync(w, contexts, points, cancellationToken), actions,
+            await MaintenanceAsync(w, contexts, cancellationToken), [.. notClosed.Select(Row)], outOfControl,
             Risks(w, contexts, points, o.TopRisks), Capability(w, contexts, products, points, o.CapabilityMinPoints), EvaluateModel.PredictionCaution);
     }
 
@@ -100,6 +102,15 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
         }
 
         return [.. rows.OrderBy(r => r.FirstMeasuredAt).ThenBy(r => r.Context, StringComparer.Ordinal)];
+    }
+
+    // Maintenance by the time it finished (the chamber went back to production), through the occurred-at index.
+    private async Task<List<MaintenancePerformedRow>> MaintenanceAsync(ShiftWindow w, List<ChartContext> contexts, CancellationToken cancellationToken)
+    {
+        var events = await db.MaintenanceEvents.AsNoTracking().Where(e => e.OccurredAtMs >= w.StartMs && e.OccurredAtMs < w.EndMs)
+            .OrderBy(e => e.OccurredAtMs).ThenBy(e => e.Id).ToListAsync(cancellationToken);
+        return [.. events.Select(MaintenanceLog.Describe).Select(m => new MaintenancePerformedRow(m.Id, m.Chamber, m.Kind, m.OccurredAt, m.PerformedBy,
+            m.Note, m.RecordedBy, [.. contexts.Where(c => c.Chamber == m.Chamber).Select(c => new ChamberContextRow(c.Code, c.Title))]))];
     }
 
     private async Task<List<LotMeasuredRow>> LotsAsync(ShiftWindow w, Dictionary<int, Product> products, CancellationToken cancellationToken)

@@ -2,7 +2,7 @@ using FinWatch.Server.Features.Monitor;
 
 namespace FinWatch.Server.Features.Reports;
 
-/// <summary>The shift report: what was measured, raised, handled and left open in one shift. Times are UTC.</summary>
+/// <summary>The shift report: what was measured, raised, handled, maintained and left open in one shift. Times are UTC.</summary>
 public sealed record ShiftReportResponse(
     string Shift, DateOnly Date, string TimeZone, DateTimeOffset Start, DateTimeOffset End, double LengthHours, string Status,
     DateTimeOffset GeneratedAt, IReadOnlyList<string> Shifts,
@@ -10,6 +10,7 @@ public sealed record ShiftReportResponse(
     IReadOnlyList<ShiftAlertRow> AlertsRaised,
     IReadOnlyList<SignalsMeasuredRow> SignalsMeasured,
     IReadOnlyList<AlertActionRow> AlertActions,
+    IReadOnlyList<MaintenancePerformedRow> MaintenancePerformed,
     IReadOnlyList<ShiftAlertRow> AlertsOpenAtEnd,
     IReadOnlyList<OutOfControlRow> ContextsOutOfControl,
     IReadOnlyList<DvtRiskRow> DvtRisks,
@@ -39,6 +40,17 @@ public sealed record SignalsMeasuredRow(long? AlertId, string Context, string Co
 /// <summary>An acknowledgement, disposition (with the reaction-plan steps) or close recorded during the shift.</summary>
 public sealed record AlertActionRow(long AlertId, string Context, string Rule, string Severity, string LotId, string Action, DateTimeOffset At,
     string By, string Comment, IReadOnlyList<StepTaken>? Steps);
+
+/// <summary>
+/// A maintenance of a chamber or tool that finished in the shift (its <c>occurred_at</c>, when the chamber went back to
+/// production), as the maintenance log holds it (<c>kind</c> spelt as there), with the chart contexts restricted to
+/// that chamber; a context of every chamber is not listed.
+/// </summary>
+public sealed record MaintenancePerformedRow(long Id, string Chamber, string Kind, DateTimeOffset OccurredAt, string PerformedBy, string Note,
+    string RecordedBy, IReadOnlyList<ChamberContextRow> Contexts);
+
+/// <summary>A chart context that watches one chamber: its code and title.</summary>
+public sealed record ChamberContextRow(string Context, string ContextTitle);
 
 /// <summary>A context with approved limits and at least one alert not closed at the shift's end.</summary>
 public sealed record OutOfControlRow(string Context, string Title, string Product, string Step, string Parameter, string? Chamber,

@@ -161,6 +161,57 @@ public class ShiftReportTests : IntegrationTest
         Assert.Empty(Items(night, "signals_measured")); // nothing was measured in the night
     }
 
+    private async Task RecordMaintenanceAsync(string chamber, string kind, DateTimeOffset at, string note)
+    {
+        var response = await Client.PostAsJsonAsync("/api/maintenance", new { chamber, kind, occurred_at = at, performed_by = "Crew Amber", note });
+        Assert.True(response.IsSuccessStatusCode, await response.Content.ReadAsStringAsync());
+    }
+
+    [Fact]
+    public async Task Maintenance_FinishedInTheShift_IsListedInTimeOrder_WithTheChartsOfItsChamber()
+    {
+        // The late shift runs [14:00, 22:00). A chart of ETA-1 only beside TRI-TOP (every chamber); four events recorded at
+        // 23:00: one a millisecond before the start (early shift), one at the start, one a millisecond before the end, one
+        // at the end (night shift).
+        await ShiftFixture.LateShiftAsync(Client, Factory.Clock, "seen at the tool");
+        (await Client.PostAsJsonAsync("/api/contexts", new
+        {
+            code = "TRI-TOP-ETA1", title = "Top width, etch chamber ETA-1", product = TestProducts.TriGate, step = "FIN-PROFILE",
+            parameter = "top_width_nm", chamber = "ETA-1", chart_type = "xbar", subgroup = "wafer", rules = "westernElectric",
+        })).EnsureSuccessStatusCode();
+        Factory.Clock.SetUtcNow(Day.AddHours(23));
+        await RecordMaintenanceAsync("ETA-1", "part_replacement", Day.AddHours(14).AddMilliseconds(-1), "edge ring");
+        await RecordMaintenanceAsync("LNA-1", "seasoning", Day.AddHours(22).AddMilliseconds(-1), "");
+        await RecordMaintenanceAsync("ETA-1", "wet_clean", Day.AddHours(14), "opened after 1200 RF hours, \"B\" side");
+        await RecordMaintenanceAsync("ETA-1", "repair", Day.AddHours(22), "RF match");
+
+        var late = Items(await ReportAsync("?date=2026-12-01&shift=late"), "maintenance_performed");
+        Assert.Equal([("ETA-1", "wet_clean"), ("LNA-1", "seasoning")], late.Select(m => (m.GetProperty("chamber").GetString(), m.GetProperty("kind").GetString())));
+        Assert.Equal([Day.AddHours(14), Day.AddHours(22).AddMilliseconds(-1)], late.Select(m => m.GetProperty("occurred_at").GetDateTimeOffset()));
+        Assert.Equal(("Crew Amber", "opened after 1200 RF hours, \"B\" side", "test administrator"),
+            (late[0].GetProperty("performed_by").GetString(), late[0].GetProperty("note").GetString(), late[0].GetProperty("recorded_by").GetString()));
+        var chart = Assert.Single(late[0].GetProperty("contexts").EnumerateArray());
+        Assert.Equal(("TRI-TOP-ETA1", "Top width, etch chamber ETA-1"), (chart.GetProperty("context").GetString(), chart.GetProperty("context_title").GetString()));
+        Assert.Empty(late[1].GetProperty("contexts").EnumerateArray()); // TRI-TOP watches every chamber, so names none
+
+        // The events at the edges belong to the neighbouring shifts.
+        var early = Assert.Single(Items(await ReportAsync("?date=2026-12-01&shift=early"), "maintenance_performed"));
+        Assert.Equal(("part_replacement", Day.AddHours(14).AddMilliseconds(-1)), (early.GetProperty("kind").GetString(), early.GetProperty("occurred_at").GetDateTimeOffset()));
+        var night = Assert.Single(Items(await ReportAsync("?date=2026-12-01&shift=night"), "maintenance_performed"));
+        Assert.Equal(("repair", Day.AddHours(22)), (night.GetProperty("kind").GetString(), night.GetProperty("occurred_at").GetDateTimeOffset()));
+
+        // The CSV has the same rows.
+        var sections = await CsvSectionsAsync("/api/reports/shift.csv?date=2026-12-01&shift=late");
+        var rows = sections["maintenance_performed"];
+        Assert.Equal(2, rows.Count);
+        Assert.Equal(late[0].GetProperty("id").GetInt64().ToString(CultureInfo.InvariantCulture), rows[0]["maintenance_id"]);
+        Assert.Equal(("ETA-1", "wet_clean", "2026-12-01T14:00:00.000Z", "Crew Amber"), (rows[0]["chamber"], rows[0]["kind"], rows[0]["occurred_at"], rows[0]["performed_by"]));
+        Assert.Equal(("opened after 1200 RF hours, \"B\" side", "test administrator"), (rows[0]["note"], rows[0]["recorded_by"]));
+        Assert.Equal(("TRI-TOP-ETA1", "Top width, etch chamber ETA-1"), (rows[0]["contexts"], rows[0]["context_titles"]));
+        Assert.Equal(("LNA-1", "seasoning", "2026-12-01T21:59:59.999Z"), (rows[1]["chamber"], rows[1]["kind"], rows[1]["occurred_at"]));
+        Assert.Equal(("", ""), (rows[1]["note"], rows[1]["contexts"]));
+    }
+
     [Fact]
     public async Task NightShift_RunsAcrossMidnight_AndBelongsToTheDateItStartsOn()
     {
@@ -207,7 +258,8 @@ public class ShiftReportTests : IntegrationTest
         await HistoryAsync();
         var r = await ReportAsync("?date=2026-12-01&shift=early");
         Assert.Equal(Day.AddHours(6), r.GetProperty("start").GetDateTimeOffset());
-        foreach (var section in new[] { "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "alerts_open_at_end", "contexts_out_of_control", "dvt_risks" })
+        foreach (var section in new[] { "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "maintenance_performed", "alerts_open_at_end",
+            "contexts_out_of_control", "dvt_risks" })
         {
             Assert.True(Items(r, section).Count == 0, $"{section} should be empty before 14:00: {r.GetProperty(section)}");
         }
@@ -262,25 +314,10 @@ public class ShiftReportTests : IntegrationTest
         var bytes = await response.Content.ReadAsByteArrayAsync();
         Assert.Equal(bytes, await Client.GetByteArrayAsync("/api/reports/shift?date=2026-12-01&shift=night&format=csv"));
 
-        // Read back with the project's RFC 4180 reader: one width throughout, a header row opening each section.
-        var records = new List<string[]>();
-        using (var reader = new CsvRecordReader(new MemoryStream(bytes)))
-        {
-            var fields = new List<string>();
-            while (await reader.ReadRecordAsync(fields, CancellationToken.None))
-            {
-                records.Add([.. fields]);
-            }
-        }
-
-        Assert.Single(records.Select(r => r.Length).Distinct());
-        var sections = records.GroupBy(r => r[0]).ToDictionary(g => g.Key, g =>
-        {
-            var header = g.First();
-            Assert.Equal("header", header[1]);
-            return g.Skip(1).Select(r => header.Skip(2).Zip(r.Skip(2)).Where(p => p.First.Length > 0).ToDictionary(p => p.First, p => p.Second)).ToList();
-        });
-        Assert.Equal(["shift", "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "alerts_open_at_end", "contexts_out_of_control", "dvt_risks", "capability_changes"],
+        var records = await CsvRecordsAsync(bytes);
+        var sections = Sections(records);
+        Assert.Equal(["shift", "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "maintenance_performed", "alerts_open_at_end",
+                "contexts_out_of_control", "dvt_risks", "capability_changes"],
             records.Select(r => r[0]).Distinct());
 
         Assert.Equal("night", sections["shift"][0]["shift"]);
@@ -303,6 +340,39 @@ public class ShiftReportTests : IntegrationTest
         Assert.Contains("3 points", cap["shift_reason"], StringComparison.Ordinal);
         Assert.Equal(0.35 / (3 * SigmaWithin), double.Parse(cap["previous_seven_days_cpk"], CultureInfo.InvariantCulture), 1e-9);
         Assert.Equal(Encoding.UTF8.GetString(bytes).Split("\r\n").Length - 1, records.Count); // CRLF after every record, no bare LF inside
+    }
+
+    // Read back with the project's RFC 4180 reader: one width throughout.
+    private static async Task<List<string[]>> CsvRecordsAsync(byte[] bytes)
+    {
+        var records = new List<string[]>();
+        using (var reader = new CsvRecordReader(new MemoryStream(bytes)))
+        {
+            var fields = new List<string>();
+            while (await reader.ReadRecordAsync(fields, CancellationToken.None))
+            {
+                records.Add([.. fields]);
+            }
+        }
+
+        Assert.Single(records.Select(r => r.Length).Distinct());
+        return records;
+    }
+
+    // Each section's rows by column name (the padding left out), after the header row that opens the section.
+    private static Dictionary<string, List<Dictionary<string, string>>> Sections(List<string[]> records) =>
+        records.GroupBy(r => r[0]).ToDictionary(g => g.Key, g =>
+        {
+            var header = g.First();
+            Assert.Equal("header", header[1]);
+            return g.Skip(1).Select(r => header.Skip(2).Zip(r.Skip(2)).Where(p => p.First.Length > 0).ToDictionary(p => p.First, p => p.Second)).ToList();
+        });
+
+    private async Task<Dictionary<string, List<Dictionary<string, string>>>> CsvSectionsAsync(string path)
+    {
+        var response = await Client.GetAsync(path);
+        response.EnsureSuccessStatusCode();
+        return Sections(await CsvRecordsAsync(await response.Content.ReadAsByteArrayAsync()));
     }
 }
 

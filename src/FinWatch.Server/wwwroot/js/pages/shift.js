@@ -3,7 +3,7 @@
 import { el, fill, $, param } from '../core/dom.js';
 import { getJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
-import { withUnit, number, when, zoneName, alertStateWords } from '../core/format.js';
+import { withUnit, number, when, zoneName, alertStateWords, maintenanceWords } from '../core/format.js';
 
 frame('shift.html');
 const form = $('#shift-form');
@@ -78,6 +78,13 @@ function render(r) {
       el('td', {}, alertLink(a.alert_id)), el('td', {}, chartLink(a.context)), el('td', {}, a.rule), el('td', {}, lotLink(a.lot_id)),
       el('td', {}, a.action), el('td', {}, when(a.at)), el('td', {}, a.by), el('td', {}, a.comment || '—'), el('td', {}, steps(a.steps)))),
     'No alert was acknowledged, dispositioned or closed in this shift.'));
+
+  fill($('#maintenance'), table('maintenance', [['finished'], ['chamber or tool'], ['what was done'], ['done by'], ['note'], ['recorded by'], ['charts of this chamber only']],
+    r.maintenance_performed.map((m) => el('tr', { dataset: { event: m.id } },
+      el('td', {}, when(m.occurred_at)), el('td', {}, m.chamber), el('td', {}, el('span', { class: 'maint' }, maintenanceWords[m.kind] ?? m.kind)),
+      el('td', {}, m.performed_by), el('td', {}, m.note || '—'), el('td', {}, m.recorded_by),
+      el('td', {}, m.contexts.length ? m.contexts.map((c, i) => [i ? ', ' : '', chartLink(c.context, c.context_title)]) : '—'))),
+    'No chamber maintenance finished in this shift: none recorded in the maintenance log.'));
 
   fill($('#open-alerts'), table('open', alertHeaders, r.alerts_open_at_end.map(alertRow), 'Every alert was closed at the end of this shift.'));
 
