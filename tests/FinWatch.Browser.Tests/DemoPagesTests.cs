@@ -103,7 +103,8 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
         await OpenAsync("audit.html");
         await Assertions.Expect(Page.Locator("#audit tbody tr[data-entry]")).Not.ToHaveCountAsync(0);
         await ShotAsync("audit");
-        await Assertions.Expect(Page.Locator(".strip .demo-mark")).ToContainTextAsync("Demo mode");
+        await Assertions.Expect(Page.Locator(".strip .demo-mark")).ToContainTextAsync("Demo");
+        await Assertions.Expect(Page.Locator(".strip .demo-mark")).ToHaveAttributeAsync("title", new Regex("^Demo mode: signed in automatically as .*invented"));
         AssertNoPageProblems();
     }
 }

@@ -17,6 +17,7 @@ public static class AlertEndpoints
     {
         var group = app.MapGroup("/api/alerts").WithTags("Monitor");
         group.MapGet("/", ListAsync).WithSummary("Alerts, most severe and newest first; filter by state, context, severity, escalated");
+        group.MapGet("/counts", CountsAsync).WithSummary("How many alerts are not acknowledged, not closed, and escalated (the navigation's badge)");
         group.MapGet("/{id:long}", GetAsync).WithSummary("One alert with its reaction plan, history and points");
         group.MapPost("/{id:long}/acknowledge", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, IDatabaseDialect dialect, TimeProvider clock,
             MonitorFeed feed, CancellationToken ct) =>
@@ -27,6 +28,15 @@ public static class AlertEndpoints
         group.MapPost("/{id:long}/close", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, IDatabaseDialect dialect, TimeProvider clock,
             MonitorFeed feed, CancellationToken ct) =>
             ActAsync(id, r, AlertStates.Dispositioned, AlertStates.Closed, http, db, dialect, clock, feed, ct)).RequireAuthorization(Permissions.Disposition).WithSummary("Close a dispositioned alert");
+    }
+
+    private static async Task<Ok<AlertCounts>> CountsAsync(FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var byState = await db.Alerts.AsNoTracking().Where(a => a.State != AlertStates.Closed)
+            .GroupBy(a => new { a.State, Escalated = a.EscalatedAtMs != null }).Select(g => new { g.Key.State, g.Key.Escalated, Count = g.Count() })
+            .ToListAsync(cancellationToken);
+        return TypedResults.Ok(new AlertCounts(
+            byState.Where(g => g.State == AlertStates.Open).Sum(g => g.Count), byState.Sum(g => g.Count), byState.Where(g => g.Escalated).Sum(g => g.Count)));
     }
 
     private static async Task<Results<Ok<List<AlertMessage>>, ValidationProblem>> ListAsync(

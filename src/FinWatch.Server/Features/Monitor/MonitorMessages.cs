@@ -22,3 +22,6 @@ public sealed record AlertMessage(
 
 /// <summary>One entry of the live feed: its number, its kind ("point" or "alert") and the message.</summary>
 public sealed record FeedMessage(long Seq, string Kind, string Context, PointMessage? Point, AlertMessage? Alert);
+
+/// <summary>GET /api/alerts/counts: alerts not acknowledged yet (open), not closed (active), and escalated among those.</summary>
+public sealed record AlertCounts(int Unacknowledged, int Active, int Escalated);

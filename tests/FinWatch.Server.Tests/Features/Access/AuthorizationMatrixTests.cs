@@ -65,6 +65,7 @@ public sealed class AuthorizationMatrixTests : IntegrationTest
         ["GET /hubs/monitor/negotiate"] = "floor", // the negotiate endpoint has no method metadata; GET stands for it
         ["GET /hubs/monitor"] = "floor",
         ["GET /api/alerts/"] = "read",
+        ["GET /api/alerts/counts"] = "read",
         ["GET /api/alerts/{id:long}"] = "read",
         ["POST /api/alerts/{id:long}/acknowledge"] = "acknowledge",
         ["POST /api/alerts/{id:long}/disposition"] = "disposition",

@@ -133,6 +133,39 @@ public class MonitorEndpointsTests : IntegrationTest
     }
 
     [Fact]
+    public async Task AlertCounts_FollowAcknowledgementEscalationAndClosing()
+    {
+        await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
+        await ApprovedContextAsync(Client, "TRI-TOP-A");
+        await ApprovedContextAsync(Client, "TRI-TOP-B");
+        async Task<(int, int, int)> CountsAsync()
+        {
+            var c = await ReadJsonAsync(await Client.GetAsync("/api/alerts/counts"));
+            return (c.GetProperty("unacknowledged").GetInt32(), c.GetProperty("active").GetInt32(), c.GetProperty("escalated").GetInt32());
+        }
+
+        Assert.Equal((0, 0, 0), await CountsAsync());
+        await IngestAsync(Client, Wafers("M0001", MonitorDay, 1.5)); // one excursion on each chart
+        Assert.Equal((2, 2, 0), await CountsAsync());
+
+        var ids = (await ReadJsonAsync(await Client.GetAsync("/api/alerts"))).EnumerateArray().Select(a => a.GetProperty("id").GetInt64()).ToList();
+        (await Client.PostAsJsonAsync($"/api/alerts/{ids[0]}/acknowledge", new { comment = "looking" })).EnsureSuccessStatusCode();
+        Assert.Equal((1, 2, 0), await CountsAsync());
+
+        // The other is not acknowledged within the escalation time (30 min by default) and escalates.
+        Factory.Clock.Advance(TimeSpan.FromMinutes(31)); // the worker's own timer may escalate it first
+        await Factory.Services.GetRequiredService<MonitorWorker>().EscalateAsync(CancellationToken.None);
+        Assert.Equal((1, 2, 1), await CountsAsync());
+
+        (await Client.PostAsJsonAsync($"/api/alerts/{ids[0]}/disposition", new
+        {
+            steps = new[] { new { step = "Hold the lot", done = true }, new { step = "Check the etch chamber log", done = true } },
+        })).EnsureSuccessStatusCode();
+        (await Client.PostAsJsonAsync($"/api/alerts/{ids[0]}/close", new { comment = "chamber recovered" })).EnsureSuccessStatusCode();
+        Assert.Equal((1, 1, 1), await CountsAsync());
+    }
+
+    [Fact]
     public async Task Alert_Lifecycle_AcknowledgeDispositionClose_KeepsEveryStep()
     {
         await BaselineAndContextAsync();

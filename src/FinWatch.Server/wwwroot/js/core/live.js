@@ -76,6 +76,7 @@ export class LiveFeed {
   #deliver(entry) {
     if (entry.seq <= this.lastSeq) return; // already handled (the page load or an earlier catch-up had it)
     this.lastSeq = entry.seq;
+    if (entry.kind === 'alert') document.dispatchEvent(new CustomEvent('finwatch:alert')); // the navigation's count
     this.onEntry(entry);
   }
 

@@ -1,5 +1,7 @@
-// The frame every page shares: the top strip with the page links, who is signed in, the live-connection line, and the
-// demo or wall-screen mark. A page that needs a person sends the visitor to the sign-in page first.
+// @ts-check
+// The frame every page shares: the top strip with the page links (the alerts link counts the alerts nobody has
+// acknowledged yet), who is signed in, the live-connection line, and the demo or wall-screen mark. It stays on one row
+// at 1366 px: the longer words go to the tooltips. A page that needs a person sends the visitor to the sign-in page first.
 import { el } from './dom.js';
 import { getJson, sendJson, resetAntiforgery } from './api.js';
 
@@ -35,14 +37,17 @@ export function frame(current) {
       return;
     }
     nav.append(...pages.filter(([, , p]) => m.permissions.includes(p) || !m.signed_in)
-      .map(([href, label]) => el('a', { href, 'aria-current': href === current ? 'page' : null }, label)));
-    if (m.via === 'demo') show(mark, `Demo mode: signed in automatically as ${m.name}. Invented data.`);
-    else if (m.via === 'display') show(mark, `Wall screen (${m.name}): floor and charts only, read-only`);
+      .map(([href, label]) => el('a', { href, 'aria-current': href === current ? 'page' : null }, label,
+        href === 'alerts.html' ? el('span', { class: 'count hidden', id: 'unacknowledged' }) : '')));
+    if (m.via === 'demo') show(mark, 'Demo · invented data', `Demo mode: signed in automatically as ${m.name}. Every fab, product, lot and person shown is invented.`);
+    else if (m.via === 'display') show(mark, 'Wall screen · read-only', `Wall screen (${m.name}): floor and charts only, read-only`);
     if (m.signed_in && m.via !== 'display') {
-      who.append(`${m.name} · ${m.role}`, ' ', m.via === 'cookie'
+      who.title = `${m.name}, ${m.role}`;
+      who.append(el('span', { class: 'name' }, m.name), ' ', m.via === 'cookie'
         ? el('button', { type: 'button', class: 'quiet', id: 'sign-out', onclick: signOut }, 'Sign out')
-        : el('a', { href: 'signin.html' }, 'Sign in as a person'));
+        : el('a', { href: 'signin.html', title: 'Sign in with your own name and password' }, 'Sign in'));
     }
+    if (m.signed_in && m.permissions.includes('read')) watchAlertCounts();
     if (m.signed_in && !m.permissions.includes(needed)) {
       document.querySelector('main')?.prepend(el('p', { class: 'problem' }, `Your role (${m.role}) may not use this page.`));
     }
@@ -50,9 +55,37 @@ export function frame(current) {
   return banner;
 }
 
-function show(node, text) {
+/** @param {HTMLElement} node @param {string} text @param {string} title */
+function show(node, text, title) {
   node.textContent = text;
+  node.title = title;
   node.classList.remove('hidden');
+}
+
+// The badge on the alerts link: read at once, again whenever a page's live feed delivers an alert change, and every
+// minute for pages without a feed.
+function watchAlertCounts() {
+  let pending = 0;
+  const refresh = async () => {
+    const badge = document.getElementById('unacknowledged');
+    if (!badge) return;
+    try {
+      const c = await getJson('/api/alerts/counts');
+      badge.textContent = String(c.unacknowledged);
+      badge.classList.toggle('hidden', c.unacknowledged === 0);
+      const words = `${c.unacknowledged} alert${c.unacknowledged === 1 ? '' : 's'} not acknowledged, ${c.active} not closed${c.escalated ? `, ${c.escalated} escalated` : ''}`;
+      badge.title = words;
+      badge.setAttribute('aria-label', words);
+    } catch {
+      // the next refresh tries again; the badge keeps its last count
+    }
+  };
+  document.addEventListener('finwatch:alert', () => {
+    clearTimeout(pending);
+    pending = window.setTimeout(refresh, 300);
+  });
+  window.setInterval(refresh, 60_000);
+  refresh();
 }
 
 async function signOut() {
