@@ -35,7 +35,13 @@ public sealed record ContextResponse(
     string Code, string Title, string Product, string Step, string Parameter, string Unit, string? Chamber, string ChartType, string Subgroup,
     IReadOnlyList<string> Rules, IReadOnlyList<string> ReactionPlan, double ElectricalConcernMv,
     string Phase, string State, string WorstSeverity, int OpenAlerts, int UnacknowledgedAlerts, int EscalatedAlerts, long Points,
-    LimitResponse? Limits, PointMessage? LastPoint, MaintenanceSince? Maintenance);
+    LimitResponse? Limits, PointMessage? LastPoint, MaintenanceSince? Maintenance, DateTimeOffset? OutOfControlSince, IReadOnlyList<RecentPoint> Recent);
+
+/// <summary>
+/// One of a chart's latest points for the floor's sparkline: its value with the centre and limits it was judged by
+/// (none in the baseline phase) and whether a rule fired on it.
+/// </summary>
+public sealed record RecentPoint(long Seq, double Value, double? Centre, double? Ucl, double? Lcl, bool Signal);
 
 public sealed record LimitComputeRequest(long? FromSeq, long? ToSeq, IReadOnlyList<ExcludedPoint>? Exclude, string? Reason);
 

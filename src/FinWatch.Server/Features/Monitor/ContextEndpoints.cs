@@ -221,9 +221,12 @@ public static partial class ContextEndpoints
         var limit = await db.LimitVersions.AsNoTracking().Where(l => l.ContextId == c.Id && l.Status == "approved")
             .OrderByDescending(l => l.EffectiveFromMs).FirstOrDefaultAsync(cancellationToken);
         var alerts = await db.Alerts.AsNoTracking().Where(a => a.ContextId == c.Id && a.State != AlertStates.Closed).ToListAsync(cancellationToken);
-        var last = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == c.Id).OrderByDescending(p => p.Seq).FirstOrDefaultAsync(cancellationToken);
+        var recent = await db.ChartPoints.AsNoTracking().Where(p => p.ContextId == c.Id).OrderByDescending(p => p.Seq).Take(RecentPoints).ToListAsync(cancellationToken);
+        var last = recent.FirstOrDefault();
         var count = last?.Seq ?? 0;
-        LimitVersion? lastLimit = last?.LimitVersionId is { } id ? await db.LimitVersions.AsNoTracking().SingleAsync(l => l.Id == id, cancellationToken) : null;
+        var versions = recent.Select(p => p.LimitVersionId).OfType<int>().Distinct().ToList();
+        var judgedBy = await db.LimitVersions.AsNoTracking().Where(l => versions.Contains(l.Id)).ToDictionaryAsync(l => l.Id, cancellationToken);
+        LimitVersion? lastLimit = last?.LimitVersionId is { } id ? judgedBy[id] : null;
         var unit = FinParameters.TryGet(c.Parameter, out var p) ? p.Unit : "";
         var state = limit is null ? "baseline" : alerts.Count > 0 ? "out_of_control" : "in_control";
         var maintenance = await ChamberMaintenance.SinceAsync(db, c, last?.Chamber, unit, cancellationToken);
@@ -231,8 +234,14 @@ public static partial class ContextEndpoints
             c.Rules.Split(',', StringSplitOptions.RemoveEmptyEntries), c.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries), c.ElectricalConcernMv,
             limit is null ? "baseline" : "monitoring", state, Severity.Name(alerts.Count == 0 ? 0 : alerts.Max(a => a.SeverityRank)),
             alerts.Count, alerts.Count(a => a.State == AlertStates.Open), alerts.Count(a => a.EscalatedAtMs is not null && a.State == AlertStates.Open),
-            count, limit is null ? null : BaselineLimits.Describe(c, limit), last is null ? null : ContextRules.ToMessage(c, last, lastLimit), maintenance);
+            count, limit is null ? null : BaselineLimits.Describe(c, limit), last is null ? null : ContextRules.ToMessage(c, last, lastLimit), maintenance,
+            alerts.Count == 0 ? null : DateTimeOffset.FromUnixTimeMilliseconds(alerts.Min(a => a.FirstSignalAtMs)),
+            [.. recent.AsEnumerable().Reverse().Select(pt => ContextRules.ToMessage(c, pt, pt.LimitVersionId is { } v ? judgedBy[v] : null))
+                .Select(m => new RecentPoint(m.Seq, m.Value, m.Centre, m.Ucl, m.Lcl, m.Signals.Count > 0))]);
     }
+
+    /// <summary>How many of its latest points a context's summary carries (the floor's sparkline).</summary>
+    public const int RecentPoints = 30;
 
     internal static ProblemHttpResult NotFound(string what) => Problems.NotFound("Not found.", $"There is no chart context or limit version '{what}'.");
 }

@@ -148,7 +148,24 @@ public class MonitorEndpointsTests : IntegrationTest
         await IngestAsync(Client, Wafers("M0001", MonitorDay, 1.5)); // one excursion on each chart
         Assert.Equal((2, 2, 0), await CountsAsync());
 
-        var ids = (await ReadJsonAsync(await Client.GetAsync("/api/alerts"))).EnumerateArray().Select(a => a.GetProperty("id").GetInt64()).ToList();
+        // The floor's summary of a chart: out of control since its excursion's first signal, and its latest points for a
+        // sparkline, each with the limits it was judged by (none for the baseline) and whether a rule fired.
+        var summary = await ReadJsonAsync(await Client.GetAsync("/api/contexts/TRI-TOP-A"));
+        var alert = (await ReadJsonAsync(await Client.GetAsync("/api/alerts?context=TRI-TOP-A"))).EnumerateArray().Single();
+        Assert.Equal(alert.GetProperty("first_signal_measured_at").GetDateTimeOffset(), summary.GetProperty("out_of_control_since").GetDateTimeOffset());
+        var recent = summary.GetProperty("recent").EnumerateArray().ToList();
+        var points = summary.GetProperty("points").GetInt64();
+        Assert.Equal(Math.Min(30, points), recent.Count);
+        Assert.Equal(Enumerable.Range((int)(points - recent.Count + 1), recent.Count).Select(i => (long)i), recent.Select(r => r.GetProperty("seq").GetInt64()));
+        Assert.True(recent[^1].GetProperty("signal").GetBoolean());
+        Assert.True(recent[^1].GetProperty("ucl").GetDouble() > recent[^1].GetProperty("centre").GetDouble());
+        Assert.Equal(JsonValueKind.Null, recent[0].GetProperty("ucl").ValueKind); // a baseline point: judged by no limits
+        var listed = (await ReadJsonAsync(await Client.GetAsync("/api/contexts"))).EnumerateArray().Single(c => c.GetProperty("code").GetString() == "TRI-TOP-A");
+        Assert.Equal(summary.GetProperty("out_of_control_since").GetDateTimeOffset(), listed.GetProperty("out_of_control_since").GetDateTimeOffset());
+
+        var listedAlerts = (await ReadJsonAsync(await Client.GetAsync("/api/alerts"))).EnumerateArray().ToList();
+        var ids = listedAlerts.Select(a => a.GetProperty("id").GetInt64()).ToList();
+        var alerts0Context = listedAlerts[0].GetProperty("context").GetString();
         (await Client.PostAsJsonAsync($"/api/alerts/{ids[0]}/acknowledge", new { comment = "looking" })).EnsureSuccessStatusCode();
         Assert.Equal((1, 2, 0), await CountsAsync());
 
@@ -163,6 +180,8 @@ public class MonitorEndpointsTests : IntegrationTest
         })).EnsureSuccessStatusCode();
         (await Client.PostAsJsonAsync($"/api/alerts/{ids[0]}/close", new { comment = "chamber recovered" })).EnsureSuccessStatusCode();
         Assert.Equal((1, 1, 1), await CountsAsync());
+        var closedChart = alerts0Context;
+        Assert.Equal(JsonValueKind.Null, (await ReadJsonAsync(await Client.GetAsync($"/api/contexts/{closedChart}"))).GetProperty("out_of_control_since").ValueKind);
     }
 
     [Fact]

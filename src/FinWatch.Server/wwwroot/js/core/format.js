@@ -14,6 +14,13 @@ export function withUnit(value, unit, digits) {
   return u === '°' ? `${value.toFixed(d)}°` : u ? `${value.toFixed(d)} ${u}` : value.toFixed(d);
 }
 
+/** A fixed number of decimals with a true minus sign (U+2212), for columns and tiles that compare values. */
+export function fixed(value, digits) {
+  if (value === null || value === undefined || Number.isNaN(value)) return '—';
+  const text = value.toFixed(digits);
+  return /^-0?\.?0*$/.test(text) ? text.slice(1) : text.replace(/^-/, '\u2212');
+}
+
 export function number(value, digits = 3) {
   return value === null || value === undefined || Number.isNaN(value) ? '—' : value.toFixed(digits);
 }

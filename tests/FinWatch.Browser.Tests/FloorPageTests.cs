@@ -1,0 +1,45 @@
+using Microsoft.Playwright;
+using static FinWatch.Testing.MonitorFixture;
+
+namespace FinWatch.Browser.Tests;
+
+/// <summary>The floor's tiles rank charts at a glance: urgency in large type, a sparkline, ΔVT marked as an estimate.</summary>
+public sealed class FloorPageTests(BrowserFixture browser) : BrowserTest(browser)
+{
+    public override async Task InitializeAsync()
+    {
+        await base.InitializeAsync();
+        await FinWatch.Testing.TestProducts.CreateBothAsync(Client);
+        await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
+        await ApprovedContextAsync(Client, "TRI-TOP");
+    }
+
+    [BrowserFact]
+    public async Task Tile_AfterASignal_SaysSinceWhenAndWhoMustAct_WithASparklineAndTheEstimate()
+    {
+        await Page.SetViewportSizeAsync(1366, 768);
+        await OpenAsync("index.html");
+        await WaitLiveAsync();
+        var tile = Page.Locator(".tile[data-context='TRI-TOP']");
+        // In control: 20 baseline points drawn, judged by no limits yet, so no limit lines and no triangles.
+        await Assertions.Expect(tile.Locator(".spark polyline.value")).ToHaveCountAsync(1);
+        await Assertions.Expect(tile.Locator(".spark polygon.signal")).ToHaveCountAsync(0);
+        await Assertions.Expect(tile.Locator(".since")).ToHaveCountAsync(0);
+        // 1 chart with approved limits: its expected false alarms per shift (the alarm budget) are on the floor.
+        await Assertions.Expect(Page.Locator("#budget")).ToContainTextAsync(new System.Text.RegularExpressions.Regex(@"about \d+\.\d\d false alarms expected per 8 h shift from the 1 charts"));
+
+        await IngestAsync(Client, Wafers("M0001", MonitorDay, 0.5)); // one point beyond 3σ
+
+        await Assertions.Expect(tile).ToHaveAttributeAsync("data-state", "out_of_control");
+        await Assertions.Expect(tile.Locator(".urgent")).ToContainTextAsync("1 not acknowledged");
+        await Assertions.Expect(tile.Locator(".urgent .sev")).ToBeVisibleAsync();
+        await Assertions.Expect(tile.Locator(".since")).ToContainTextAsync("out of control since 26 Nov 2026");
+        await Assertions.Expect(tile.Locator(".spark polygon.signal")).ToHaveCountAsync(1); // the signal as a shape
+        await Assertions.Expect(tile.Locator(".spark polyline.limit")).ToHaveCountAsync(2);
+        await Assertions.Expect(tile.Locator(".dvt")).ToContainTextAsync("est. ΔVT");
+        await Assertions.Expect(tile.Locator(".dvt")).ToHaveAttributeAsync("title", new System.Text.RegularExpressions.Regex("engineering estimate"));
+        await ScreenshotIfAskedAsync("floor-tile");
+        await AssertNoSidewaysScrollAsync();
+        AssertNoPageProblems();
+    }
+}
