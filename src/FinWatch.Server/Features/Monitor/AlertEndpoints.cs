@@ -152,7 +152,7 @@ public static class AlertEndpoints
             var unknown = steps.Where(t => !plan.Contains(t.Step)).Select(t => t.Step).ToList();
             if (missing.Count > 0 || unknown.Count > 0)
             {
-                errors["steps"] = $"report every step of the context's reaction plan as done or not done; missing: {string.Join(" | ", missing)}; not in the plan: {string.Join(" | ", unknown)}";
+                errors["steps"] = $"report every step of the context's reaction plan as done or not done; missing: {string.Join(" | ", missing)}; not in the reaction plan: {string.Join(" | ", unknown)}";
             }
 
             if (plan.Length == 0 && string.IsNullOrWhiteSpace(r.Comment))

@@ -51,3 +51,6 @@ public sealed record ConstantsResponse(
     IReadOnlyList<IReadOnlyDictionary<string, double>> Exact,
     IReadOnlyList<IReadOnlyDictionary<string, double>> Table,
     string Source);
+
+/// <summary>A run rule: its identifier ("WE1".."WE4", "N1".."N8"), its set ("Western Electric" or "Nelson") and its words.</summary>
+public sealed record RunRuleResponse(string Id, string Set, string Text);

@@ -1,5 +1,7 @@
+using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Infrastructure;
 using FinWatch.Statistics.Constants;
+using FinWatch.Statistics.Rules;
 using FinWatch.Statistics.RunLength;
 using Microsoft.AspNetCore.Http.HttpResults;
 
@@ -16,7 +18,14 @@ public static class SpcEndpoints
             .WithSummary("Average run length of chart designs at shifts given in sigmas of the plotted statistic");
         group.MapGet("/constants", Constants)
             .WithSummary("Control chart constants for subgroup sizes 2 to 25, computed exactly and as printed");
+        group.MapGet("/rules", Rules)
+            .WithSummary("Every run rule with its set and its description in words");
     }
+
+    /// <summary>The twelve run rules in order (docs/statistics.md §3.1, §3.2), each with its set and the words alerts use.</summary>
+    private static Ok<List<RunRuleResponse>> Rules() => TypedResults.Ok(
+        RunRules.WesternElectric.Select(r => new RunRuleResponse(RunRules.Id(r), "Western Electric", Severity.Describe(r)))
+            .Concat(RunRules.Nelson.Select(r => new RunRuleResponse(RunRules.Id(r), "Nelson", Severity.Describe(r)))).ToList());
 
     private static Ok<AnalysisResponse> Analyse(AnalysisRequest request) => TypedResults.Ok(RunAnalysis.Run(request));
 

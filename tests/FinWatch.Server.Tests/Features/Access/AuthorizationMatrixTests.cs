@@ -42,6 +42,7 @@ public sealed class AuthorizationMatrixTests : IntegrationTest
         ["POST /api/spc/analyses"] = "read",
         ["POST /api/spc/arl"] = "read",
         ["GET /api/spc/constants"] = "read",
+        ["GET /api/spc/rules"] = "read",
         ["POST /api/model/evaluate"] = "read",
         ["POST /api/model/cross-section"] = "read",
         ["GET /api/model/cross-section/{id}"] = "read",

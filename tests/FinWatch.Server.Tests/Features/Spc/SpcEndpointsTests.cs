@@ -84,6 +84,17 @@ public class SpcEndpointsTests : IntegrationTest
     }
 
     [Fact]
+    public async Task Rules_ListsTheTwelveRulesInOrder_WithTheirSetAndWords()
+    {
+        var rules = await Client.GetFromJsonAsync<JsonElement>("/api/spc/rules");
+        Assert.Equal(["WE1", "WE2", "WE3", "WE4", "N1", "N2", "N3", "N4", "N5", "N6", "N7", "N8"], rules.EnumerateArray().Select(r => r.GetProperty("id").GetString()));
+        Assert.Equal(4, rules.EnumerateArray().Count(r => r.GetProperty("set").GetString() == "Western Electric"));
+        Assert.Equal(8, rules.EnumerateArray().Count(r => r.GetProperty("set").GetString() == "Nelson"));
+        Assert.Equal("one point beyond a 3σ limit", rules[0].GetProperty("text").GetString());
+        Assert.Equal("six points in a row steadily rising or falling", rules[6].GetProperty("text").GetString());
+    }
+
+    [Fact]
     public async Task Analyses_UnequalSubgroups_ReturnLimitArrays()
     {
         var r = await AnalyseAsync(new { subgroups = new[] { new double?[] { 1, 2, 3 }, new double?[] { 2, null, 4, 3, 5 }, new double?[] { 5, 4, 6 } } });

@@ -1,13 +1,15 @@
+// @ts-check
 // Limits and reaction plans of one chart context: compute a draft from chosen points (with reasoned exclusions),
-// review, approve (which freezes it) with an effective-from time, and the full version history; edit the reaction plan.
+// review it drawn over its baseline points, approve (which freezes it) with an effective-from time, and the full version
+// history; edit the reaction plan and tick the run rules, with the alarm budget of the ticked set.
 import { el, fill, $, param } from '../core/dom.js';
 import { getJson, sendJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
-import { withUnit, number, when } from '../core/format.js';
+import { withUnit, number, when, unitLabel } from '../core/format.js';
 import { makeChart, palette } from '../core/charts.js';
 
 frame('limits.html');
-const contexts = await getJson('/api/contexts');
+const [contexts, runRules] = await Promise.all([getJson('/api/contexts'), getJson('/api/spc/rules')]);
 const code = param('context') ?? contexts[0]?.code;
 fill($('#context'), contexts.map((c) => el('option', { value: c.code, selected: c.code === code }, `${c.title} (${c.code})`)));
 $('#context').addEventListener('change', () => { location.search = `?context=${encodeURIComponent($('#context').value)}`; });
@@ -16,6 +18,8 @@ let context = null;
 let points = [];
 const excluded = new Map(); // seq → reason
 let pick = null;
+let draftChart = null;
+let drafts = [];
 
 async function load() {
   context = await getJson(`/api/contexts/${encodeURIComponent(code)}`);
@@ -23,7 +27,7 @@ async function load() {
   fill($('#title'), `Limits and reaction plan: ${context.title}`);
   $('#chart-link').href = `chart.html?context=${encodeURIComponent(code)}`;
   $('#plan-text').value = context.reaction_plan.join('\n');
-  $('#rules').value = context.rules.join(',');
+  drawRuleBoxes(context.rules);
   $('#concern').value = context.electrical_concern_mv;
   showBudget();
   if (!$('#from-seq').value) {
@@ -50,13 +54,13 @@ function drawPick() {
       datasets: [{
         label: `${context.title} [${context.unit}]`, data: view.map((p) => ({ x: p.seq, y: p.value })), borderColor: palette.ink, borderWidth: 1,
         pointRadius: view.map((p) => (excluded.has(p.seq) ? 6 : 3)), pointStyle: view.map((p) => (excluded.has(p.seq) ? 'crossRot' : 'circle')),
-        pointBorderColor: view.map((p) => (excluded.has(p.seq) ? palette.signal : palette.ink)),
-        pointLabels: view.map((p) => (excluded.has(p.seq) ? 'excluded' : '')),
+        pointBorderColor: view.map((p) => (excluded.has(p.seq) ? palette.muted : palette.ink)),
+        pointLabels: view.map((p) => (excluded.has(p.seq) ? 'excluded' : '')), pointLabelColor: palette.ink,
       }],
     },
     options: {
       parsing: false,
-      scales: { x: { type: 'linear', ticks: { precision: 0 }, title: { display: true, text: 'point number' } }, y: { title: { display: true, text: context.unit } } },
+      scales: { x: { type: 'linear', ticks: { precision: 0 }, title: { display: true, text: 'point number' } }, y: { title: { display: true, text: unitLabel(context.unit) } } },
       onClick: (_e, items) => {
         if (!items.length) return;
         const p = view[items[0].index];
@@ -92,19 +96,33 @@ $('#compute').addEventListener('submit', async (event) => {
     fill($('#compute-result'), el('div', { class: 'notice' },
       `Draft v${draft.version}: centre ${withUnit(draft.centre, draft.unit)}, σ ${withUnit(draft.sigma, draft.unit)}, UCL ${withUnit(draft.ucl, draft.unit)}, LCL ${withUnit(draft.lcl, draft.unit)} from ${draft.points_used} points; baseline check: ${draft.verdict}. Review it in the versions below and approve it there.`,
       draft.warnings.map((w) => el('div', { class: 'problem' }, w))));
-    await loadVersions();
+    await loadVersions(draft.version);
   } catch (e) {
     fill($('#compute-result'), el('div', { class: 'problem' }, e.message));
   }
 });
 
-// The alarm budget of the rules in the box, asked again as they are typed; only the answer to the latest ask is shown.
+// The run rules as boxes in their two sets, each with its words (GET /api/spc/rules); the ticked set drives the budget.
+function drawRuleBoxes(ticked) {
+  const sets = [...new Set(runRules.map((r) => r.set))];
+  fill($('#rules'), el('legend', {}, 'Run rules that raise an alert'), sets.map((set) => el('div', { class: 'rule-set', role: 'group', 'aria-label': `${set} rules` },
+    el('h4', {}, set),
+    runRules.filter((r) => r.set === set).map((r) => el('label', {},
+      el('input', { type: 'checkbox', name: 'rule', value: r.id, checked: ticked.includes(r.id) }), el('b', {}, r.id), r.text)))));
+}
+
+/** The ticked rules in the server's order. */
+function tickedRules() {
+  return [...document.querySelectorAll('#rules input[name="rule"]:checked')].map((box) => /** @type {HTMLInputElement} */ (box).value);
+}
+
+// The alarm budget of the ticked rules, asked again (debounced) as boxes change; only the answer to the latest ask is shown.
 let budgetAsk = 0;
 let budgetTimer = 0;
 
 async function showBudget() {
   const ask = ++budgetAsk;
-  const rules = $('#rules').value.split(',').map((s) => s.trim()).filter(Boolean);
+  const rules = tickedRules();
   if (rules.length === 0) {
     fill($('#budget'), el('p', { class: 'problem' }, 'No rule chosen: the chart would raise no alarm and catch no shift.'));
     return;
@@ -144,27 +162,37 @@ function drawBudget(b) {
     b.notes.map((n) => el('p', { class: 'muted' }, n)));
 }
 
-$('#rules').addEventListener('input', () => {
+$('#rules').addEventListener('change', () => {
   clearTimeout(budgetTimer);
   budgetTimer = setTimeout(showBudget, 250);
 });
 
 $('#plan').addEventListener('submit', async (event) => {
   event.preventDefault();
+  const rules = tickedRules();
+  if (rules.length === 0) {
+    fill($('#plan-result'), el('div', { class: 'problem' }, 'Tick at least one run rule: without one the chart raises no alert.'));
+    return;
+  }
   try {
     context = await sendJson('PUT', `/api/contexts/${encodeURIComponent(code)}`, {
       reaction_plan: $('#plan-text').value.split('\n').map((s) => s.trim()).filter(Boolean),
-      rules: $('#rules').value, electrical_concern_mv: Number($('#concern').value),
+      rules: rules.join(','), electrical_concern_mv: Number($('#concern').value),
     });
-    fill($('#plan-result'), el('div', { class: 'notice' }, `Saved: ${context.reaction_plan.length} steps, rules ${context.rules.join(', ')}, concern ${withUnit(context.electrical_concern_mv, 'mV', 1)}.`));
+    fill($('#plan-result'), el('div', { class: 'notice' }, `Saved: a reaction plan of ${context.reaction_plan.length} steps, rules ${context.rules.join(', ')}, electrical concern ${withUnit(context.electrical_concern_mv, 'mV', 1)}.`));
   } catch (e) {
     fill($('#plan-result'), el('div', { class: 'problem' }, e.message));
   }
 });
 
-async function loadVersions() {
+async function loadVersions(show) {
   const versions = await getJson(`/api/contexts/${encodeURIComponent(code)}/limits`);
   const u = context.unit;
+  drafts = versions.filter((v) => v.status === 'draft');
+  const keep = show ?? Number($('#draft').value || drafts[0]?.version);
+  fill($('#draft'), drafts.length ? drafts.map((v) => el('option', { value: v.version, selected: v.version === keep }, `v${v.version}, computed ${when(v.computed_at)}`))
+    : el('option', { value: '' }, 'no draft'));
+  drawDraft();
   fill($('#versions tbody'), versions.length === 0
     ? el('tr', {}, el('td', { colspan: 12 }, 'No limits yet: the chart is in its baseline phase.'))
     : versions.map((v) => el('tr', { dataset: { version: v.version, status: v.status } },
@@ -179,6 +207,62 @@ async function loadVersions() {
       el('td', {}, v.effective_from ? when(v.effective_from) : '—'),
       el('td', {}, v.status === 'draft' ? approveForm(v) : '')))); 
 }
+
+// The chosen draft over the points it was computed from (its measured-time span), with its centre line and limits;
+// the chart is made once and updated in place when another draft is chosen.
+function drawDraft() {
+  const draft = drafts.find((v) => v.version === Number($('#draft').value));
+  if (!draft) {
+    if (draftChart) { draftChart.data.datasets.forEach((d) => { d.data = []; }); draftChart.update(); }
+    fill($('#draft-check'), el('p', { class: 'muted' }, 'No draft to review: compute one above.'));
+    return;
+  }
+  const from = Date.parse(draft.from);
+  const to = Date.parse(draft.to);
+  const span = points.filter((p) => Date.parse(p.measured_at) >= from && Date.parse(p.measured_at) <= to);
+  const out = new Set(draft.excluded.map((x) => x.seq));
+  const first = span[0]?.seq ?? 0;
+  const last = span.at(-1)?.seq ?? 0;
+  const level = (y) => [{ x: first, y }, { x: last, y }];
+  const u = draft.unit;
+  const data = [
+    span.map((p) => ({ x: p.seq, y: p.value })),
+    level(draft.centre), level(draft.ucl), level(draft.lcl),
+  ];
+  const labels = [`baseline points [${unitLabel(u)}]`, `centre line ${withUnit(draft.centre, u)}`, `UCL ${withUnit(draft.ucl, u)}`, `LCL ${withUnit(draft.lcl, u)}`];
+  if (!draftChart) {
+    const limit = { borderColor: palette.signal, borderWidth: 1.5, borderDash: [6, 4], pointRadius: 0 };
+    draftChart = makeChart($('#draft-chart'), {
+      type: 'line',
+      data: { datasets: [
+        { data: [], borderColor: palette.ink, borderWidth: 1 },
+        { data: [], borderColor: palette.steady, borderWidth: 1.5, pointRadius: 0 },
+        { data: [], ...limit }, { data: [], ...limit },
+      ] },
+      options: { parsing: false, scales: { x: { type: 'linear', ticks: { precision: 0 }, title: { display: true, text: 'point number' } }, y: { title: { display: true, text: unitLabel(u) } } } },
+    });
+  }
+  draftChart.data.datasets.forEach((d, i) => { d.data = data[i]; d.label = labels[i]; });
+  const pointsSet = draftChart.data.datasets[0];
+  pointsSet.pointStyle = span.map((p) => (out.has(p.seq) ? 'crossRot' : 'circle'));
+  pointsSet.pointRadius = span.map((p) => (out.has(p.seq) ? 6 : 3));
+  pointsSet.pointBorderColor = span.map((p) => (out.has(p.seq) ? palette.muted : palette.ink));
+  pointsSet.pointLabels = span.map((p) => (out.has(p.seq) ? 'excluded' : ''));
+  pointsSet.pointLabelColor = palette.ink;
+  draftChart.update();
+  const verdict = draft.verdict;
+  fill($('#draft-check'),
+    el('div', {}, 'Baseline check: ', el('span', { class: `state ${verdictClass[verdict] ?? verdictClass['not checked']}` }, verdict)),
+    verdict === 'not stable' && draft.warnings.length ? el('ul', { class: 'reasons' }, draft.warnings.map((w) => el('li', {}, w))) : '',
+    el('ul', { class: 'numbers' },
+      el('li', {}, `centre line ${withUnit(draft.centre, u)}, σ ${withUnit(draft.sigma, u)}`),
+      el('li', {}, `UCL ${withUnit(draft.ucl, u)}, LCL ${withUnit(draft.lcl, u)}`),
+      el('li', {}, `${draft.points_used} points used${draft.excluded.length ? `, ${draft.excluded.length} excluded` : ''}`),
+      el('li', {}, `measured ${when(draft.from)} – ${when(draft.to)}`)),
+    el('p', { class: 'muted' }, `Computed by ${draft.computed_by}: ${draft.reason}. Approve it in the versions below.`));
+}
+
+$('#draft').addEventListener('change', drawDraft);
 
 // The verdict as a state mark (word, shape, colour), its reasons, and the tests behind it.
 const verdictClass = { stable: 'in_control', 'not stable': 'out_of_control', 'not checked': 'baseline' };
