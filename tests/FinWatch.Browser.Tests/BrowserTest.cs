@@ -129,5 +129,22 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
     protected async Task AssertNoSidewaysScrollAsync() =>
         Assert.True(await Page.EvaluateAsync<bool>("() => document.documentElement.scrollWidth <= window.innerWidth"), "the page is wider than the window");
 
+    /// <summary>
+    /// At each window size (width × height in CSS pixels) the page is no wider than the window: the document's scroll
+    /// width is at most its client width. The window is left at the last size.
+    /// </summary>
+    protected async Task AssertNoHorizontalOverflowAtAsync(params (int Width, int Height)[] sizes)
+    {
+        foreach (var (width, height) in sizes)
+        {
+            await Page.SetViewportSizeAsync(width, height);
+            var widths = await Page.EvaluateAsync<int[]>("() => new Promise((done) => requestAnimationFrame(() => done([document.documentElement.scrollWidth, document.documentElement.clientWidth])))");
+            Assert.True(widths[0] <= widths[1], $"at {width}×{height} the page is {widths[0]} px wide in a window of {widths[1]} px");
+        }
+    }
+
+    /// <summary>The common laptop and desktop screens of the floor (CSS pixels).</summary>
+    protected static readonly (int Width, int Height)[] FloorScreens = [(1366, 768), (1920, 1080)];
+
     protected void AssertNoPageProblems() => Assert.True(problems.Count == 0, "the page reported: " + string.Join(" | ", problems));
 }
