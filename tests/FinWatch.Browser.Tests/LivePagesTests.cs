@@ -86,6 +86,8 @@ public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser
         await Assertions.Expect(Page.Locator("#detail .history")).ToContainTextAsync("✔ done: Hold the lot");
         await Assertions.Expect(Page.Locator("#detail .history")).ToContainTextAsync("✘ not done: Check the etch chamber log (log clean)");
 
+        // Wait for the close form (the dispositioned alert re-renders), then say why.
+        await Assertions.Expect(Page.Locator("label[for='action-comment']")).ToHaveTextAsync("Why can it be closed? (required)");
         await Page.Locator("#action-comment").FillAsync("re-measured: within limits");
         await Page.Locator("#action-button").ClickAsync();
         await Assertions.Expect(Page.Locator("#detail")).ToContainTextAsync("closed by");

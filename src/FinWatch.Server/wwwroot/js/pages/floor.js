@@ -2,7 +2,7 @@
 // Floor overview: one tile per chart context, worst first, with the floor's expected false alarms; updated from the live feed.
 import { el, fill, $ } from '../core/dom.js';
 import { getJson } from '../core/api.js';
-import { frame } from '../core/shell.js';
+import { frame, me } from '../core/shell.js';
 import { LiveFeed } from '../core/live.js';
 import { fixed, unitLabel, when, stateWords, maintenanceSince } from '../core/format.js';
 
@@ -110,6 +110,7 @@ async function load() {
 
 // The alarm budget of the whole floor: how many false alarms its charts are expected to raise in a shift while in control.
 async function budget() {
+  if (!(await me).permissions.includes('read')) return; // a wall screen shows the tiles only
   try {
     const b = await getJson('/api/run-length');
     const shift = b.shifts[0];
