@@ -4,16 +4,8 @@ using static FinWatch.Testing.MonitorFixture;
 namespace FinWatch.Browser.Tests;
 
 /// <summary>The floor's tiles rank charts at a glance: urgency in large type, a sparkline, ΔVT marked as an estimate.</summary>
-public sealed class FloorPageTests(BrowserFixture browser) : BrowserTest(browser)
+public sealed class FloorPageTests(BrowserFixture browser) : MonitoredChartTest(browser)
 {
-    public override async Task InitializeAsync()
-    {
-        await base.InitializeAsync();
-        await FinWatch.Testing.TestProducts.CreateBothAsync(Client);
-        await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
-        await ApprovedContextAsync(Client, "TRI-TOP");
-    }
-
     [BrowserFact]
     public async Task Tile_AfterASignal_SaysSinceWhenAndWhoMustAct_WithASparklineAndTheEstimate()
     {

@@ -2,7 +2,6 @@ using System.Net.Http.Json;
 using System.Text.Json;
 using System.Text.RegularExpressions;
 using Microsoft.Playwright;
-using static FinWatch.Testing.MonitorFixture;
 
 namespace FinWatch.Browser.Tests;
 
@@ -11,16 +10,8 @@ namespace FinWatch.Browser.Tests;
 /// baseline points with its verdict, and a page that fits the window. The fixture (MonitorFixture) has 20 baseline wafers
 /// and an approved v1 on the Western Electric rules.
 /// </summary>
-public sealed class LimitsPageTests(BrowserFixture browser) : BrowserTest(browser)
+public sealed class LimitsPageTests(BrowserFixture browser) : MonitoredChartTest(browser)
 {
-    public override async Task InitializeAsync()
-    {
-        await base.InitializeAsync();
-        await FinWatch.Testing.TestProducts.CreateBothAsync(Client);
-        await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
-        await ApprovedContextAsync(Client, "TRI-TOP");
-    }
-
     private ILocator Box(string rule) => Page.Locator($"#rules input[name='rule'][value='{rule}']");
 
     // In-control run lengths: 91.75 points for WE1–WE4 (Champ & Woodall 1987, from memory [M]) and 370.4 for WE1 alone,

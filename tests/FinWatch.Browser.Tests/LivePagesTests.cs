@@ -10,16 +10,8 @@ namespace FinWatch.Browser.Tests;
 /// The expected states follow from the fixture's hand-computable data (MonitorFixture): a wafer mean 0.5 nm above the
 /// centre is about 6 σ of the mean away (σ of the mean 0.0791/√5·… see MonitorEndpointsTests) and fires WE1.
 /// </summary>
-public sealed class LivePagesTests(BrowserFixture browser) : BrowserTest(browser)
+public sealed class LivePagesTests(BrowserFixture browser) : MonitoredChartTest(browser)
 {
-    public override async Task InitializeAsync()
-    {
-        await base.InitializeAsync();
-        await FinWatch.Testing.TestProducts.CreateBothAsync(Client);
-        await IngestAsync(Client, Wafers("B0001", BaselineDay, new double[20]));
-        await ApprovedContextAsync(Client, "TRI-TOP");
-    }
-
     [BrowserFact]
     public async Task ChartPage_PostingALot_AddsItsPointsAndSignalsWithoutReload()
     {

@@ -1,6 +1,7 @@
 using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Physics;
+using FinWatch.Server.Features.Audit;
 using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Features.Parameters;
@@ -292,12 +293,9 @@ public static class DemoMonitor
                 "demo: the lots after the maintenance are the chamber's new state; approved so that it is watched from now, to be reviewed with more lots (invented)");
             db.LimitVersions.Add(limit);
             await db.SaveChangesAsync(cancellationToken);
-            var code = $"{context.Code} v{limit.Version}";
-            db.AuditEntries.Add(new AuditEntry
-            {
-                AtMs = dayEndMs, By = DemoApprover, Entity = "limits", Key = code, Action = "approved",
-                AfterJson = System.Text.Json.JsonSerializer.Serialize(BaselineLimits.Describe(context, limit), FeedLog.Json),
-            });
+            // Audited as the limits page does it, dated when the invented engineer approved it.
+            AuditLog.Add(db, DemoApprover, "limits", $"{context.Code} v{limit.Version}", "approved", null, BaselineLimits.Describe(context, limit), TimeProvider.System)
+                .AtMs = dayEndMs;
         }
 
         await db.SaveChangesAsync(cancellationToken);
