@@ -85,16 +85,19 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
     }
 
     /// <summary>Adds the person and signs in through the sign-in page, as someone on the floor would.</summary>
-    protected async Task SignInAsync()
+    protected Task SignInAsync() => SignInAsync(Person, "engineer");
+
+    /// <summary>Adds a person with the role and signs them in through the sign-in page.</summary>
+    protected async Task SignInAsync(string name, string role)
     {
-        var added = await Client.PostAsJsonAsync("/api/people", new { name = Person, role = "engineer", password = PersonPassword });
+        var added = await Client.PostAsJsonAsync("/api/people", new { name, role, password = PersonPassword });
         Assert.True(added.IsSuccessStatusCode, await added.Content.ReadAsStringAsync());
         await OpenAsync("signin.html?next=index.html");
-        await Page.Locator("#name").FillAsync(Person);
+        await Page.Locator("#name").FillAsync(name);
         await Page.Locator("#password").FillAsync(PersonPassword);
         await Page.Locator("#password").PressAsync("Enter");
         await Page.WaitForURLAsync("**/index.html");
-        await Assertions.Expect(Page.Locator(".strip .who")).ToContainTextAsync(Person);
+        await Assertions.Expect(Page.Locator(".strip .who")).ToContainTextAsync(name);
     }
 
     public async Task DisposeAsync()

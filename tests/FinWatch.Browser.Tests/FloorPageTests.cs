@@ -34,4 +34,36 @@ public sealed class FloorPageTests(BrowserFixture browser) : MonitoredChartTest(
         await AssertNoSidewaysScrollAsync();
         AssertNoPageProblems();
     }
+
+    [BrowserFact]
+    public async Task GroupedWallScreen_KeepsItsChoiceInTheAddress_AndShowsCalmChartsAsOneLine()
+    {
+        await Page.SetViewportSizeAsync(1920, 1080);
+        await OpenAsync("index.html");
+        await WaitLiveAsync();
+        await Page.Locator("#view").SelectOptionAsync("chambers");
+        await Page.Locator("#layout").SelectOptionAsync("wall");
+        Assert.Contains("view=chambers", Page.Url);
+        Assert.Contains("layout=wall", Page.Url);
+        await Assertions.Expect(Page.Locator("body")).ToHaveClassAsync(new System.Text.RegularExpressions.Regex(@"\bwall\b"));
+        // The fixture's chart has no chamber: it belongs to the whole step's group; in control, it is one line.
+        var group = Page.Locator("section.group");
+        await Assertions.Expect(group).ToHaveCountAsync(1);
+        await Assertions.Expect(group.Locator("h2")).ToContainTextAsync("whole step, every chamber · 1 chart, 0 out of control");
+        await Assertions.Expect(group.Locator(".calm .chip[data-context='TRI-TOP']")).ToBeVisibleAsync();
+        await Assertions.Expect(group.Locator(".tile")).ToHaveCountAsync(0);
+
+        await IngestAsync(Client, Wafers("M0001", MonitorDay, 0.5)); // one point beyond 3σ: the chart needs someone
+
+        await Assertions.Expect(group.Locator(".tile[data-context='TRI-TOP']")).ToHaveAttributeAsync("data-state", "out_of_control");
+        await Assertions.Expect(group.Locator("h2")).ToContainTextAsync("1 chart, 1 out of control");
+        // Read from five metres: the state's type on a wall screen is at least 30 px high.
+        var size = await group.Locator(".tile .state").EvaluateAsync<double>("e => parseFloat(getComputedStyle(e).fontSize)");
+        Assert.True(size >= 30, $"state type {size} px");
+        await Page.ReloadAsync();
+        await Assertions.Expect(Page.Locator("#view")).ToHaveValueAsync("chambers");
+        await Assertions.Expect(Page.Locator("#layout")).ToHaveValueAsync("wall");
+        await AssertNoSidewaysScrollAsync();
+        AssertNoPageProblems();
+    }
 }

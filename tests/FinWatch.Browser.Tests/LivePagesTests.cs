@@ -19,8 +19,11 @@ public sealed class LivePagesTests(BrowserFixture browser) : MonitoredChartTest(
         await WaitLiveAsync();
         await Assertions.Expect(Page.Locator("#legend")).ToContainTextAsync("20 points shown");
         await Assertions.Expect(Page.Locator("#signals tbody")).ToContainTextAsync("No rule fired");
+        await Assertions.Expect(Page.Locator("#key")).ToContainTextAsync("No rule fired in this range.");
         var navigations = 0;
         Page.FrameNavigated += (_, _) => navigations++;
+        // The charts are created once: a live point updates the same Chart.js instances in place.
+        await Page.EvaluateAsync("() => { window.before = ['#control', '#dvt'].map((s) => Chart.getChart(document.querySelector(s))); }");
 
         await IngestAsync(Client, Wafers("M0001", MonitorDay, 0.0, 0.5));
 
@@ -29,6 +32,11 @@ public sealed class LivePagesTests(BrowserFixture browser) : MonitoredChartTest(
         await Assertions.Expect(Page.Locator("#signals tbody tr").First).ToContainTextAsync("WE1");
         await Assertions.Expect(Page.Locator("#signals tbody tr").First).ToContainTextAsync("M0001");
         await Assertions.Expect(Page.Locator("#summary")).ToContainTextAsync("out of control");
+        // The rule is a shape on the plot and a line of the key with its meaning, not text on the data.
+        await Assertions.Expect(Page.Locator("#key .rule-key dt")).ToHaveTextAsync("WE1 · 1 point");
+        await Assertions.Expect(Page.Locator("#key .rule-key dd")).ToContainTextAsync("3σ");
+        Assert.True(await Page.EvaluateAsync<bool>(
+            "() => ['#control', '#dvt'].every((s, i) => Chart.getChart(document.querySelector(s)) === window.before[i])"));
         Assert.Equal(0, navigations);
         AssertNoPageProblems();
     }

@@ -55,7 +55,7 @@ public sealed class MaintenancePageTests(BrowserFixture browser) : BrowserTest(b
         await WaitLiveAsync();
         await Assertions.Expect(Page.Locator("#summary")).ToContainTextAsync("1 lot (10 points) and 42.2 h since the wet clean of ETA-1");
         await Assertions.Expect(Page.Locator("#suggestion")).ToContainTextAsync("New baseline suggested");
-        await Assertions.Expect(Page.Locator("#legend")).ToContainTextAsync("Blue diamonds on dashed lines mark maintenance (1 in view)");
+        await Assertions.Expect(Page.Locator("#key")).ToContainTextAsync("maintenance: 1 in view");
         await AssertNoSidewaysScrollAsync();
         await ScreenshotIfAskedAsync("chart-maintenance");
 

@@ -90,7 +90,7 @@ public static class LotsEndpoints
                 m.EtchTool, m.EtchChamber, m.LinerTool, m.LinerChamber, m.MetrologyTool, m.Operator,
                 m.TopWidthNm, m.BottomWidthNm, m.FinHeightNm, m.CornerRadiusNm, m.LinerThicknessNm,
                 m.TaperDeg, m.MidWidthNm, m.AreaNm2, m.GatedPerimeterNm, m.MaxCornerRadiusNm,
-                FlagNames((GeometryFlags)m.Flags), m.BatchId)).ToList())).ToList())).ToList();
+                FlagNames((GeometryFlags)m.Flags), m.BatchId, m.DeltaVtLinMv, m.DeltaVtSatMv)).ToList())).ToList())).ToList();
         return TypedResults.Ok(new LotResponse(lot, code, steps));
     }
 

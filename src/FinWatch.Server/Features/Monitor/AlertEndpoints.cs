@@ -16,7 +16,7 @@ public static class AlertEndpoints
     public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/alerts").WithTags("Monitor");
-        group.MapGet("/", ListAsync).WithSummary("Alerts, most severe and newest first; filter by state, context, severity, escalated");
+        group.MapGet("/", ListAsync).WithSummary("Alerts, most severe and newest first; filter by state, context, severity, escalated, lot");
         group.MapGet("/counts", CountsAsync).WithSummary("How many alerts are not acknowledged, not closed, and escalated (the navigation's badge)");
         group.MapGet("/{id:long}", GetAsync).WithSummary("One alert with its reaction plan, history and points");
         group.MapPost("/{id:long}/acknowledge", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, IDatabaseDialect dialect, TimeProvider clock,
@@ -40,7 +40,7 @@ public static class AlertEndpoints
     }
 
     private static async Task<Results<Ok<List<AlertMessage>>, ValidationProblem>> ListAsync(
-        string? state, string? context, string? severity, bool? escalated, FinWatchDbContext db, CancellationToken cancellationToken)
+        string? state, string? context, string? severity, bool? escalated, string? lot, FinWatchDbContext db, CancellationToken cancellationToken)
     {
         var errors = new ValidationErrors();
         if (state is not null && state != "active" && !AlertStates.All.Contains(state))
@@ -69,6 +69,12 @@ public static class AlertEndpoints
         if (escalated is { } e)
         {
             q = e ? q.Where(a => a.EscalatedAtMs != null) : q.Where(a => a.EscalatedAtMs == null);
+        }
+
+        if (lot is not null)
+        {
+            // The alerts whose excursion collected a point of this lot.
+            q = q.Where(a => db.ChartPoints.Any(p => p.ContextId == a.ContextId && p.LotId == lot && p.Seq >= a.FirstSeq && p.Seq <= a.LastSeq));
         }
 
         var contexts = await db.ChartContexts.AsNoTracking().ToDictionaryAsync(c => c.Id, cancellationToken);

@@ -58,8 +58,15 @@ public sealed partial class HardeningTests : IntegrationTest
         {
             var text = File.ReadAllText(module);
             Assert.False(MarkupFromStrings().IsMatch(text), $"{Path.GetFileName(module)} writes markup from strings");
+            // Every module is type-checked by editors that read JSDoc, and takes its colours from the stylesheet's
+            // variables (read once by core/charts.js), so each colour keeps its one meaning.
+            Assert.True(text.StartsWith("// @ts-check", StringComparison.Ordinal), $"{Path.GetFileName(module)} does not start with // @ts-check");
+            Assert.True(Path.GetFileName(module) == "charts.js" || !HexColour().IsMatch(text), $"{Path.GetFileName(module)} has its own colour literal");
         }
     }
+
+    [GeneratedRegex("'#[0-9a-fA-F]{3,8}'")]
+    private static partial Regex HexColour();
 
     [Fact]
     public async Task LargeBody_OnAnOrdinaryEndpoint_IsRefusedWith413()

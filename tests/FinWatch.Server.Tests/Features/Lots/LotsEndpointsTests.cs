@@ -1,5 +1,7 @@
 using System.Net;
+using FinWatch.Data;
 using FinWatch.Testing;
+using Microsoft.Extensions.DependencyInjection;
 
 namespace FinWatch.Server.Tests.Features.Lots;
 
@@ -64,6 +66,13 @@ public class LotsEndpointsTests : IntegrationTest
         Assert.True(site.GetProperty("taper_deg").GetDouble() > 0);
         Assert.Equal("2026-11-10T08:01:01Z", site.GetProperty("measured_at").GetString());
         Assert.Empty(site.GetProperty("flags").EnumerateArray());
+        // The predicted shifts are the ones stored with the site (an estimate under the parameters then in force).
+        using var scope = Factory.Services.CreateScope();
+        var stored = scope.ServiceProvider.GetRequiredService<FinWatchDbContext>().Measurements
+            .Single(m => m.LotId == "LA" && m.WaferSlot == 1 && m.SiteId == "S01");
+        Assert.NotNull(stored.DeltaVtSatMv);
+        Assert.Equal(stored.DeltaVtSatMv!.Value, site.GetProperty("delta_vt_sat_mv").GetDouble());
+        Assert.Equal(stored.DeltaVtLinMv!.Value, site.GetProperty("delta_vt_lin_mv").GetDouble());
     }
 
     [Fact]

@@ -163,6 +163,10 @@ public class MonitorEndpointsTests : IntegrationTest
         var listed = (await ReadJsonAsync(await Client.GetAsync("/api/contexts"))).EnumerateArray().Single(c => c.GetProperty("code").GetString() == "TRI-TOP-A");
         Assert.Equal(summary.GetProperty("out_of_control_since").GetDateTimeOffset(), listed.GetProperty("out_of_control_since").GetDateTimeOffset());
 
+        // A lot's alerts: the excursions that collected one of its points (both charts for M0001, none for the baseline lot).
+        Assert.Equal(2, (await ReadJsonAsync(await Client.GetAsync("/api/alerts?lot=M0001"))).GetArrayLength());
+        Assert.Equal(0, (await ReadJsonAsync(await Client.GetAsync("/api/alerts?lot=B0001"))).GetArrayLength());
+
         var listedAlerts = (await ReadJsonAsync(await Client.GetAsync("/api/alerts"))).EnumerateArray().ToList();
         var ids = listedAlerts.Select(a => a.GetProperty("id").GetInt64()).ToList();
         var alerts0Context = listedAlerts[0].GetProperty("context").GetString();

@@ -1,3 +1,4 @@
+// @ts-check
 // JSON over HTTP with the server's problem details turned into readable messages. Writes carry the antiforgery token
 // (header X-FinWatch-Antiforgery) that the server asks of browser sessions; a stale token is fetched again once.
 

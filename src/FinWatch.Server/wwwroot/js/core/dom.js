@@ -1,3 +1,4 @@
+// @ts-check
 // Building DOM without innerHTML: every user-supplied string (lot ids, comments, plan text) lands as text, never markup.
 
 /** el('td', { class: 'num', title: 't' }, 'text', childNode, ...) */
@@ -35,4 +36,14 @@ export const $ = (selector, root = document) => root.querySelector(selector);
 /** The query-string parameter, or a fallback. */
 export function param(name, fallback = null) {
   return new URLSearchParams(location.search).get(name) ?? fallback;
+}
+
+const svgNs = 'http://www.w3.org/2000/svg';
+
+/** An SVG element with attributes (shapes in keys and sparklines): svg('polygon', { points: '0,0 4,8' }). */
+export function svg(tag, attrs, ...children) {
+  const node = document.createElementNS(svgNs, tag);
+  for (const [k, v] of Object.entries(attrs)) node.setAttribute(k, String(v));
+  for (const child of children) if (child) node.append(child);
+  return node;
 }

@@ -1,3 +1,4 @@
+// @ts-check
 // Fin cross-section geometry (docs/model.md §A) and its drawing as SVG built with createElementNS, to scale in nm.
 // The profile: straight sidewalls from the bottom width at the foot (isolation-oxide top) to the top width at the
 // height H, both top corners rounded by arcs of radius r, a conformal liner of thickness t around it.

@@ -1,3 +1,4 @@
+// @ts-check
 // Numbers always with their unit; times in the browser's zone with the zone shown.
 
 const unitLabels = { deg: '°', 'nm^2': 'nm²' };

@@ -1,3 +1,4 @@
+// @ts-check
 // The live feed from /hubs/monitor (SignalR, loaded as the LibMan-restored browser bundle, global `signalR`).
 //
 // Gap-free and duplicate-free: the client subscribes first and learns the feed number at that moment (Watch and

@@ -1,6 +1,6 @@
 // @ts-check
 // Floor overview: one tile per chart context, worst first, with the floor's expected false alarms; updated from the live feed.
-import { el, fill, $ } from '../core/dom.js';
+import { el, fill, $, svg, param } from '../core/dom.js';
 import { getJson } from '../core/api.js';
 import { frame, me } from '../core/shell.js';
 import { LiveFeed } from '../core/live.js';
@@ -10,18 +10,32 @@ const banner = frame('index.html');
 const board = $('#board');
 const tally = $('#tally');
 let contexts = [];
+/** Which tool each chamber belongs to (the equipment seen in the measurements), for the grouped view. */
+let toolOf = new Map();
+
+// The view and the layout live in the address, so a wall screen's link keeps them; a display token means a wall screen.
+const viewSelect = $('#view');
+const layoutSelect = $('#layout');
+viewSelect.value = param('view') === 'chambers' ? 'chambers' : 'worst';
+layoutSelect.value = param('layout') === 'wall' || (param('layout') !== 'desk' && (await me).via === 'display') ? 'wall' : 'desk';
+for (const select of [viewSelect, layoutSelect]) {
+  select.addEventListener('change', () => {
+    const q = new URLSearchParams(location.search);
+    q.set(select.id, select.value);
+    history.replaceState(null, '', `?${q}`);
+    applyLayout();
+    render();
+  });
+}
+
+function applyLayout() {
+  document.body.classList.toggle('wall', layoutSelect.value === 'wall');
+  fill($('#floor-title'), viewSelect.value === 'chambers' ? 'Floor: charts by tool and chamber' : 'Floor: every chart, worst first');
+}
+applyLayout();
 
 // Decimals per unit, the same on every tile, so that tiles compare at a glance.
 const digits = { nm: 2, '°': 2, mV: 1 };
-const svgNs = 'http://www.w3.org/2000/svg';
-
-/** @param {string} tag @param {Record<string, string|number>} attrs */
-function svg(tag, attrs) {
-  const node = document.createElementNS(svgNs, tag);
-  for (const [k, v] of Object.entries(attrs)) node.setAttribute(k, String(v));
-  return node;
-}
-
 /**
  * The chart's latest points as a small line with the limits each was judged by (dashed) and its centre (thin); a point
  * where a rule fired is a triangle, as on the chart. Decorative for screen readers: the tile says the same in words.
@@ -95,11 +109,47 @@ function render(flash = new Set()) {
     el('span', { class: 'state out_of_control' }, el('b', {}, counts.out_of_control), ' out of control'),
     el('span', { class: 'state in_control' }, el('b', {}, counts.in_control), ' in control'),
     el('span', { class: 'state baseline' }, el('b', {}, counts.baseline), ' in baseline'));
-  fill(board, contexts.map((c) => {
+  const make = (c) => {
     const t = tile(c);
     if (flash.has(c.code)) t.classList.add('flash');
     return t;
-  }));
+  };
+  const wall = layoutSelect.value === 'wall';
+  // On a wall screen the charts that need someone are large tiles; the calm ones are one line each underneath.
+  const calm = (list) => (wall ? list.filter((c) => c.state === 'in_control' && c.open_alerts === 0) : []);
+  const loud = (list) => list.filter((c) => !calm(list).includes(c));
+  const chips = (list) => (list.length === 0 ? '' : el('div', { class: 'calm' },
+    el('span', { class: 'state in_control' }, `${list.length} in control, no active alert:`),
+    list.map((c) => el('a', { class: 'chip', href: `chart.html?context=${encodeURIComponent(c.code)}`, dataset: { context: c.code } }, c.title))));
+  if (viewSelect.value !== 'chambers') {
+    fill(board, el('div', { class: 'board' }, loud(contexts).map(make)), chips(calm(contexts)));
+    return;
+  }
+  fill(board, groups(contexts).map((g) => el('section', { class: 'group', 'aria-label': g.name },
+    el('h2', {}, g.name, el('span', { class: 'muted' }, ` · ${g.summary}`)),
+    el('div', { class: 'board' }, loud(g.list).map(make)), chips(calm(g.list)))));
+}
+
+/**
+ * The charts grouped by chamber under their tool, groups with the most charts out of control first; charts of a whole
+ * step (no chamber) last. Within a group the floor's order (worst first) holds.
+ */
+function groups(list) {
+  const byKey = new Map();
+  for (const c of list) {
+    const key = c.chamber ?? '';
+    if (!byKey.has(key)) byKey.set(key, []);
+    byKey.get(key).push(c);
+  }
+  return [...byKey.entries()].map(([chamber, charts]) => {
+    const ooc = charts.filter((c) => c.state === 'out_of_control').length;
+    const tool = toolOf.get(chamber);
+    return {
+      chamber, ooc, list: charts,
+      name: chamber ? `${tool ? `tool ${tool} · ` : ''}chamber ${chamber}` : 'whole step, every chamber',
+      summary: `${charts.length} chart${charts.length === 1 ? '' : 's'}, ${ooc} out of control`,
+    };
+  }).sort((a, b) => (a.chamber === '') - (b.chamber === '') || b.ooc - a.ooc || (a.chamber < b.chamber ? -1 : a.chamber > b.chamber ? 1 : 0));
 }
 
 async function load() {

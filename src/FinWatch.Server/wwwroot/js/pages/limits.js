@@ -11,7 +11,7 @@ import { makeChart, palette } from '../core/charts.js';
 frame('limits.html');
 const [contexts, runRules] = await Promise.all([getJson('/api/contexts'), getJson('/api/spc/rules')]);
 const code = param('context') ?? contexts[0]?.code;
-fill($('#context'), contexts.map((c) => el('option', { value: c.code, selected: c.code === code }, `${c.title} (${c.code})`)));
+fill($('#context'), contexts.map((c) => el('option', { value: c.code, selected: c.code === code }, c.title)));
 $('#context').addEventListener('change', () => { location.search = `?context=${encodeURIComponent($('#context').value)}`; });
 
 let context = null;
@@ -201,11 +201,18 @@ async function loadVersions(show) {
       el('td', { class: 'num' }, withUnit(v.ucl, u)), el('td', { class: 'num' }, withUnit(v.lcl, u)),
       el('td', {}, `${v.points_used} points, ${when(v.from)} – ${when(v.to)}`, v.excluded.length ? `; excluded ${v.excluded.map((x) => `${x.seq} (${x.reason})`).join(', ')}` : ''),
       el('td', {}, checkCell(v)),
-      el('td', {}, `${v.computed_by}, ${when(v.computed_at)}: ${v.reason}`),
-      el('td', {}, v.approved_by ? `${v.approved_by}, ${when(v.approved_at)}${v.approval_comment ? `: ${v.approval_comment}` : ''}` : '—',
-        v.justification ? el('div', { class: 'muted' }, `approved although not stable: ${v.justification}`) : ''),
+      // Who and when in the row; the reasons and comments folded, so one version stays a few lines high.
+      el('td', {}, folded(`${v.computed_by}, ${when(v.computed_at)}`, v.reason)),
+      el('td', {}, v.approved_by ? folded(`${v.approved_by}, ${when(v.approved_at)}`, v.approval_comment,
+        v.justification ? `approved although not stable: ${v.justification}` : '') : '—'),
       el('td', {}, v.effective_from ? when(v.effective_from) : '—'),
       el('td', {}, v.status === 'draft' ? approveForm(v) : '')))); 
+}
+
+/** A short line with the longer words folded under it ("why"). */
+function folded(line, ...texts) {
+  const words = texts.filter(Boolean);
+  return words.length === 0 ? line : el('details', { class: 'fold' }, el('summary', {}, line), words.map((t) => el('p', {}, t)));
 }
 
 // The chosen draft over the points it was computed from (its measured-time span), with its centre line and limits;
@@ -214,9 +221,11 @@ function drawDraft() {
   const draft = drafts.find((v) => v.version === Number($('#draft').value));
   if (!draft) {
     if (draftChart) { draftChart.data.datasets.forEach((d) => { d.data = []; }); draftChart.update(); }
+    $('#draft-chart').closest('.chart-box').classList.add('hidden'); // no empty plot: the words say there is none
     fill($('#draft-check'), el('p', { class: 'muted' }, 'No draft to review: compute one above.'));
     return;
   }
+  $('#draft-chart').closest('.chart-box').classList.remove('hidden');
   const from = Date.parse(draft.from);
   const to = Date.parse(draft.to);
   const span = points.filter((p) => Date.parse(p.measured_at) >= from && Date.parse(p.measured_at) <= to);
@@ -273,10 +282,11 @@ function checkCell(v) {
   const trend = t.p_value == null ? `trend test: too few points` : `trend (Mann–Kendall): ${t.direction}, p = ${t.p_value.toPrecision(2)}`;
   const n = c.normality;
   const normal = n.p_value == null ? `normality: ${n.note ?? 'not tested'}` : `normality (Anderson–Darling, for information): p = ${n.p_value.toPrecision(2)}`;
+  // In the versions table the verdict stands alone; its reasons and the tests are folded under it.
   return el('div', {},
     el('span', { class: `state ${verdictClass[c.verdict]}` }, c.verdict),
-    c.reasons.length ? el('ul', { class: 'reasons' }, c.reasons.map((r) => el('li', {}, r))) : '',
-    el('details', {}, el('summary', {}, 'tests'),
+    el('details', { class: 'fold' }, el('summary', {}, c.reasons.length ? `why (${c.reasons.length}) and the tests` : 'the tests'),
+      c.reasons.length ? el('ul', { class: 'reasons' }, c.reasons.map((r) => el('li', {}, r))) : '',
       el('div', {}, `${c.subgroups} subgroups (${c.recommended_subgroups} usual)`),
       el('div', {}, c.rule_signals.length ? `rules on the baseline: ${c.rule_signals.map((r) => `${r.rule} on ${r.points} points`).join(', ')}` : 'no rule fired on the baseline'),
       el('div', {}, trend), el('div', {}, normal)));

@@ -1,11 +1,13 @@
+// @ts-check
 // One lot: step and wafer selectors, wafer maps of the main parameters (sites at their x/y mm on the 300 mm wafer,
 // coloured by value), the site table, and the selected site's cross-section drawn to scale against the product's
 // nominal. Without ?lot= the page is a small lot finder.
 import { el, fill, $, param } from '../core/dom.js';
 import { getJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
-import { withUnit, when, unitLabel } from '../core/format.js';
+import { withUnit, when, unitLabel, fixed, stateWords, alertStateWords } from '../core/format.js';
 import { drawCrossSection, gateFacesLabel } from '../core/fin.js';
+import { palette } from '../core/charts.js';
 
 frame('lot.html');
 
@@ -18,9 +20,15 @@ const mapped = [
   ['liner_thickness_nm', 'Liner', 'nm'],
   ['taper_deg', 'Taper', 'deg'],
   ['mid_width_nm', 'Mid width', 'nm'],
+  ['delta_vt_sat_mv', 'Est. ΔVT sat', 'mV'],
 ];
+// The site table fits the page: the mapped values and ΔVT lin; the selected site's panel adds the derived geometry.
 const tableColumns = [
   ...mapped,
+  ['delta_vt_lin_mv', 'Est. ΔVT lin', 'mV'],
+];
+const detailColumns = [
+  ...tableColumns,
   ['area_nm2', 'Area', 'nm^2'],
   ['gated_perimeter_nm', 'Gated perimeter', 'nm'],
   ['max_corner_radius_nm', 'Largest radius', 'nm'],
@@ -111,8 +119,13 @@ async function showLot(id) {
   const waferSelect = $('#wafer');
   const state = { step: null, wafer: null, site: null };
   fill(stepSelect, lot.steps.map((s) => el('option', { value: s.step }, `${s.step} (${s.wafers.length} wafers)`)));
+  // Without a chosen step the lot opens on its most complete one: the step with the most measured values.
+  const measured = (st) => st.wafers.reduce((n, w) => n + w.sites.reduce((k, x) => k + mapped.filter(([name]) => x[name] != null).length, 0), 0);
+  const fullest = lot.steps.reduce((best, st) => (measured(st) > measured(best) ? st : best), lot.steps[0]);
   const wantedStep = param('step');
-  stepSelect.value = lot.steps.some((s) => s.step === wantedStep) ? wantedStep : lot.steps[0].step;
+  stepSelect.value = lot.steps.some((s) => s.step === wantedStep) ? wantedStep : fullest.step;
+  const scaleSelect = $('#scale');
+  scaleSelect.value = param('scale') === 'spec' ? 'spec' : 'data';
 
   const stepData = () => lot.steps.find((s) => s.step === stepSelect.value);
   const waferData = () => stepData().wafers.find((w) => String(w.wafer_slot) === waferSelect.value);
@@ -127,11 +140,14 @@ async function showLot(id) {
   function syncUrl() {
     const q = new URLSearchParams({ lot: id, step: stepSelect.value, wafer: waferSelect.value });
     if (state.site) q.set('site', state.site);
+    if (scaleSelect.value === 'spec') q.set('scale', 'spec');
     history.replaceState(null, '', `lot.html?${q}`);
   }
 
   stepSelect.addEventListener('change', () => { fillWafers(waferSelect.value); state.site = null; showWafer(); });
   waferSelect.addEventListener('change', () => { showWafer(); });
+  scaleSelect.addEventListener('change', () => { showWafer(); });
+  await lotLinks(lot);
 
   const chambers = [...new Set(lot.steps.flatMap((s) => s.wafers.flatMap((w) => w.sites.flatMap((x) => [x.etch_chamber, x.liner_chamber]))).filter(Boolean))].sort();
   fill($('#lot-meta'), `product ${lot.product}${product ? ` (${product.name}, ${gateFacesLabel(product.gate_faces)})` : ''} · ${lot.steps.length} step${lot.steps.length > 1 ? 's' : ''}${chambers.length ? ` · chambers ${chambers.join(', ')}` : ''}`);
@@ -143,13 +159,17 @@ async function showLot(id) {
     const sites = wafer.sites;
     if (!sites.some((s) => s.site_id === state.site)) state.site = param('site') && sites.some((s) => s.site_id === param('site')) ? param('site') : sites[0]?.site_id ?? null;
     const present = mapped.filter(([name]) => sites.some((s) => s[name] != null));
-    maps = present.map(([name, label, unit]) => waferMap(name, label, unit, sites, specOf(name), (siteId) => select(siteId)));
+    maps = present.map(([name, label, unit]) => waferMap(name, label, unit, sites, specOf(name), scaleSelect.value, (siteId) => select(siteId)));
     fill($('#maps'), maps.map((m) => m.node), present.length === 0 ? el('p', {}, 'No mapped parameter was measured on this wafer.') : null);
     fill($('#map-legend'),
       `Wafer W${wafer.wafer_slot}, step ${stepSelect.value}: each dot is a site at its (x, y) position on the 300 mm wafer, notch at the bottom. `,
-      'Colour runs light (wafer minimum) to dark (wafer maximum) of each parameter; a diamond marks a value outside the product specification; a hollow grey circle means not measured at that step. ',
+      scaleSelect.value === 'spec'
+        ? 'Colour runs light (lower specification limit) to dark (upper limit); a parameter without both limits is coloured by its data. '
+        : 'Colour runs light (wafer minimum) to dark (wafer maximum) of each parameter. ',
+      'A diamond marks a value outside the product specification; a hollow grey circle means not measured at that step. With few sites each value is printed beside its site. ',
       'Click a site (or pick a table row) to select it; the ring marks the selection.');
     siteTable(sites);
+    waferTable();
     select(state.site);
   }
 
@@ -166,19 +186,18 @@ async function showLot(id) {
     fill($('#sites thead'), el('tr', {},
       el('th', {}, 'site'), el('th', { class: 'num' }, 'x [mm]'), el('th', { class: 'num' }, 'y [mm]'),
       tableColumns.map(([, label, unit]) => el('th', { class: 'num' }, `${label} [${unitLabel(unit)}]`)),
-      el('th', {}, 'flags'), el('th', {}, 'measured'), el('th', {}, 'chambers')));
+      el('th', {}, 'flags')));
     fill($('#sites tbody'), sites.map((s) => {
       const tr = el('tr', { dataset: { site: s.site_id }, tabindex: 0, class: s.flags.length ? 'flagged' : null },
         el('th', { scope: 'row' }, s.site_id),
-        el('td', { class: 'num' }, withUnit(s.site_x_mm, 'mm', 1)), el('td', { class: 'num' }, withUnit(s.site_y_mm, 'mm', 1)),
+        el('td', { class: 'num' }, fixed(s.site_x_mm, 1)), el('td', { class: 'num' }, fixed(s.site_y_mm, 1)),
         tableColumns.map(([name, , unit]) => {
           const spec = specOf(name);
           const out = outOfSpec(s[name], spec);
-          return el('td', { class: out ? 'num out-of-spec' : 'num', title: out ? `outside specification ${specText(spec, unit)}` : null }, withUnit(s[name], unit), out ? ' ◆' : '');
+          // The unit is in the column head; the same decimals down a column, so values compare.
+          return el('td', { class: out ? 'num out-of-spec' : 'num', title: out ? `outside specification ${specText(spec, unit)}` : null }, fixed(s[name], unit === 'mV' ? 1 : unit === 'nm^2' ? 1 : 3), out ? ' ◆' : '');
         }),
-        el('td', {}, s.flags.map((f) => flagWords[f] ?? f).join('; ')),
-        el('td', {}, when(s.measured_at)),
-        el('td', {}, [s.etch_chamber, s.liner_chamber].filter(Boolean).join(', ')));
+        el('td', {}, s.flags.map((f) => flagWords[f] ?? f).join('; ')));
       tr.addEventListener('click', () => select(s.site_id));
       tr.addEventListener('keydown', (e) => { if (e.key === 'Enter' || e.key === ' ') { e.preventDefault(); select(s.site_id); } });
       return tr;
@@ -205,17 +224,59 @@ async function showLot(id) {
       ['measured', `${when(site.measured_at)} by ${site.operator ?? '—'} on ${site.metrology_tool ?? '—'}`],
       ['etch', [site.etch_tool, site.etch_chamber].filter(Boolean).join(' / ') || '—'],
       ['liner deposition', [site.liner_tool, site.liner_chamber].filter(Boolean).join(' / ') || '—'],
-      ...tableColumns.map(([name, label, unit]) => {
+      ...detailColumns.map(([name, label, unit]) => {
         const spec = specOf(name);
         return [label, `${withUnit(site[name], unit)}${spec ? `   (spec ${specText(spec, unit)})` : ''}${outOfSpec(site[name], spec) ? ' — outside specification' : ''}`];
       }),
       ['flags', site.flags.length ? site.flags.map((f) => flagWords[f] ?? f).join('; ') : 'none'],
       ['ingest batch', String(site.batch_id)],
     ];
-    fill($('#site-detail'), el('table', { class: 'kv', id: 'site-kv' }, el('tbody', {}, rows.map(([k, v]) => el('tr', {}, el('th', { scope: 'row' }, k), el('td', {}, v))))));
+    const whatIf = new URLSearchParams({ product: lot.product });
+    for (const [q, v] of [['wt', site.top_width_nm], ['wb', site.bottom_width_nm], ['h', site.fin_height_nm], ['r', site.corner_radius_nm]]) if (v != null) whatIf.set(q, String(v));
+    fill($('#site-detail'),
+      el('p', {}, el('a', { class: 'button-link', id: 'open-whatif', href: `whatif.html?${whatIf}` }, 'Open this site in What-if'),
+        ' to see how its profile moves the threshold.'),
+      el('table', { class: 'kv', id: 'site-kv' }, el('tbody', {}, rows.map(([k, v]) => el('tr', {}, el('th', { scope: 'row' }, k), el('td', {}, v))))));
+  }
+
+  /** Each wafer of the step: sites, mean taper and the predicted ΔVT sat (an estimate), with its largest site. */
+  function waferTable() {
+    const mean = (xs) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
+    fill($('#wafers tbody'), stepData().wafers.map((w) => {
+      const dvt = w.sites.filter((x) => x.delta_vt_sat_mv != null);
+      const worst = dvt.reduce((a, b) => (a && Math.abs(a.delta_vt_sat_mv) >= Math.abs(b.delta_vt_sat_mv) ? a : b), null);
+      const tr = el('tr', { dataset: { wafer: w.wafer_slot }, class: String(w.wafer_slot) === waferSelect.value ? 'selected' : null },
+        el('th', { scope: 'row' }, el('a', { href: '#', onclick: (/** @type {Event} */ e) => { e.preventDefault(); waferSelect.value = String(w.wafer_slot); showWafer(); } }, `wafer ${w.wafer_slot}`)),
+        el('td', { class: 'num' }, w.sites.length),
+        el('td', { class: 'num' }, fixed(mean(w.sites.map((x) => x.taper_deg).filter((v) => v != null)), 2)),
+        el('td', { class: 'num' }, fixed(mean(dvt.map((x) => x.delta_vt_sat_mv)), 1)),
+        el('td', { class: 'num' }, worst ? `${fixed(worst.delta_vt_sat_mv, 1)} mV (${worst.site_id})` : 'not predicted'));
+      return tr;
+    }));
   }
 
   showWafer();
+}
+
+/** The lot's alerts (excursions that collected one of its points) and the charts its steps and chambers feed. */
+async function lotLinks(lot) {
+  const box = $('#lot-links');
+  try {
+    const [alerts, contexts] = await Promise.all([getJson(`/api/alerts?lot=${encodeURIComponent(lot.lot_id)}`), getJson('/api/contexts')]);
+    const steps = new Set(lot.steps.map((s) => s.step));
+    const chambers = new Set(lot.steps.flatMap((s) => s.wafers.flatMap((w) => w.sites.flatMap((x) => [x.etch_chamber, x.liner_chamber]))).filter(Boolean));
+    const charts = contexts.filter((c) => c.product === lot.product && steps.has(c.step) && (!c.chamber || chambers.has(c.chamber)));
+    fill(box,
+      el('h3', {}, alerts.length ? `${alerts.length} alert${alerts.length === 1 ? '' : 's'} with points of this lot` : 'No alert collected a point of this lot'),
+      alerts.length ? el('ul', { id: 'lot-alerts' }, alerts.map((a) => el('li', {},
+        el('a', { href: `alerts.html?alert=${a.id}&state=all` }, a.context_title), ` · ${a.severity} · ${alertStateWords[a.state] ?? a.state} · first signal measured ${when(a.first_signal_measured_at)}`))) : '',
+      el('h3', {}, `Charts this lot feeds (${charts.length})`),
+      el('ul', { id: 'lot-charts', class: 'chart-links' }, charts.map((c) => el('li', {},
+        el('a', { href: `chart.html?context=${encodeURIComponent(c.code)}` }, c.title), ' ',
+        el('span', { class: `state ${c.state}` }, stateWords[c.state] ?? c.state)))));
+  } catch (e) {
+    fill(box, el('div', { class: 'problem' }, e.message));
+  }
 }
 
 function outOfSpec(v, spec) {
@@ -232,7 +293,7 @@ function specText(spec, unit) {
 }
 
 // ------------------------------------------------------------------------------------------------------- wafer map
-function waferMap(name, label, unit, sites, spec, onPick) {
+function waferMap(name, label, unit, sites, spec, scaleBy, onPick) {
   const size = 240;
   const dpr = window.devicePixelRatio || 1;
   const canvas = el('canvas', { width: size * dpr, height: size * dpr, class: 'wafer', dataset: { parameter: name }, tabindex: 0,
@@ -240,11 +301,14 @@ function waferMap(name, label, unit, sites, spec, onPick) {
   canvas.style.width = `${size}px`;
   canvas.style.height = `${size}px`;
   const values = sites.map((s) => s[name]).filter((v) => v != null);
-  const min = Math.min(...values);
-  const max = Math.max(...values);
+  // The colour scale: the wafer's own range, or the specification's when the user asks and both limits exist.
+  const bySpec = scaleBy === 'spec' && spec?.lower != null && spec?.upper != null;
+  const min = bySpec ? spec.lower : Math.min(...values);
+  const max = bySpec ? spec.upper : Math.max(...values);
+  const printed = sites.length <= 13;
   const scale = el('div', { class: 'scale' },
     el('span', { class: 'scale-bar' }),
-    el('span', { class: 'scale-ends' }, el('span', {}, `min ${withUnit(min, unit)}`), el('span', {}, `max ${withUnit(max, unit)}`)));
+    el('span', { class: 'scale-ends' }, el('span', {}, `${bySpec ? 'LSL' : 'min'} ${withUnit(min, unit)}`), el('span', {}, `${bySpec ? 'USL' : 'max'} ${withUnit(max, unit)}`)));
   scale.firstChild.style.background = rampCss;
   const mean = values.reduce((a, b) => a + b, 0) / values.length;
   const node = el('figure', { class: 'wafer-map', dataset: { parameter: name } },
@@ -263,12 +327,12 @@ function waferMap(name, label, unit, sites, spec, onPick) {
     ctx.arc(c, c, r, Math.PI / 2 + 0.04, Math.PI / 2 - 0.04 + 2 * Math.PI);
     ctx.lineTo(c, c + r - 6);
     ctx.closePath();
-    ctx.fillStyle = '#f4f1ea';
+    ctx.fillStyle = palette.paper;
     ctx.fill();
-    ctx.strokeStyle = '#5c6470';
+    ctx.strokeStyle = palette.muted;
     ctx.lineWidth = 1.5;
     ctx.stroke();
-    ctx.strokeStyle = '#d9d2c3';
+    ctx.strokeStyle = palette.rule;
     ctx.lineWidth = 1;
     ctx.setLineDash([3, 3]);
     ctx.beginPath();
@@ -283,7 +347,7 @@ function waferMap(name, label, unit, sites, spec, onPick) {
       ctx.beginPath();
       if (v == null) {
         ctx.arc(p.x, p.y, 5, 0, 2 * Math.PI);
-        ctx.strokeStyle = '#8b919a';
+        ctx.strokeStyle = palette.muted;
         ctx.lineWidth = 1;
         ctx.stroke();
       } else {
@@ -295,19 +359,26 @@ function waferMap(name, label, unit, sites, spec, onPick) {
         }
         ctx.fillStyle = colourAt(max > min ? (v - min) / (max - min) : 0.5);
         ctx.fill();
-        ctx.strokeStyle = out ? '#b4441b' : '#1f2733';
+        ctx.strokeStyle = out ? palette.signal : palette.ink;
         ctx.lineWidth = out ? 2 : 0.75;
         ctx.stroke();
+      }
+      if (printed && v != null) {
+        ctx.fillStyle = palette.ink;
+        ctx.font = '10px "DejaVu Sans", sans-serif';
+        ctx.textAlign = p.x > c + r * 0.55 ? 'right' : 'left';
+        ctx.fillText(fixed(v, unit === 'mV' ? 1 : 2), p.x + (ctx.textAlign === 'right' ? -9 : 9), p.y + 3.5);
+        ctx.textAlign = 'left';
       }
       if (s.site_id === selected) {
         ctx.beginPath();
         ctx.arc(p.x, p.y, 11, 0, 2 * Math.PI);
-        ctx.strokeStyle = '#1d6fd1';
+        ctx.strokeStyle = palette.focus;
         ctx.lineWidth = 2.5;
         ctx.stroke();
       }
     }
-    ctx.fillStyle = '#5c6470';
+    ctx.fillStyle = palette.muted;
     ctx.font = '10px "DejaVu Sans", sans-serif';
     ctx.fillText('+x', size - 18, c - 4);
     ctx.fillText('+y', c + 4, 10);

@@ -1,3 +1,4 @@
+// @ts-check
 // Chamber maintenance: record one (supervisors and up), import a file of them, and the recent log.
 import { el, fill, $ } from '../core/dom.js';
 import { getJson, sendJson, sendText, ApiError } from '../core/api.js';

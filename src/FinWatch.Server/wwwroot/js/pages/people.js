@@ -1,3 +1,4 @@
+// @ts-check
 // People and keys (administrators): add people, change roles, disable, set passwords; create and revoke keys.
 import { el, fill, $ } from '../core/dom.js';
 import { getJson, sendJson } from '../core/api.js';

@@ -1,3 +1,4 @@
+// @ts-check
 // Sign-in: name and password; on success back to the page that sent the visitor here.
 import { el, fill, $, param } from '../core/dom.js';
 import { sendJson, resetAntiforgery } from '../core/api.js';

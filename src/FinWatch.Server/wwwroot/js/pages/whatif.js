@@ -1,3 +1,4 @@
+// @ts-check
 // What-if: move the fin profile away from a product's nominal and see the model's predicted ΔVT, Δswing and ΔDIBL
 // (POST /api/model/predict), with the contribution of each input. An engineering estimate, said so.
 import { el, fill, $, param } from '../core/dom.js';
@@ -34,7 +35,7 @@ try {
   fill($('#predict-state'), el('div', { class: 'problem' }, e.message));
 }
 fill(productSelect, products.map((p) => el('option', { value: p.code }, `${p.code} · ${p.name}`)));
-if (products.length === 0) fill($('#predict-state'), el('div', { class: 'problem' }, 'No products yet: create one with POST /api/products.'));
+if (products.length === 0) fill($('#predict-state'), el('div', { class: 'problem' }, 'No products yet: a process engineer adds the products and their nominal profiles first.'));
 const wanted = param('product');
 if (products.some((p) => p.code === wanted)) productSelect.value = wanted;
 
