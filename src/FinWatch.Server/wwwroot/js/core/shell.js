@@ -4,6 +4,7 @@
 // at 1366 px: the longer words go to the tooltips. A page that needs a person sends the visitor to the sign-in page first.
 import { el } from './dom.js';
 import { getJson, sendJson, resetAntiforgery } from './api.js';
+import { when, zoneName } from './format.js';
 
 const pages = [
   ['index.html', 'Floor', 'floor'],
@@ -30,6 +31,8 @@ export function frame(current) {
   const strip = el('header', { class: 'strip' }, el('a', { class: 'brand', href: 'index.html' }, 'Fin', el('span', {}, 'Watch')), nav, mark, who);
   const banner = el('div', { class: 'link-state', role: 'status', 'aria-live': 'polite', dataset: { state: 'none' } });
   document.body.prepend(strip, banner);
+  // One date-time format on every page, and the zone said once, here.
+  document.body.append(el('footer', { class: 'zone-note' }, `Times are in ${zoneName}, this browser's time zone, written as ${when(Date.now())}.`));
   me.then((m) => {
     const needed = pages.find(([href]) => href === current)?.[2] ?? 'read';
     if (!m.signed_in && current !== 'signin.html') {

@@ -6,7 +6,7 @@ import { el, fill, $, param } from '../core/dom.js';
 import { getJson, sendJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
 import { withUnit, number, when, unitLabel } from '../core/format.js';
-import { makeChart, palette } from '../core/charts.js';
+import { makeChart, drawChart, palette } from '../core/charts.js';
 
 frame('limits.html');
 const [contexts, runRules] = await Promise.all([getJson('/api/contexts'), getJson('/api/spc/rules')]);
@@ -47,8 +47,7 @@ function chosen() {
 
 function drawPick() {
   const view = chosen();
-  pick?.destroy();
-  pick = makeChart($('#pick'), {
+  pick = drawChart(pick, $('#pick'), {
     type: 'line',
     data: {
       datasets: [{
@@ -60,7 +59,7 @@ function drawPick() {
     },
     options: {
       parsing: false,
-      scales: { x: { type: 'linear', ticks: { precision: 0 }, title: { display: true, text: 'point number' } }, y: { title: { display: true, text: unitLabel(context.unit) } } },
+      scales: { x: { type: 'linear', ticks: { precision: 0 }, title: { display: true, text: 'point number' } }, y: { title: { display: true, text: `${context.title} [${unitLabel(context.unit)}]` } } },
       onClick: (_e, items) => {
         if (!items.length) return;
         const p = view[items[0].index];

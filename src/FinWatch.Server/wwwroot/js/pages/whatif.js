@@ -4,7 +4,7 @@
 import { el, fill, $, param } from '../core/dom.js';
 import { getJson, sendJson, ApiError } from '../core/api.js';
 import { frame } from '../core/shell.js';
-import { withUnit } from '../core/format.js';
+import { withUnit, when } from '../core/format.js';
 import { taperDeg, midWidth, maxCornerRadius, drawCrossSection } from '../core/fin.js';
 
 frame('whatif.html');
@@ -190,7 +190,9 @@ function show(r) {
     ? el('div', { class: 'problem', id: 'validity-warnings' }, el('strong', {}, 'Outside the model’s validity:'), el('ul', {}, r.warnings.map((w) => el('li', {}, w))))
     : el('p', { class: 'muted', id: 'validity-warnings' }, 'No validity warnings for this profile.'));
   fill($('#caution'), el('strong', {}, 'Engineering estimate, not an electrical test result. '), r.note);
-  fill($('#model-version'), `Model parameter set ${r.parameter_set}, ${r.parameter_set_version}; code ${r.code_version}. Dashed: the nominal profile of ${r.product}; filled: the chosen profile with the nominal liner.`);
+  // The stamp in the page's one date format, and the model's version number without its internal name.
+  const stamp = String(r.parameter_set_version).replace(/\d{4}-\d{2}-\d{2}[ T]\d{2}:\d{2}(:\d{2})?Z/g, (t) => when(t.replace(' ', 'T')));
+  fill($('#model-version'), `Model parameter set ${r.parameter_set}, ${stamp}; model version ${String(r.code_version).split('/').pop()}. Dashed: the nominal profile of ${r.product}; filled: the chosen profile with the nominal liner.`);
   contributions(r);
 }
 
@@ -219,7 +221,7 @@ function contributions(r) {
     contributionLabels.map(([k, label]) => line(k, label, c[k])),
     line('linear_total', 'sum (linear estimate)', c.linear_total, 'total'));
   fill($('#contrib-note'),
-    `Bars right of the centre line raise VT, left lower it (rust). The contributions come from the sensitivity table at the nominal and add up to the linear estimate ${signed(c.linear_total, 'mV', 2)}; `,
+    `Solid bars right of the centre line raise VT; hatched bars left of it lower VT. The contributions come from the sensitivity table at the nominal and add up to the linear estimate ${signed(c.linear_total, 'mV', 2)}; `,
     `the full model gives ${exact == null ? '—' : signed(exact, 'mV', 2)} (difference ${exact == null ? '—' : withUnit(exact - c.linear_total, 'mV', 2)}, the non-linear part).`);
 }
 
