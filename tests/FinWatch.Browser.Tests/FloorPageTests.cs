@@ -1,3 +1,5 @@
+using System.Net.Http.Json;
+using FinWatch.Testing;
 using Microsoft.Playwright;
 using static FinWatch.Testing.MonitorFixture;
 
@@ -38,17 +40,24 @@ public sealed class FloorPageTests(BrowserFixture browser) : MonitoredChartTest(
     [BrowserFact]
     public async Task GroupedWallScreen_KeepsItsChoiceInTheAddress_AndShowsCalmChartsAsOneLine()
     {
+        // A second chart on chamber ETA-1, which the fixture's rows name as a chamber of etch tool ETA.
+        (await Client.PostAsJsonAsync("/api/contexts", new
+        {
+            code = "TRI-TOP-ETA1", product = TestProducts.TriGate, step = "FIN-PROFILE", parameter = "top_width_nm", chamber = "ETA-1",
+            chart_type = "xbar", subgroup = "wafer", rules = "westernElectric", reaction_plan = new[] { "Hold the lot" }, electrical_concern_mv = 10,
+        })).EnsureSuccessStatusCode();
         await Page.SetViewportSizeAsync(1920, 1080);
         await OpenAsync("index.html");
         await WaitLiveAsync();
         await Page.Locator("#view").SelectOptionAsync("chambers");
+        await Assertions.Expect(Page.Locator("section.group h2").First).ToContainTextAsync("tool ETA · chamber ETA-1 · 1 chart");
         await Page.Locator("#layout").SelectOptionAsync("wall");
         Assert.Contains("view=chambers", Page.Url);
         Assert.Contains("layout=wall", Page.Url);
         await Assertions.Expect(Page.Locator("body")).ToHaveClassAsync(new System.Text.RegularExpressions.Regex(@"\bwall\b"));
         // The fixture's chart has no chamber: it belongs to the whole step's group; in control, it is one line.
-        var group = Page.Locator("section.group");
-        await Assertions.Expect(group).ToHaveCountAsync(1);
+        await Assertions.Expect(Page.Locator("section.group")).ToHaveCountAsync(2);
+        var group = Page.Locator("section.group").Last;
         await Assertions.Expect(group.Locator("h2")).ToContainTextAsync("whole step, every chamber · 1 chart, 0 out of control");
         await Assertions.Expect(group.Locator(".calm .chip[data-context='TRI-TOP']")).ToBeVisibleAsync();
         await Assertions.Expect(group.Locator(".tile")).ToHaveCountAsync(0);

@@ -24,8 +24,19 @@ for (const select of [viewSelect, layoutSelect]) {
     q.set(select.id, select.value);
     history.replaceState(null, '', `?${q}`);
     applyLayout();
-    render();
+    if (select === viewSelect) loadTools().then(() => render()); else render();
   });
+}
+
+/** The tool of each chamber, from the equipment seen in stored rows; asked once, and only for the grouped view. */
+async function loadTools() {
+  if (viewSelect.value !== 'chambers' || toolOf.size > 0 || !(await me).permissions.includes('read')) return;
+  try {
+    const known = await getJson('/api/measurements/known-values');
+    toolOf = new Map([...known.etch_tools, ...known.liner_tools].flatMap((t) => t.chambers.map((c) => [c, t.tool])));
+  } catch {
+    toolOf = new Map(); // the groups are still named by chamber
+  }
 }
 
 function applyLayout() {
@@ -153,6 +164,7 @@ function groups(list) {
 }
 
 async function load() {
+  await loadTools();
   contexts = await getJson('/api/contexts');
   render();
   budget();
