@@ -69,7 +69,9 @@ public sealed class AccessPagesTests(BrowserFixture browser) : BrowserTest(brows
         await OpenAsync($"display/{created.GetProperty("key").GetString()}");
         await Page.WaitForURLAsync(BaseUrl.TrimEnd('/') + "/");
         await WaitLiveAsync();
-        await Assertions.Expect(Page.Locator(".tile[data-context='TRI-TOP']")).ToBeVisibleAsync();
+        // A display token opens the wall-screen layout: a calm chart is one line (a chip), not a tile.
+        await Assertions.Expect(Page.Locator("#layout")).ToHaveValueAsync("wall");
+        await Assertions.Expect(Page.Locator("[data-context='TRI-TOP']")).ToBeVisibleAsync();
         await Assertions.Expect(Page.Locator(".strip nav a")).ToHaveTextAsync(["Floor", "Chart"]);
         await Assertions.Expect(Page.Locator(".strip .demo-mark")).ToContainTextAsync("Wall screen");
         AssertNoPageProblems();
