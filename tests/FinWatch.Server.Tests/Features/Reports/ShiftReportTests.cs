@@ -316,7 +316,7 @@ public class ShiftReportTests : IntegrationTest
 
         var records = await CsvRecordsAsync(bytes);
         var sections = Sections(records);
-        Assert.Equal(["shift", "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "maintenance_performed", "alerts_open_at_end",
+        Assert.Equal(["shift", "needs_action", "handover", "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "maintenance_performed", "alerts_open_at_end",
                 "contexts_out_of_control", "dvt_risks", "capability_changes"],
             records.Select(r => r[0]).Distinct());
 
