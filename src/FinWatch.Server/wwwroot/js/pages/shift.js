@@ -61,9 +61,9 @@ function renderNeedsAction(r) {
       el('a', { href: 'alerts.html?state=active&escalated=true' }, 'the escalated alerts')));
   }
   if (r.contexts_out_of_control.length > 0) {
-    items.push(el('li', { id: 'ooc-charts' }, stateMark('out_of_control', plural(r.contexts_out_of_control.length, 'chart')), ' out of control: ',
-      r.contexts_out_of_control.map((/** @type {any} */ c, /** @type {number} */ i) => [i ? ', ' : '', chartLink(c.context, c.title),
-        ` (${plural(c.alerts_not_closed, 'alert')} not closed, worst `, el('span', { class: `sev ${c.worst_severity}` }, c.worst_severity), ')'])));
+    items.push(el('li', { id: 'ooc-charts' }, stateMark('out_of_control', plural(r.contexts_out_of_control.length, 'chart')), ' out of control:',
+      el('ul', {}, r.contexts_out_of_control.map((/** @type {any} */ c) => el('li', {}, chartLink(c.context, c.title),
+        ` (${plural(c.alerts_not_closed, 'alert')} not closed, worst `, el('span', { class: `sev ${c.worst_severity}` }, c.worst_severity), ')')))));
   }
   if (n.alerts_not_closed > 0) {
     items.push(el('li', {}, `${plural(n.alerts_not_closed, 'alert')} not closed in all: `, el('a', { href: 'alerts.html?state=active' }, 'the alert queue')));
@@ -136,7 +136,7 @@ function steps(list) {
 }
 
 /** Cpk of a window with its points, or why there is none. @param {any} w */
-const cpk = (w) => (w.cpk == null ? el('span', { class: 'muted' }, `no Cpk: ${w.reason}`) : `Cpk ${number(w.cpk, 2)} (${plural(w.points, 'point')})`);
+const cpk = (w) => (w.cpk == null ? el('span', { class: 'muted' }, w.reason) : `Cpk ${number(w.cpk, 2)} (${plural(w.points, 'point')})`);
 
 /** @param {any} c */
 function capabilityRow(c) {
@@ -151,7 +151,7 @@ function capabilityRow(c) {
     el('td', { class: 'num' }, `${c.lsl == null ? '—' : withUnit(c.lsl, c.unit)} to ${c.usl == null ? '—' : withUnit(c.usl, c.unit)}`),
     el('td', { class: 'num' }, withUnit(w.mean, c.unit)), el('td', { class: 'num' }, withUnit(w.sigma_within, c.unit, 4)),
     el('td', { class: 'num' }, cpk(w)),
-    el('td', {}, c.shift.cpk == null ? el('span', { class: 'muted' }, `no Cpk: ${c.shift.reason}`) : [`Cpk ${number(c.shift.cpk, 2)}`, change]));
+    el('td', {}, c.shift.cpk == null ? el('span', { class: 'muted' }, c.shift.reason) : [`Cpk ${number(c.shift.cpk, 2)}`, change]));
 }
 
 /** @param {any} r */
@@ -205,7 +205,8 @@ function render(r) {
       el('td', {}, lotLink(d.lot_id), wafer(d.wafer_slot)), el('td', {}, d.chamber ?? '—'), el('td', {}, when(d.measured_at)),
       el('td', { class: 'num' }, mv(d.predicted_dvt_sat_mv), Math.abs(d.predicted_dvt_sat_mv) >= d.electrical_concern_mv ? el('strong', {}, ' ▲ at or above concern') : ''),
       el('td', { class: 'num' }, mv(d.electrical_concern_mv)),
-      el('td', {}, chartLink(d.context, d.context_title), d.also_in_context_titles.length ? ` (also ${d.also_in_context_titles.join(', ')})` : ''))),
+      el('td', {}, chartLink(d.context, d.context_title),
+        d.also_in_context_titles.length ? el('span', { class: 'muted', title: d.also_in_context_titles.join(', ') }, ` and ${plural(d.also_in_context_titles.length, 'other chart')}`) : ''))),
     'No wafer measured in this shift has a predicted ΔVT.'));
 }
 
