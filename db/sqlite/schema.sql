@@ -542,3 +542,27 @@ VALUES ('20261205083257_ExcursionAlertsAndBaselineCheck', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+CREATE TABLE "shift_handovers" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_shift_handovers" PRIMARY KEY AUTOINCREMENT,
+    "shift_date" TEXT NOT NULL,
+    "shift" TEXT NOT NULL,
+    "shift_start_ms" INTEGER NOT NULL,
+    "notes" TEXT NOT NULL,
+    "notes_by" TEXT NULL,
+    "notes_at_ms" INTEGER NULL,
+    "outgoing_by" TEXT NULL,
+    "outgoing_at_ms" INTEGER NULL,
+    "incoming_by" TEXT NULL,
+    "incoming_at_ms" INTEGER NULL
+);
+
+CREATE UNIQUE INDEX "IX_shift_handovers_shift_date_shift" ON "shift_handovers" ("shift_date", "shift");
+
+CREATE INDEX "IX_shift_handovers_shift_start_ms" ON "shift_handovers" ("shift_start_ms");
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261205172141_ShiftHandovers', '10.0.15');
+
+COMMIT;
+

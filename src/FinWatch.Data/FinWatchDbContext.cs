@@ -30,6 +30,7 @@ public abstract class FinWatchDbContext(DbContextOptions options) : IdentityUser
     public DbSet<FeedEvent> FeedEvents => Set<FeedEvent>();
     public DbSet<ApiKey> ApiKeys => Set<ApiKey>();
     public DbSet<AuditEntry> AuditEntries => Set<AuditEntry>();
+    public DbSet<ShiftHandover> ShiftHandovers => Set<ShiftHandover>();
 
     protected override void OnModelCreating(ModelBuilder builder)
     {

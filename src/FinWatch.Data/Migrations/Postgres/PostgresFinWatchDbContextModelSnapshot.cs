@@ -1383,6 +1383,74 @@ namespace FinWatch.Data.Migrations.Postgres
                     b.ToTable("products", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.ShiftHandover", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("bigint")
+                        .HasColumnName("id");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<long>("Id"));
+
+                    b.Property<long?>("IncomingAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("incoming_at_ms");
+
+                    b.Property<string>("IncomingBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("incoming_by");
+
+                    b.Property<string>("Notes")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("character varying(4000)")
+                        .HasColumnName("notes");
+
+                    b.Property<long?>("NotesAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("notes_at_ms");
+
+                    b.Property<string>("NotesBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("notes_by");
+
+                    b.Property<long?>("OutgoingAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("outgoing_at_ms");
+
+                    b.Property<string>("OutgoingBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("outgoing_by");
+
+                    b.Property<string>("Shift")
+                        .IsRequired()
+                        .HasMaxLength(32)
+                        .HasColumnType("character varying(32)")
+                        .HasColumnName("shift");
+
+                    b.Property<string>("ShiftDate")
+                        .IsRequired()
+                        .HasMaxLength(10)
+                        .HasColumnType("character varying(10)")
+                        .HasColumnName("shift_date");
+
+                    b.Property<long>("ShiftStartMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("shift_start_ms");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ShiftStartMs");
+
+                    b.HasIndex("ShiftDate", "Shift")
+                        .IsUnique();
+
+                    b.ToTable("shift_handovers", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.SpecLimit", b =>
                 {
                     b.Property<int>("Id")

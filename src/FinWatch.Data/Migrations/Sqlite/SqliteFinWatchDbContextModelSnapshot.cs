@@ -1348,6 +1348,72 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.ToTable("products", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.ShiftHandover", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<long?>("IncomingAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("incoming_at_ms");
+
+                    b.Property<string>("IncomingBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("incoming_by");
+
+                    b.Property<string>("Notes")
+                        .IsRequired()
+                        .HasMaxLength(4000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("notes");
+
+                    b.Property<long?>("NotesAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("notes_at_ms");
+
+                    b.Property<string>("NotesBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("notes_by");
+
+                    b.Property<long?>("OutgoingAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("outgoing_at_ms");
+
+                    b.Property<string>("OutgoingBy")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("outgoing_by");
+
+                    b.Property<string>("Shift")
+                        .IsRequired()
+                        .HasMaxLength(32)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("shift");
+
+                    b.Property<string>("ShiftDate")
+                        .IsRequired()
+                        .HasMaxLength(10)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("shift_date");
+
+                    b.Property<long>("ShiftStartMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("shift_start_ms");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ShiftStartMs");
+
+                    b.HasIndex("ShiftDate", "Shift")
+                        .IsUnique();
+
+                    b.ToTable("shift_handovers", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.SpecLimit", b =>
                 {
                     b.Property<int>("Id")

@@ -53,7 +53,7 @@ public static class Permissions
 
     public const string Ingest = "ingest";
     public const string Acknowledge = "acknowledge";
-    /// <summary>Disposition and close alerts; record chamber maintenance (supervisors and up).</summary>
+    /// <summary>Disposition and close alerts; record chamber maintenance; write and sign shift handovers (supervisors and up).</summary>
     public const string Disposition = "disposition";
     public const string Engineer = "engineer";
     public const string Administer = "administer";

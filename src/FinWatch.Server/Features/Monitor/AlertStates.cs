@@ -10,3 +10,11 @@ public static class AlertStates
 
     public static readonly string[] All = [Open, Acknowledged, Dispositioned, Closed];
 }
+
+/// <summary>A chart context's state: no approved limits yet, in control, or with an alert not closed.</summary>
+public static class ContextStates
+{
+    public const string Baseline = "baseline";
+    public const string InControl = "in_control";
+    public const string OutOfControl = "out_of_control";
+}

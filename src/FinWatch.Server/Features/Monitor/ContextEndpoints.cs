@@ -37,7 +37,7 @@ public static partial class ContextEndpoints
             list.Add(await DescribeAsync(db, c, cancellationToken));
         }
 
-        return TypedResults.Ok(list.OrderByDescending(c => c.State == "out_of_control").ThenByDescending(c => Array.IndexOf(Severity.Names, c.WorstSeverity))
+        return TypedResults.Ok(list.OrderByDescending(c => c.State == ContextStates.OutOfControl).ThenByDescending(c => Array.IndexOf(Severity.Names, c.WorstSeverity))
             .ThenByDescending(c => c.UnacknowledgedAlerts).ThenBy(c => c.Code, StringComparer.Ordinal).ToList());
     }
 
@@ -228,7 +228,7 @@ public static partial class ContextEndpoints
         var judgedBy = await db.LimitVersions.AsNoTracking().Where(l => versions.Contains(l.Id)).ToDictionaryAsync(l => l.Id, cancellationToken);
         LimitVersion? lastLimit = last?.LimitVersionId is { } id ? judgedBy[id] : null;
         var unit = FinParameters.TryGet(c.Parameter, out var p) ? p.Unit : "";
-        var state = limit is null ? "baseline" : alerts.Count > 0 ? "out_of_control" : "in_control";
+        var state = limit is null ? ContextStates.Baseline : alerts.Count > 0 ? ContextStates.OutOfControl : ContextStates.InControl;
         var maintenance = await ChamberMaintenance.SinceAsync(db, c, last?.Chamber, unit, cancellationToken);
         return new ContextResponse(c.Code, c.Title, product, c.Step, c.Parameter, unit, c.Chamber, c.ChartType, c.Subgroup,
             c.Rules.Split(',', StringSplitOptions.RemoveEmptyEntries), c.ReactionPlan.Split('\n', StringSplitOptions.RemoveEmptyEntries), c.ElectricalConcernMv,

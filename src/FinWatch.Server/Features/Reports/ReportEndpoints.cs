@@ -84,6 +84,6 @@ public static class ReportEndpoints
         return errors.Count > 0 ? (null, errors) : (ShiftCalendar.Window(definition!, day, zone), null);
     }
 
-    private static ValidationProblem Invalid(ValidationErrors errors) =>
+    internal static ValidationProblem Invalid(ValidationErrors errors) =>
         Problems.Invalid(errors, type: "/problems/invalid-shift", detailFromMessages: true);
 }

@@ -14,5 +14,9 @@ public sealed class ReportsFeature : IFeature
         builder.Services.AddScoped<ShiftReport>();
     }
 
-    public static void Map(IEndpointRouteBuilder endpoints) => ReportEndpoints.Map(endpoints);
+    public static void Map(IEndpointRouteBuilder endpoints)
+    {
+        ReportEndpoints.Map(endpoints);
+        HandoverEndpoints.Map(endpoints);
+    }
 }

@@ -47,7 +47,7 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
         var actions = events.Where(e => e.AtMs >= w.StartMs).Select(e =>
         {
             var a = alertById[e.AlertId];
-            return new AlertActionRow(a.Id, contextById[a.ContextId].Code, a.Rule, a.Severity, a.LotId, e.Kind, DateTimeOffset.FromUnixTimeMilliseconds(e.AtMs),
+            return new AlertActionRow(a.Id, contextById[a.ContextId].Code, contextById[a.ContextId].Title, a.Rule, a.Severity, a.LotId, e.Kind, DateTimeOffset.FromUnixTimeMilliseconds(e.AtMs),
                 e.By, e.Comment, e.StepsJson is null ? null : JsonSerializer.Deserialize<List<StepTaken>>(e.StepsJson, FeedLog.Json));
         }).ToList();
 
@@ -69,11 +69,17 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
                 .OrderBy(p => p.Seq).ToListAsync(cancellationToken);
         }
 
+        var openRows = notClosed.Select(Row).ToList();
+        var needsAction = new NeedsActionSummary(openRows.Count, openRows.Count(a => a.StateAtShiftEnd == AlertStates.Open),
+            openRows.Count(a => a.EscalatedByShiftEnd), outOfControl.Count);
+        var contextState = contexts.ToDictionary(c => c.Id, c => outOfControl.Any(r => r.Context == c.Code) ? ContextStates.OutOfControl
+            : approved.Contains(c.Id) ? ContextStates.InControl : ContextStates.Baseline);
         return new ShiftReportResponse(w.Name, w.Date, o.TimeZone, w.Start, w.End, (w.End - w.Start).TotalHours,
             now >= w.End ? "finished" : now >= w.Start ? "in_progress" : "not_started", now, [.. o.EffectivePattern.Select(s => s.Name)],
+            needsAction, ShiftHandoverResponse.Of(w, await HandoverEndpoints.FindAsync(db, w, cancellationToken)),
             await LotsAsync(w, products, cancellationToken), raised, await SignalsMeasuredAsync(w, contexts, points, cancellationToken), actions,
-            await MaintenanceAsync(w, contexts, cancellationToken), [.. notClosed.Select(Row)], outOfControl,
-            Risks(w, contexts, points, o.TopRisks), Capability(w, contexts, products, points, o.CapabilityMinPoints), EvaluateModel.PredictionCaution);
+            await MaintenanceAsync(w, contexts, cancellationToken), openRows, outOfControl,
+            Risks(w, contexts, points, o.TopRisks), Capability(w, contexts, products, points, contextState, o.CapabilityMinPoints), EvaluateModel.PredictionCaution);
     }
 
     // Signal points by their measured time, each with the excursion that holds it (the alert of its chart whose chart
@@ -93,12 +99,15 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
             var (low, high) = (signalled.Min(p => p.Seq), signalled.Max(p => p.Seq));
             var alerts = await db.Alerts.AsNoTracking().Where(a => a.ContextId == c.Id && a.FirstSeq <= high && a.LastSeq >= low)
                 .ToListAsync(cancellationToken);
-            rows.AddRange(signalled.GroupBy(p => alerts.FirstOrDefault(a => a.FirstSeq <= p.Seq && p.Seq <= a.LastSeq)).Select(g => new SignalsMeasuredRow(
-                g.Key?.Id, c.Code, c.Title, [.. g.SelectMany(p => p.Signals.Split(',')).Distinct().Order(StringComparer.Ordinal)], g.Count(),
-                g.Select(p => p.LotId).Distinct().Count(), DateTimeOffset.FromUnixTimeMilliseconds(g.Min(p => p.MeasuredAtMs)),
-                DateTimeOffset.FromUnixTimeMilliseconds(g.Max(p => p.MeasuredAtMs)),
-                g.Key is null ? null : DateTimeOffset.FromUnixTimeMilliseconds(g.Key.RaisedAtMs),
-                g.Key is { } a && a.RaisedAtMs >= w.StartMs && a.RaisedAtMs < w.EndMs)));
+            foreach (var g in signalled.GroupBy(p => alerts.FirstOrDefault(a => a.FirstSeq <= p.Seq && p.Seq <= a.LastSeq)))
+            {
+                var rules = g.SelectMany(p => p.Signals.Split(',')).Distinct().Order(StringComparer.Ordinal).ToList();
+                rows.Add(new SignalsMeasuredRow(g.Key?.Id, c.Code, c.Title, rules, [.. rules.Select(AlertViews.Text)], g.Count(),
+                    g.Select(p => p.LotId).Distinct().Count(), DateTimeOffset.FromUnixTimeMilliseconds(g.Min(p => p.MeasuredAtMs)),
+                    DateTimeOffset.FromUnixTimeMilliseconds(g.Max(p => p.MeasuredAtMs)),
+                    g.Key is null ? null : DateTimeOffset.FromUnixTimeMilliseconds(g.Key.RaisedAtMs),
+                    g.Key is { } a && a.RaisedAtMs >= w.StartMs && a.RaisedAtMs < w.EndMs));
+            }
         }
 
         return [.. rows.OrderBy(r => r.FirstMeasuredAt).ThenBy(r => r.Context, StringComparer.Ordinal)];
@@ -143,14 +152,15 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
         return [.. inShift.GroupBy(x => (x.p.LotId, x.p.WaferSlot)).Select(g =>
             {
                 var (c, p) = g.OrderByDescending(x => Math.Abs(x.p.PredictedDvtSatMv!.Value)).ThenBy(x => x.c.Code, StringComparer.Ordinal).First();
+                var others = g.Select(x => x.c).Where(o => o.Code != c.Code).DistinctBy(o => o.Code).OrderBy(o => o.Code, StringComparer.Ordinal).ToList();
                 return new DvtRiskRow(p.LotId, p.WaferSlot, p.Chamber, DateTimeOffset.FromUnixTimeMilliseconds(p.MeasuredAtMs), p.PredictedDvtSatMv!.Value,
-                    c.Code, c.ElectricalConcernMv, [.. g.Select(x => x.c.Code).Where(code => code != c.Code).Distinct().Order(StringComparer.Ordinal)]);
+                    c.Code, c.Title, c.ElectricalConcernMv, [.. others.Select(o => o.Code)], [.. others.Select(o => o.Title)]);
             })
             .OrderByDescending(r => Math.Abs(r.PredictedDvtSatMv)).ThenBy(r => r.LotId, StringComparer.Ordinal).ThenBy(r => r.WaferSlot).Take(top)];
     }
 
     private static List<CapabilityChangeRow> Capability(ShiftWindow w, List<ChartContext> contexts, Dictionary<int, Product> products,
-        Dictionary<int, List<ChartPoint>> points, int minPoints)
+        Dictionary<int, List<ChartPoint>> points, Dictionary<int, string> stateAtEnd, int minPoints)
     {
         var rows = new List<CapabilityChangeRow>();
         foreach (var c in contexts)
@@ -164,8 +174,10 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
             var limits = new SpecLimits(spec.Lower, spec.Upper, spec.Target);
             var shift = Window(c, limits, points[c.Id].Where(p => p.MeasuredAtMs >= w.StartMs).ToList(), w.Start, w.End, minPoints);
             var previous = Window(c, limits, points[c.Id].Where(p => p.MeasuredAtMs < w.StartMs).ToList(), w.Start.AddDays(-7), w.Start, minPoints);
-            rows.Add(new CapabilityChangeRow(c.Code, c.Parameter, FinParameters.TryGet(c.Parameter, out var p) ? p.Unit : "", spec.Lower, spec.Upper,
-                shift, previous, shift.Cpk - previous.Cpk));
+            // The week through the shift's end: enough points for an index where one shift has only a few lots.
+            var week = Window(c, limits, points[c.Id].Where(p => p.MeasuredAtMs >= w.End.AddDays(-7).ToUnixTimeMilliseconds()).ToList(), w.End.AddDays(-7), w.End, minPoints);
+            rows.Add(new CapabilityChangeRow(c.Code, c.Title, stateAtEnd[c.Id], c.Parameter, FinParameters.TryGet(c.Parameter, out var p) ? p.Unit : "", spec.Lower, spec.Upper,
+                week, shift, previous, shift.Cpk - previous.Cpk));
         }
 
         return rows;
@@ -176,7 +188,7 @@ public sealed class ShiftReport(FinWatchDbContext db, TimeProvider clock, IOptio
         if (used.Count < minPoints)
         {
             return new CapabilityWindowRow(from, to, used.Count, null, null, null,
-                $"{used.Count} point{(used.Count == 1 ? "" : "s")}; Cpk needs at least {minPoints} ({ShiftOptions.Section}:CapabilityMinPoints)");
+                $"{used.Count} point{(used.Count == 1 ? "" : "s")}; Cpk needs at least {minPoints}");
         }
 
         var (_, sigma) = BaselineLimits.Estimate(c, used);

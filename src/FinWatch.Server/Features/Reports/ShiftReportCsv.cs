@@ -19,14 +19,18 @@ public static class ShiftReportCsv
         {
             ("shift", ["shift", "date", "time_zone", "start", "end", "length_h", "status", "generated_at", "prediction_caution"],
                 [[r.Shift, r.Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture), r.TimeZone, T(r.Start), T(r.End), N(r.LengthHours), r.Status, T(r.GeneratedAt), r.PredictionCaution]]),
+            ("needs_action", ["alerts_not_closed", "alerts_not_acknowledged", "alerts_escalated", "charts_out_of_control"],
+                [[I(r.NeedsAction.AlertsNotClosed), I(r.NeedsAction.AlertsNotAcknowledged), I(r.NeedsAction.AlertsEscalated), I(r.NeedsAction.ChartsOutOfControl)]]),
+            ("handover", ["notes", "notes_by", "notes_at", "outgoing_by", "outgoing_at", "incoming_by", "incoming_at"],
+                [[r.Handover.Notes, r.Handover.NotesBy, T(r.Handover.NotesAt), r.Handover.Outgoing?.By, T(r.Handover.Outgoing?.At), r.Handover.Incoming?.By, T(r.Handover.Incoming?.At)]]),
             ("lots_measured", ["lot_id", "product", "step", "wafer_count", "site_count", "chambers", "first_measured_at", "last_measured_at"],
                 [.. r.LotsMeasured.Select(l => new[] { l.LotId, l.Product, l.Step, I(l.WaferCount), I(l.SiteCount), string.Join("; ", l.Chambers), T(l.FirstMeasuredAt), T(l.LastMeasuredAt) })]),
             ("alerts_raised", AlertColumns, [.. r.AlertsRaised.Select(AlertRow)]),
             ("signals_measured", ["alert_id", "context", "context_title", "rules", "signal_points", "lots", "first_measured_at", "last_measured_at", "raised_at", "raised_in_shift"],
                 [.. r.SignalsMeasured.Select(m => new[] { I(m.AlertId), m.Context, m.ContextTitle, string.Join("; ", m.Rules), I(m.SignalPoints), I(m.Lots),
                     T(m.FirstMeasuredAt), T(m.LastMeasuredAt), m.RaisedAt is { } t ? T(t) : null, m.RaisedInShift ? "true" : "false" })]),
-            ("alert_actions", ["alert_id", "context", "rule", "severity", "lot_id", "action", "at", "by", "comment", "steps"],
-                [.. r.AlertActions.Select(a => new[] { I(a.AlertId), a.Context, a.Rule, a.Severity, a.LotId, a.Action, T(a.At), a.By, a.Comment,
+            ("alert_actions", ["alert_id", "context", "context_title", "rule", "severity", "lot_id", "action", "at", "by", "comment", "steps"],
+                [.. r.AlertActions.Select(a => new[] { I(a.AlertId), a.Context, a.ContextTitle, a.Rule, a.Severity, a.LotId, a.Action, T(a.At), a.By, a.Comment,
                     a.Steps is null ? null : string.Join(" | ", a.Steps.Select(s => $"{s.Step}: {(s.Done ? "done" : "not done")}{(string.IsNullOrWhiteSpace(s.Note) ? "" : $" ({s.Note})")}")) })]),
             ("maintenance_performed", ["maintenance_id", "chamber", "kind", "occurred_at", "performed_by", "note", "recorded_by", "contexts", "context_titles"],
                 [.. r.MaintenancePerformed.Select(m => new[] { I(m.Id), m.Chamber, m.Kind, T(m.OccurredAt), m.PerformedBy, m.Note, m.RecordedBy,
@@ -34,11 +38,13 @@ public static class ShiftReportCsv
             ("alerts_open_at_end", AlertColumns, [.. r.AlertsOpenAtEnd.Select(AlertRow)]),
             ("contexts_out_of_control", ["context", "title", "product", "step", "parameter", "chamber", "alerts_not_closed", "worst_severity", "rules"],
                 [.. r.ContextsOutOfControl.Select(c => new[] { c.Context, c.Title, c.Product, c.Step, c.Parameter, c.Chamber, I(c.AlertsNotClosed), c.WorstSeverity, string.Join("; ", c.Rules) })]),
-            ("dvt_risks", ["lot_id", "wafer_slot", "chamber", "measured_at", "predicted_dvt_sat_mv", "context", "electrical_concern_mv", "also_in_contexts"],
-                [.. r.DvtRisks.Select(d => new[] { d.LotId, I(d.WaferSlot), d.Chamber, T(d.MeasuredAt), N(d.PredictedDvtSatMv), d.Context, N(d.ElectricalConcernMv), string.Join("; ", d.AlsoInContexts) })]),
-            ("capability_changes", ["context", "parameter", "unit", "lsl", "usl", "shift_points", "shift_mean", "shift_sigma_within", "shift_cpk", "shift_reason",
+            ("dvt_risks", ["lot_id", "wafer_slot", "chamber", "measured_at", "predicted_dvt_sat_mv", "context", "context_title", "electrical_concern_mv", "also_in_contexts", "also_in_context_titles"],
+                [.. r.DvtRisks.Select(d => new[] { d.LotId, I(d.WaferSlot), d.Chamber, T(d.MeasuredAt), N(d.PredictedDvtSatMv), d.Context, d.ContextTitle, N(d.ElectricalConcernMv), string.Join("; ", d.AlsoInContexts), string.Join("; ", d.AlsoInContextTitles) })]),
+            ("capability_changes", ["context", "context_title", "state_at_shift_end", "parameter", "unit", "lsl", "usl",
+                "last_seven_days_points", "last_seven_days_mean", "last_seven_days_sigma_within", "last_seven_days_cpk", "last_seven_days_reason", "shift_points", "shift_mean", "shift_sigma_within", "shift_cpk", "shift_reason",
                 "previous_seven_days_points", "previous_seven_days_mean", "previous_seven_days_sigma_within", "previous_seven_days_cpk", "previous_seven_days_reason", "cpk_change"],
-                [.. r.CapabilityChanges.Select(c => new[] { c.Context, c.Parameter, c.Unit, N(c.Lsl), N(c.Usl),
+                [.. r.CapabilityChanges.Select(c => new[] { c.Context, c.ContextTitle, c.StateAtShiftEnd, c.Parameter, c.Unit, N(c.Lsl), N(c.Usl),
+                    I(c.LastSevenDays.Points), N(c.LastSevenDays.Mean), N(c.LastSevenDays.SigmaWithin), N(c.LastSevenDays.Cpk), c.LastSevenDays.Reason,
                     I(c.Shift.Points), N(c.Shift.Mean), N(c.Shift.SigmaWithin), N(c.Shift.Cpk), c.Shift.Reason,
                     I(c.PreviousSevenDays.Points), N(c.PreviousSevenDays.Mean), N(c.PreviousSevenDays.SigmaWithin), N(c.PreviousSevenDays.Cpk), c.PreviousSevenDays.Reason, N(c.CpkChange) })]),
         };
@@ -81,7 +87,7 @@ public static class ShiftReportCsv
         csv.Append("\r\n");
     }
 
-    private static string T(DateTimeOffset t) => t.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture);
+    private static string? T(DateTimeOffset? t) => t?.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture);
 
     private static string? N(double? v) => v?.ToString("R", CultureInfo.InvariantCulture);
 

@@ -6,6 +6,8 @@ namespace FinWatch.Server.Features.Reports;
 public sealed record ShiftReportResponse(
     string Shift, DateOnly Date, string TimeZone, DateTimeOffset Start, DateTimeOffset End, double LengthHours, string Status,
     DateTimeOffset GeneratedAt, IReadOnlyList<string> Shifts,
+    NeedsActionSummary NeedsAction,
+    ShiftHandoverResponse Handover,
     IReadOnlyList<LotMeasuredRow> LotsMeasured,
     IReadOnlyList<ShiftAlertRow> AlertsRaised,
     IReadOnlyList<SignalsMeasuredRow> SignalsMeasured,
@@ -16,6 +18,12 @@ public sealed record ShiftReportResponse(
     IReadOnlyList<DvtRiskRow> DvtRisks,
     IReadOnlyList<CapabilityChangeRow> CapabilityChanges,
     string PredictionCaution);
+
+/// <summary>
+/// What the incoming shift must act on, at the shift's end: alerts not closed, of them those still open (not
+/// acknowledged) and those escalated, and the charts out of control.
+/// </summary>
+public sealed record NeedsActionSummary(int AlertsNotClosed, int AlertsNotAcknowledged, int AlertsEscalated, int ChartsOutOfControl);
 
 /// <summary>A lot at a step with sites measured in the shift (counts of those sites only).</summary>
 public sealed record LotMeasuredRow(string LotId, string Product, string Step, int WaferCount, int SiteCount, IReadOnlyList<string> Chambers,
@@ -34,11 +42,11 @@ public sealed record ShiftAlertRow(long Id, string Context, string ContextTitle,
 /// rules they fired, how many points and lots, their first and last measured time, and whether the alert was raised in
 /// this shift. A lot measured in the shift but uploaded later counts here once it is uploaded.
 /// </summary>
-public sealed record SignalsMeasuredRow(long? AlertId, string Context, string ContextTitle, IReadOnlyList<string> Rules, int SignalPoints, int Lots,
+public sealed record SignalsMeasuredRow(long? AlertId, string Context, string ContextTitle, IReadOnlyList<string> Rules, IReadOnlyList<string> RuleTexts, int SignalPoints, int Lots,
     DateTimeOffset FirstMeasuredAt, DateTimeOffset LastMeasuredAt, DateTimeOffset? RaisedAt, bool RaisedInShift);
 
 /// <summary>An acknowledgement, disposition (with the reaction-plan steps) or close recorded during the shift.</summary>
-public sealed record AlertActionRow(long AlertId, string Context, string Rule, string Severity, string LotId, string Action, DateTimeOffset At,
+public sealed record AlertActionRow(long AlertId, string Context, string ContextTitle, string Rule, string Severity, string LotId, string Action, DateTimeOffset At,
     string By, string Comment, IReadOnlyList<StepTaken>? Steps);
 
 /// <summary>
@@ -58,11 +66,15 @@ public sealed record OutOfControlRow(string Context, string Title, string Produc
 
 /// <summary>A wafer (or lot, for lot subgroups) measured in the shift, by its mean predicted ΔVT sat (engineering estimate).</summary>
 public sealed record DvtRiskRow(string LotId, int? WaferSlot, string? Chamber, DateTimeOffset MeasuredAt, double PredictedDvtSatMv,
-    string Context, double ElectricalConcernMv, IReadOnlyList<string> AlsoInContexts);
+    string Context, string ContextTitle, double ElectricalConcernMv, IReadOnlyList<string> AlsoInContexts, IReadOnlyList<string> AlsoInContextTitles);
 
-/// <summary>Cpk over the shift's points against the seven days before the shift, for a context whose parameter has a spec.</summary>
-public sealed record CapabilityChangeRow(string Context, string Parameter, string Unit, double? Lsl, double? Usl,
-    CapabilityWindowRow Shift, CapabilityWindowRow PreviousSevenDays, double? CpkChange);
+/// <summary>
+/// Capability of a context whose parameter has a spec: its state at the shift's end (<c>out_of_control</c>: not stable,
+/// so the indices do not predict; <c>in_control</c>; <c>baseline</c>: no approved limits, stability not judged), Cpk
+/// over the seven days through the shift's end, and Cpk over the shift's points against the seven days before the shift.
+/// </summary>
+public sealed record CapabilityChangeRow(string Context, string ContextTitle, string StateAtShiftEnd, string Parameter, string Unit, double? Lsl, double? Usl,
+    CapabilityWindowRow LastSevenDays, CapabilityWindowRow Shift, CapabilityWindowRow PreviousSevenDays, double? CpkChange);
 
 /// <summary>
 /// Cpk = min(USL − x̄, x̄ − LSL)/(3σ_within) of the context's points in a window: x̄ the mean of the points, σ_within as

@@ -124,6 +124,26 @@ public class ShiftReportTests : IntegrationTest
         Assert.Equal(0.7927, shift.GetProperty("cpk").GetDouble(), 4);
         Assert.Equal((0.2 - 0.5) / (3 * SigmaWithin), cap.GetProperty("cpk_change").GetDouble(), 1e-9);
         Assert.Equal(Day.AddDays(-7).AddHours(14), previous.GetProperty("from").GetDateTimeOffset());
+
+        // The 7 days to the shift's end (2026-11-24 22:00 to 2026-12-01 22:00): P0001 and L0001, μ = (5·6.0 + 31.5)/10
+        // = 6.15 → Cpk = 0.35/(3σ) = 1.387 (hand computation); the chart is out of control at the end, so not stable.
+        var week = cap.GetProperty("last_seven_days");
+        Assert.Equal((10, Day.AddDays(-7).AddHours(22), Day.AddHours(22)),
+            (week.GetProperty("points").GetInt32(), week.GetProperty("from").GetDateTimeOffset(), week.GetProperty("to").GetDateTimeOffset()));
+        Assert.Equal(6.15, week.GetProperty("mean").GetDouble(), 1e-9);
+        Assert.Equal(0.35 / (3 * SigmaWithin), week.GetProperty("cpk").GetDouble(), 1e-9);
+        Assert.Equal("out_of_control", cap.GetProperty("state_at_shift_end").GetString());
+
+        // Titles beside the codes, and what needs action at the end: one alert not closed (acknowledged), one chart.
+        var title = ooc.GetProperty("title").GetString();
+        Assert.Equal("TP-TRI FIN-PROFILE top_width_nm", title); // made from product, step and parameter (no title given)
+        Assert.Equal(title, cap.GetProperty("context_title").GetString());
+        Assert.Equal(title, action.GetProperty("context_title").GetString());
+        Assert.Equal(title, risks[0].GetProperty("context_title").GetString());
+        Assert.Equal(["one point beyond a 3σ limit"], Assert.Single(Items(r, "signals_measured")).GetProperty("rule_texts").EnumerateArray().Select(t => t.GetString()));
+        var needs = r.GetProperty("needs_action");
+        Assert.Equal((1, 0, 1), (needs.GetProperty("alerts_not_closed").GetInt32(), needs.GetProperty("alerts_not_acknowledged").GetInt32(),
+            needs.GetProperty("charts_out_of_control").GetInt32()));
     }
 
     [Fact]
@@ -246,7 +266,7 @@ public class ShiftReportTests : IntegrationTest
         var shift = cap.GetProperty("shift");
         Assert.Equal(3, shift.GetProperty("points").GetInt32());
         Assert.Equal(JsonValueKind.Null, shift.GetProperty("cpk").ValueKind);
-        Assert.Contains("3 points", shift.GetProperty("reason").GetString(), StringComparison.Ordinal);
+        Assert.Equal("3 points; Cpk needs at least 5", shift.GetProperty("reason").GetString()); // in words, no configuration key
         Assert.Equal(10, cap.GetProperty("previous_seven_days").GetProperty("points").GetInt32());
         Assert.Equal(0.35 / (3 * SigmaWithin), cap.GetProperty("previous_seven_days").GetProperty("cpk").GetDouble(), 1e-9);
         Assert.Equal(JsonValueKind.Null, cap.GetProperty("cpk_change").ValueKind);
@@ -316,7 +336,7 @@ public class ShiftReportTests : IntegrationTest
 
         var records = await CsvRecordsAsync(bytes);
         var sections = Sections(records);
-        Assert.Equal(["shift", "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "maintenance_performed", "alerts_open_at_end",
+        Assert.Equal(["shift", "needs_action", "handover", "lots_measured", "alerts_raised", "signals_measured", "alert_actions", "maintenance_performed", "alerts_open_at_end",
                 "contexts_out_of_control", "dvt_risks", "capability_changes"],
             records.Select(r => r[0]).Distinct());
 

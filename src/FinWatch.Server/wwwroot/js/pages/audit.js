@@ -23,7 +23,7 @@ const parameters = Object.fromEntries((await getJson('/api/parameters')).map(
 
 const entityWords = {
   product: 'product', context: 'chart', limits: 'limits', 'model-parameters': 'model parameter set', alert: 'alert',
-  person: 'person', key: 'tool key', maintenance: 'maintenance',
+  person: 'person', key: 'tool key', maintenance: 'maintenance', handover: 'shift handover',
 };
 
 // Field names in words, with the unit the value carries when the name does not end in one ([words, unit]).
