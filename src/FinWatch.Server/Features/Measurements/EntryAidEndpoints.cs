@@ -40,17 +40,20 @@ public sealed record KnownValuesQuery([FromQuery(Name = "product")] string? Prod
 
 public static class EntryAidEndpoints
 {
+    /// <summary>Tools and chambers count as known when a row measured in this window names them (retired ones drop out).</summary>
+    public static readonly TimeSpan KnownWindow = TimeSpan.FromDays(90);
+
     public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/measurements").WithTags("Measurements").ValidateRequests();
         group.MapGet("/known-values", KnownValuesAsync).RequireAuthorization(Permissions.Read)
-            .WithSummary("Steps, tools with their chambers and metrology tools seen in stored rows (of a product and step when given)");
+            .WithSummary("Steps, tools with their chambers and metrology tools seen in rows of the last 90 days (of a product and step when given)");
         group.MapGet("/ranges", Ranges).RequireAuthorization(Permissions.Read)
             .WithSummary("The plausibility ranges and limits ingest checks every row against");
     }
 
     private static async Task<Results<Ok<KnownValuesResponse>, ValidationProblem>> KnownValuesAsync(
-        [AsParameters] KnownValuesQuery query, FinWatchDbContext db, CancellationToken cancellationToken)
+        [AsParameters] KnownValuesQuery query, FinWatchDbContext db, TimeProvider clock, CancellationToken cancellationToken)
     {
         int? productId = null;
         if (query.Product is { } code)
@@ -65,7 +68,9 @@ public static class EntryAidEndpoints
         var steps = await db.LotSteps.Where(l => productId == null || l.ProductId == productId).Select(l => l.Step)
             .Union(db.SitePlanSites.Where(s => productId == null || s.ProductId == productId).Select(s => s.Step))
             .ToListAsync(cancellationToken);
-        var rows = db.Measurements.Where(m => (productId == null || m.ProductId == productId) && (query.Step == null || m.Step == query.Step));
+        var since = clock.GetUtcNow().Add(-KnownWindow).ToUnixTimeMilliseconds();
+        var rows = db.Measurements.Where(m => (productId == null || m.ProductId == productId) && (query.Step == null || m.Step == query.Step)
+            && m.MeasuredAtMs >= since);
         var etch = await rows.Where(m => m.EtchTool != null).Select(m => new { Tool = m.EtchTool!, Chamber = m.EtchChamber }).Distinct().ToListAsync(cancellationToken);
         var liner = await rows.Where(m => m.LinerTool != null).Select(m => new { Tool = m.LinerTool!, Chamber = m.LinerChamber }).Distinct().ToListAsync(cancellationToken);
         var metrology = await rows.Where(m => m.MetrologyTool != null).Select(m => m.MetrologyTool!).Distinct().ToListAsync(cancellationToken);

@@ -17,6 +17,8 @@ public class EntryAidEndpointsTests : IntegrationTest
             row with { SiteId = "S03", EtchTool = "ETB", EtchChamber = "ETB-1" },
             row with { SiteId = "S04", Step = "POST-ETCH-CD", EtchTool = "ETC", EtchChamber = "ETC-1", MetrologyTool = "CDS-1" },
             row with { LotId = "T0002", Product = TestProducts.DoubleGate, EtchTool = "ETD", EtchChamber = "ETD-1" },
+            // Measured 101 days before the test clock (2026-12-01): outside the 90-day window, so not offered.
+            row with { LotId = "T0003", EtchTool = "ETOLD", EtchChamber = "ETOLD-1", MeasuredAt = "2026-08-22T08:00:00Z" },
         ]);
         Assert.Equal(HttpStatusCode.OK, (await PostCsvAsync(csv)).StatusCode);
         await Client.PutAsJsonAsync($"/api/products/{TestProducts.TriGate}/site-plans",

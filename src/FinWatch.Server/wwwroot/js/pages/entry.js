@@ -383,7 +383,8 @@ async function stepChanged() {
   const query = new URLSearchParams();
   if (code) query.set('product', code);
   if (step) query.set('step', step);
-  const values = await getJson(`/api/measurements/known-values?${query}`);
+  // Without a product nothing is offered yet (and the whole history is not searched for it).
+  const values = code ? await getJson(`/api/measurements/known-values?${query}`) : { steps: [], etch_tools: [], liner_tools: [], metrology_tools: [] };
   if (mine !== asked) return;
   known = values;
   setChoices('etch_tool', known.etch_tools.map((t) => t.tool), saved.etch_tool);
