@@ -35,6 +35,19 @@ public static class DemoFab
     /// <summary>The invented products: TRN7 (tri-gate logic) and BRM7 (double-gate, hard mask).</summary>
     public static IReadOnlyList<DemoProduct> Products { get; } = [.. ProductRecipe.All.Select(r => r.Product)];
 
+    /// <summary>
+    /// The site plans the generator measures by: per product, its profile sites at <see cref="ProfileStep"/> and the
+    /// shared CD sites at <see cref="EtchCdStep"/>, with the same ids and positions the rows carry.
+    /// </summary>
+    public static IReadOnlyList<DemoSitePlan> SitePlans { get; } =
+    [
+        .. ProductRecipe.All.SelectMany(r => new[]
+        {
+            new DemoSitePlan(r.Product.Code, ProfileStep, [.. r.ProfileSites.Select(s => new DemoPlanSite(s.Id, s.XMm, s.YMm))]),
+            new DemoSitePlan(r.Product.Code, EtchCdStep, [.. ProductRecipe.CdSites.Select(s => new DemoPlanSite(s.Id, s.XMm, s.YMm))]),
+        }),
+    ];
+
     /// <summary>The planted maintenances and drifts, in time order; the same for every seed and scale.</summary>
     public static IReadOnlyList<DemoEvent> Events => FabLayout.Events;
 

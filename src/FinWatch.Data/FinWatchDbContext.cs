@@ -14,6 +14,7 @@ public abstract class FinWatchDbContext(DbContextOptions options) : IdentityUser
 {
     public DbSet<Product> Products => Set<Product>();
     public DbSet<SpecLimit> SpecLimits => Set<SpecLimit>();
+    public DbSet<SitePlanSite> SitePlanSites => Set<SitePlanSite>();
     public DbSet<Measurement> Measurements => Set<Measurement>();
     public DbSet<IngestBatch> IngestBatches => Set<IngestBatch>();
     public DbSet<LotStep> LotSteps => Set<LotStep>();

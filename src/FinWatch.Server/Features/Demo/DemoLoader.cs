@@ -4,6 +4,7 @@ using FinWatch.Data;
 using FinWatch.Data.Entities;
 using FinWatch.Physics;
 using FinWatch.SeedDemo;
+using FinWatch.Server.Features.Products;
 using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Features.Measurements;
 using FinWatch.Server.Features.Model.Calibrations;
@@ -48,6 +49,7 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         }
 
         await db.SaveChangesAsync(stoppingToken);
+        await StoreSitePlansAsync(db, stoppingToken);
 
         var ingest = scope.ServiceProvider.GetRequiredService<IngestMeasurements>();
         var seed = options.Value.Seed;
@@ -198,6 +200,19 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
                 LogCalibrationFailed(p.Code, string.Join("; ", outcome.Rejected!.Errors.Take(3).Select(e => $"row {e.Row} {e.Column}: {e.Reason}")));
             }
         }
+    }
+
+    /// <summary>The site plans the invented metrology measures by, so the data-entry page fills its grid from them.</summary>
+    private async Task StoreSitePlansAsync(FinWatchDbContext db, CancellationToken cancellationToken)
+    {
+        var products = await db.Products.ToDictionaryAsync(p => p.Code, StringComparer.Ordinal, cancellationToken);
+        foreach (var plan in DemoFab.SitePlans)
+        {
+            await SitePlanEndpoints.StageAsync(db, products[plan.Product], plan.Step,
+                [.. plan.Sites.Select(s => new SitePlanSiteDto(s.SiteId, s.XMm, s.YMm))], Recorder, clock, cancellationToken);
+        }
+
+        await db.SaveChangesAsync(cancellationToken);
     }
 
     private static Product ToProduct(DemoProduct p, long now) => new()

@@ -17,5 +17,9 @@ public sealed class MeasurementsFeature : IFeature
         builder.Services.AddHostedService<InboxWatcher>();
     }
 
-    public static void Map(IEndpointRouteBuilder endpoints) => MeasurementsEndpoints.Map(endpoints);
+    public static void Map(IEndpointRouteBuilder endpoints)
+    {
+        MeasurementsEndpoints.Map(endpoints);
+        EntryAidEndpoints.Map(endpoints);
+    }
 }

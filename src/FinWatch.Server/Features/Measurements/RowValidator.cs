@@ -9,6 +9,9 @@ namespace FinWatch.Server.Features.Measurements;
 /// <param name="Model">The product's analytic threshold model (docs/model.md §G.2), used for the predicted shifts.</param>
 public sealed record ProductRef(int Id, string Code, GateFaces Faces, ThresholdModel? Model = null);
 
+/// <summary>A numeric column's plausibility range: low &lt; value (or low ≤ value) ≤ high, in the unit.</summary>
+public sealed record ValueRange(IngestColumn Column, double Low, double High, bool LowInclusive, string Unit);
+
 /// <summary>
 /// Turns a <see cref="RawRow"/> into a <see cref="SiteRecord"/>, or reports every problem in it with its column and value.
 /// The plausibility ranges (README, the measurement record) reject typing and unit mistakes, not process excursions.
@@ -22,6 +25,20 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
     public const double WaferRadiusMm = 150;
 
     public const int MaxTextLength = WaferIdentity.MaxTextLength;
+
+    /// <summary>The plausibility range of each numeric column, the one table the validation and GET /api/measurements/ranges use.</summary>
+    public static IReadOnlyList<ValueRange> Ranges { get; } =
+    [
+        new(IngestColumn.SiteXMm, -WaferRadiusMm, WaferRadiusMm, LowInclusive: true, "mm"),
+        new(IngestColumn.SiteYMm, -WaferRadiusMm, WaferRadiusMm, LowInclusive: true, "mm"),
+        new(IngestColumn.TopWidthNm, 0, MaxWidthNm, LowInclusive: false, "nm"),
+        new(IngestColumn.BottomWidthNm, 0, MaxWidthNm, LowInclusive: false, "nm"),
+        new(IngestColumn.FinHeightNm, 0, MaxHeightNm, LowInclusive: false, "nm"),
+        new(IngestColumn.CornerRadiusNm, 0, MaxRadiusNm, LowInclusive: true, "nm"),
+        new(IngestColumn.LinerThicknessNm, 0, MaxLinerNm, LowInclusive: true, "nm"),
+    ];
+
+    private static readonly ValueRange?[] RangeOf = [.. Enumerable.Range(0, IngestColumns.Count).Select(i => Ranges.SingleOrDefault(r => (int)r.Column == i))];
 
     private static readonly DateTimeOffset Earliest = new(2000, 1, 1, 0, 0, 0, TimeSpan.Zero);
 
@@ -39,8 +56,8 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
         var lot = Text(row, cells, IngestColumn.LotId, required: true, errors);
         var slot = Slot(row, cells, errors);
         var site = Text(row, cells, IngestColumn.SiteId, required: true, errors);
-        var x = Number(row, cells, IngestColumn.SiteXMm, -WaferRadiusMm, WaferRadiusMm, lowInclusive: true, "mm", errors, required: true);
-        var y = Number(row, cells, IngestColumn.SiteYMm, -WaferRadiusMm, WaferRadiusMm, lowInclusive: true, "mm", errors, required: true);
+        var x = Number(row, cells, IngestColumn.SiteXMm, errors, required: true);
+        var y = Number(row, cells, IngestColumn.SiteYMm, errors, required: true);
         if (x is { } xv && y is { } yv && (xv * xv) + (yv * yv) > WaferRadiusMm * WaferRadiusMm)
         {
             errors.Add(RowError.For(row, "site_x_mm", Cell(cells, IngestColumn.SiteXMm),
@@ -57,11 +74,11 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
         var op = Text(row, cells, IngestColumn.Operator, required: false, errors);
         var at = Time(row, cells, errors);
 
-        var wt = Number(row, cells, IngestColumn.TopWidthNm, 0, MaxWidthNm, lowInclusive: false, "nm", errors);
-        var wb = Number(row, cells, IngestColumn.BottomWidthNm, 0, MaxWidthNm, lowInclusive: false, "nm", errors);
-        var h = Number(row, cells, IngestColumn.FinHeightNm, 0, MaxHeightNm, lowInclusive: false, "nm", errors);
-        var r = Number(row, cells, IngestColumn.CornerRadiusNm, 0, MaxRadiusNm, lowInclusive: true, "nm", errors);
-        var liner = Number(row, cells, IngestColumn.LinerThicknessNm, 0, MaxLinerNm, lowInclusive: true, "nm", errors);
+        var wt = Number(row, cells, IngestColumn.TopWidthNm, errors);
+        var wb = Number(row, cells, IngestColumn.BottomWidthNm, errors);
+        var h = Number(row, cells, IngestColumn.FinHeightNm, errors);
+        var r = Number(row, cells, IngestColumn.CornerRadiusNm, errors);
+        var liner = Number(row, cells, IngestColumn.LinerThicknessNm, errors);
         if (errors.Count == before && wt is null && wb is null && h is null && r is null && liner is null)
         {
             errors.Add(RowError.For(row, null, null, "the row has no measured value; fill at least one of "
@@ -222,9 +239,9 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
         return at.ToUniversalTime();
     }
 
-    private static double? Number(int row, string?[] cells, IngestColumn column, double low, double high, bool lowInclusive,
-        string unit, List<RowError> errors, bool required = false)
+    private static double? Number(int row, string?[] cells, IngestColumn column, List<RowError> errors, bool required = false)
     {
+        var (_, low, high, lowInclusive, unit) = RangeOf[(int)column]!;
         var value = Cell(cells, column);
         var name = IngestColumns.NameOf(column);
         if (value is null)

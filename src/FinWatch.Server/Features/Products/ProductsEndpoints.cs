@@ -79,7 +79,7 @@ public static class ProductsEndpoints
         return TypedResults.Ok(ToResponse(product));
     }
 
-    private static ProblemHttpResult NotFound(string code) => Problems.NotFound("No such product.", $"There is no product with code '{code}'.");
+    internal static ProblemHttpResult NotFound(string code) => Problems.NotFound("No such product.", $"There is no product with code '{code}'.");
 
     private static void Apply(Product product, ProductRequest request, long nowMs)
     {

@@ -3,8 +3,12 @@ using FinWatch.Server.Infrastructure;
 
 namespace FinWatch.Server.Features;
 
-/// <summary>Products: nominal fin profile, gate configuration, specification limits and the model's inputs.</summary>
+/// <summary>Products: nominal fin profile, gate configuration, specification limits, the model's inputs and the site plans per step.</summary>
 public sealed class ProductsFeature : IFeature
 {
-    public static void Map(IEndpointRouteBuilder endpoints) => ProductsEndpoints.Map(endpoints);
+    public static void Map(IEndpointRouteBuilder endpoints)
+    {
+        ProductsEndpoints.Map(endpoints);
+        SitePlanEndpoints.Map(endpoints);
+    }
 }

@@ -61,6 +61,36 @@ public class DemoLoaderTests
     }
 
     [Fact]
+    public async Task Demo_StoresEachProductsSitePlans_WithTheSitesItsRowsAreMeasuredAt()
+    {
+        using var factory = DemoFactory();
+        using var client = factory.CreateClient();
+        Assert.Equal("loaded", await WaitForDemoAsync(factory));
+
+        foreach (var product in SeedDemo.DemoFab.Products)
+        {
+            var answer = await client.GetAsync($"/api/products/{product.Code}/site-plans");
+            Assert.Equal(HttpStatusCode.OK, answer.StatusCode);
+            var plans = System.Text.Json.JsonDocument.Parse(await answer.Content.ReadAsStringAsync()).RootElement.GetProperty("plans")
+                .EnumerateArray().ToDictionary(p => p.GetProperty("step").GetString()!,
+                    p => p.GetProperty("sites").EnumerateArray().Select(s => (s.GetProperty("site_id").GetString()!, s.GetProperty("site_x_mm").GetDouble(), s.GetProperty("site_y_mm").GetDouble())).ToList());
+            Assert.Equal(["FIN-PROFILE", "POST-ETCH-CD"], plans.Keys.Order(StringComparer.Ordinal));
+
+            // The stored rows were measured at exactly the plan's sites (ids and positions), step by step.
+            var measured = await factory.QueryAsync(db => db.Measurements
+                .Where(m => db.Products.Any(p => p.Id == m.ProductId && p.Code == product.Code))
+                .Select(m => new { m.Step, m.SiteId, m.SiteXMm, m.SiteYMm }).Distinct().ToListAsync());
+            foreach (var (step, sites) in plans)
+            {
+                var rows = measured.Where(m => m.Step == step).Select(m => (m.SiteId, m.SiteXMm, m.SiteYMm)).Order().ToList();
+                Assert.Equal(sites.Order().ToList(), rows);
+            }
+        }
+
+        Assert.Equal(4, await factory.QueryAsync(db => db.AuditEntries.CountAsync(a => a.Entity == "site-plan" && a.By == DemoLoader.Recorder)));
+    }
+
+    [Fact]
     public async Task Demo_RecordsThePlantedMaintenancesInTheChamberLog_MovedWithTheHistory()
     {
         using var factory = DemoFactory();
