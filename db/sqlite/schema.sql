@@ -566,3 +566,26 @@ VALUES ('20261205172141_ShiftHandovers', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+CREATE TABLE "site_plan_sites" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_site_plan_sites" PRIMARY KEY AUTOINCREMENT,
+    "product_id" INTEGER NOT NULL,
+    "step" TEXT NOT NULL,
+    "position" INTEGER NOT NULL,
+    "site_id" TEXT NOT NULL,
+    "site_x_mm" REAL NOT NULL,
+    "site_y_mm" REAL NOT NULL,
+    "updated_at_ms" INTEGER NOT NULL,
+    "updated_by" TEXT NOT NULL,
+    CONSTRAINT "FK_site_plan_sites_products_product_id" FOREIGN KEY ("product_id") REFERENCES "products" ("id") ON DELETE CASCADE
+);
+
+CREATE UNIQUE INDEX "IX_site_plan_sites_product_id_step_position" ON "site_plan_sites" ("product_id", "step", "position");
+
+CREATE UNIQUE INDEX "IX_site_plan_sites_product_id_step_site_id" ON "site_plan_sites" ("product_id", "step", "site_id");
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261205184747_AddSitePlans', '10.0.15');
+
+COMMIT;
+

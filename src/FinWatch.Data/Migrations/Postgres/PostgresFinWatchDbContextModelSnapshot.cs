@@ -1451,6 +1451,64 @@ namespace FinWatch.Data.Migrations.Postgres
                     b.ToTable("shift_handovers", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.SitePlanSite", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer")
+                        .HasColumnName("id");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<int>("Position")
+                        .HasColumnType("integer")
+                        .HasColumnName("position");
+
+                    b.Property<int>("ProductId")
+                        .HasColumnType("integer")
+                        .HasColumnName("product_id");
+
+                    b.Property<string>("SiteId")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("site_id");
+
+                    b.Property<double>("SiteXMm")
+                        .HasColumnType("double precision")
+                        .HasColumnName("site_x_mm");
+
+                    b.Property<double>("SiteYMm")
+                        .HasColumnType("double precision")
+                        .HasColumnName("site_y_mm");
+
+                    b.Property<string>("Step")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("step");
+
+                    b.Property<long>("UpdatedAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("updated_at_ms");
+
+                    b.Property<string>("UpdatedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("updated_by");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ProductId", "Step", "Position")
+                        .IsUnique();
+
+                    b.HasIndex("ProductId", "Step", "SiteId")
+                        .IsUnique();
+
+                    b.ToTable("site_plan_sites", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.SpecLimit", b =>
                 {
                     b.Property<int>("Id")
@@ -1667,6 +1725,15 @@ namespace FinWatch.Data.Migrations.Postgres
                         .WithMany()
                         .HasForeignKey("ProductId")
                         .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.SitePlanSite", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.Product", null)
+                        .WithMany()
+                        .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Cascade)
                         .IsRequired();
                 });
 

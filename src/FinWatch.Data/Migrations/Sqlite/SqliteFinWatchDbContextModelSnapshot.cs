@@ -1414,6 +1414,62 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.ToTable("shift_handovers", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.SitePlanSite", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<int>("Position")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("position");
+
+                    b.Property<int>("ProductId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("product_id");
+
+                    b.Property<string>("SiteId")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("site_id");
+
+                    b.Property<double>("SiteXMm")
+                        .HasColumnType("REAL")
+                        .HasColumnName("site_x_mm");
+
+                    b.Property<double>("SiteYMm")
+                        .HasColumnType("REAL")
+                        .HasColumnName("site_y_mm");
+
+                    b.Property<string>("Step")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("step");
+
+                    b.Property<long>("UpdatedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("updated_at_ms");
+
+                    b.Property<string>("UpdatedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("updated_by");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ProductId", "Step", "Position")
+                        .IsUnique();
+
+                    b.HasIndex("ProductId", "Step", "SiteId")
+                        .IsUnique();
+
+                    b.ToTable("site_plan_sites", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.SpecLimit", b =>
                 {
                     b.Property<int>("Id")
@@ -1626,6 +1682,15 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .WithMany()
                         .HasForeignKey("ProductId")
                         .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.SitePlanSite", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.Product", null)
+                        .WithMany()
+                        .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Cascade)
                         .IsRequired();
                 });
 
