@@ -74,11 +74,14 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
         await Assertions.Expect(Page.Locator("#budget")).ToContainTextAsync(new Regex(@"A false alarm about every [\d.]+ h"));
         await ShotAsync("limits");
 
-        var lot = (await Client.GetFromJsonAsync<JsonElement>("/api/lots?page_size=1")).GetProperty("items")[0].GetProperty("lot_id").GetString()!;
+        // The newest lot with a whole profile: the page opens on that step, with the cross-section and the estimates.
+        var lot = (await Client.GetFromJsonAsync<JsonElement>("/api/lots?page_size=1&step=FIN-PROFILE")).GetProperty("items")[0].GetProperty("lot_id").GetString()!;
         await OpenAsync($"lot.html?lot={lot}");
+        await Assertions.Expect(Page.Locator("#step")).ToHaveValueAsync("FIN-PROFILE");
         await Assertions.Expect(Page.Locator("#maps figure.wafer-map")).Not.ToHaveCountAsync(0);
         await Page.Locator("#sites tbody tr[data-site]").Nth(3).ClickAsync();
         await Assertions.Expect(Page.Locator("#xsection > *")).Not.ToHaveCountAsync(0); // the drawing is built into the svg
+        await Assertions.Expect(Page.Locator("#open-whatif")).ToBeVisibleAsync();
         await ShotAsync("lot");
 
         await OpenAsync("whatif.html");
@@ -96,6 +99,17 @@ public sealed class DemoPagesTests(BrowserFixture browser) : BrowserTest(browser
 
         await OpenAsync("entry.html");
         await Assertions.Expect(Page.Locator("#manual-form")).ToBeVisibleAsync();
+        // The demo's stored site plan fills the grid once a product is chosen, and the first value gets a check.
+        await Page.Locator("#m-product").SelectOptionAsync("BRM7");
+        await Assertions.Expect(Page.Locator("#m-step")).Not.ToHaveValueAsync("");
+        await Assertions.Expect(Page.Locator("#plan-note")).ToContainTextAsync("sites from the site plan");
+        var first = Page.Locator("#site-grid tr.site-row").First;
+        await first.Locator("[data-field='top_width_nm']").FillAsync("7.02");
+        await first.Locator("[data-field='bottom_width_nm']").FillAsync("9.05");
+        await first.Locator("[data-field='fin_height_nm']").FillAsync("38.1");
+        await first.Locator("[data-field='corner_radius_nm']").FillAsync("1.5");
+        await first.Locator("[data-field='liner_thickness_nm']").FillAsync("1.62");
+        await first.Locator("[data-field='liner_thickness_nm']").PressAsync("Tab");
         await ShotAsync("entry");
 
         await OpenAsync("shift.html?date=2026-11-29&shift=late"); // a late shift of the demo's last full day

@@ -234,8 +234,10 @@ async function showLot(id) {
     const whatIf = new URLSearchParams({ product: lot.product });
     for (const [q, v] of [['wt', site.top_width_nm], ['wb', site.bottom_width_nm], ['h', site.fin_height_nm], ['r', site.corner_radius_nm]]) if (v != null) whatIf.set(q, String(v));
     fill($('#site-detail'),
-      el('p', {}, el('a', { class: 'button-link', id: 'open-whatif', href: `whatif.html?${whatIf}` }, 'Open this site in What-if'),
-        ' to see how its profile moves the threshold.'),
+      site.top_width_nm != null && site.bottom_width_nm != null && site.fin_height_nm != null
+        ? el('p', {}, el('a', { class: 'button-link', id: 'open-whatif', href: `whatif.html?${whatIf}` }, 'Open this site in What-if'),
+          ' to see how its profile moves the threshold.')
+        : el('p', { class: 'muted' }, 'What-if needs the top width, bottom width and height of a site; this step did not measure them all.'),
       el('table', { class: 'kv', id: 'site-kv' }, el('tbody', {}, rows.map(([k, v]) => el('tr', {}, el('th', { scope: 'row' }, k), el('td', {}, v))))));
   }
 
