@@ -41,8 +41,8 @@ public sealed class ShiftReportPageTests(BrowserFixture browser) : BrowserTest(b
         await Assertions.Expect(Page.Locator("#f-date")).ToHaveValueAsync("2026-12-01");
         // One date format (when(): the browser runs in en-GB, UTC) and the zone said once.
         await Assertions.Expect(Page.Locator("#report-summary")).ToContainTextAsync("01 Dec 2026, 14:00 – 01 Dec 2026, 22:00 (8.0 h), finished");
-        await Assertions.Expect(Page.Locator("#report-summary")).ToContainTextAsync("All times in UTC.");
-        var text = await Page.Locator("main").InnerTextAsync();
+        await Assertions.Expect(Page.Locator(".zone-note")).ToContainTextAsync("Times are in UTC"); // the frame's footer
+        var text = await Page.Locator("body").InnerTextAsync();
         Assert.True(Regex.Count(text, "UTC") == 1, $"the zone should be said once: {text}");
         Assert.DoesNotContain("2026-12-01", text, StringComparison.Ordinal); // no second date format (the date picker's value is not text)
         Assert.DoesNotContain("FinWatch:", text, StringComparison.Ordinal); // no configuration key

@@ -6,7 +6,7 @@
 import { el, fill, $, param } from '../core/dom.js';
 import { getJson, sendJson } from '../core/api.js';
 import { frame, me } from '../core/shell.js';
-import { withUnit, number, when, zoneName, alertStateWords, maintenanceWords, stateWords } from '../core/format.js';
+import { withUnit, number, fixed, when, alertStateWords, maintenanceWords, stateWords } from '../core/format.js';
 
 frame('shift.html');
 const form = /** @type {HTMLFormElement} */ ($('#shift-form'));
@@ -18,7 +18,7 @@ const maySign = (who.permissions ?? []).includes('disposition');
 /** @param {number} n @param {string} word */
 const plural = (n, word) => `${n} ${word}${n === 1 ? '' : 's'}`;
 /** @param {number | null | undefined} v */
-const mv = (v) => withUnit(v, 'mV', 1);
+const mv = (v) => (v == null ? '—' : `${fixed(v, 1)} mV`);
 /** @param {string} id @returns {HTMLElement} */
 const byId = (id) => /** @type {HTMLElement} */ ($(`#${id}`));
 
@@ -159,7 +159,7 @@ function render(r) {
   fill(byId('report-title'), `Shift report: ${r.shift} shift`);
   const status = { finished: 'finished', in_progress: 'in progress', not_started: 'not started' }[/** @type {'finished'} */ (r.status)] ?? r.status;
   fill(byId('report-summary'), `${when(r.start)} – ${when(r.end)} (`, withUnit(r.length_hours, 'h', 1), `), ${status}; `,
-    `report made ${when(r.generated_at)}. All times in ${zoneName}.`);
+    `report made ${when(r.generated_at)}.`);
   fill(byId('report-caution'), el('strong', {}, 'Predicted ΔVT: '), r.prediction_caution);
 
   renderNeedsAction(r);

@@ -4,7 +4,7 @@
 import { el, fill, $, param } from '../core/dom.js';
 import { getJson, sendJson, ApiError } from '../core/api.js';
 import { frame } from '../core/shell.js';
-import { withUnit, when } from '../core/format.js';
+import { withUnit, when, fixed } from '../core/format.js';
 import { taperDeg, midWidth, maxCornerRadius, drawCrossSection } from '../core/fin.js';
 
 frame('whatif.html');
@@ -222,7 +222,7 @@ function contributions(r) {
     line('linear_total', 'sum (linear estimate)', c.linear_total, 'total'));
   fill($('#contrib-note'),
     `Solid bars right of the centre line raise VT; hatched bars left of it lower VT. The contributions come from the sensitivity table at the nominal and add up to the linear estimate ${signed(c.linear_total, 'mV', 2)}; `,
-    `the full model gives ${exact == null ? '—' : signed(exact, 'mV', 2)} (difference ${exact == null ? '—' : withUnit(exact - c.linear_total, 'mV', 2)}, the non-linear part).`);
+    `the full model gives ${exact == null ? '—' : signed(exact, 'mV', 2)} (difference ${exact == null ? '—' : `${fixed(exact - c.linear_total, 2)} mV`}, the non-linear part).`);
 }
 
 if (products.length) setProduct(productSelect.value, true);
