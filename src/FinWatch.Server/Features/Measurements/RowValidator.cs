@@ -58,7 +58,7 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
         var site = Text(row, cells, IngestColumn.SiteId, required: true, errors);
         var x = Number(row, cells, IngestColumn.SiteXMm, errors, required: true);
         var y = Number(row, cells, IngestColumn.SiteYMm, errors, required: true);
-        if (x is { } xv && y is { } yv && (xv * xv) + (yv * yv) > WaferRadiusMm * WaferRadiusMm)
+        if (x is { } xv && y is { } yv && !OnWafer(xv, yv))
         {
             errors.Add(RowError.For(row, "site_x_mm", Cell(cells, IngestColumn.SiteXMm),
                 string.Create(CultureInfo.InvariantCulture, $"the site ({xv}, {yv}) mm lies outside the 300 mm wafer (radius {WaferRadiusMm} mm)")));
@@ -150,20 +150,23 @@ public sealed class RowValidator(IReadOnlyDictionary<string, ProductRef> product
             return null;
         }
 
-        if (value.Length > MaxTextLength)
+        if (TextProblem(value) is { } problem)
         {
-            errors.Add(RowError.For(row, name, value, $"longer than {MaxTextLength} characters"));
-            return null;
-        }
-
-        if (value.Any(char.IsControl))
-        {
-            errors.Add(RowError.For(row, name, value, "contains a control character"));
+            errors.Add(RowError.For(row, name, value, problem));
             return null;
         }
 
         return value;
     }
+
+    /// <summary>Why a text value (an id, a tool or chamber name) cannot be stored, or null when it can.</summary>
+    public static string? TextProblem(string value) =>
+        value.Length > MaxTextLength ? $"longer than {MaxTextLength} characters"
+        : value.Any(char.IsControl) ? "contains a control character"
+        : null;
+
+    /// <summary>Whether a site at (x, y) mm from the centre lies on the 300 mm wafer.</summary>
+    public static bool OnWafer(double xMm, double yMm) => (xMm * xMm) + (yMm * yMm) <= WaferRadiusMm * WaferRadiusMm;
 
     private static int? Slot(int row, string?[] cells, List<RowError> errors)
     {

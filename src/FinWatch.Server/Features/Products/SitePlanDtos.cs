@@ -60,7 +60,7 @@ public sealed record SitePlanRequest(string? Step, List<SitePlanSiteDto?>? Sites
 
             var x = Coordinate(errors, $"{key}.site_x_mm", row, "x", site.SiteXMm);
             var y = Coordinate(errors, $"{key}.site_y_mm", row, "y", site.SiteYMm);
-            if (x is { } xv && y is { } yv && (xv * xv) + (yv * yv) > RowValidator.WaferRadiusMm * RowValidator.WaferRadiusMm)
+            if (x is { } xv && y is { } yv && !RowValidator.OnWafer(xv, yv))
             {
                 errors[$"{key}.site_x_mm"] = string.Create(CultureInfo.InvariantCulture,
                     $"row {row}: the site ({xv} mm, {yv} mm) lies {Math.Sqrt((xv * xv) + (yv * yv)):0.#} mm from the centre, outside the 300 mm wafer (radius {RowValidator.WaferRadiusMm} mm)");
@@ -86,10 +86,10 @@ public sealed record SitePlanRequest(string? Step, List<SitePlanSiteDto?>? Sites
         return v;
     }
 
+    // The ingest's own text rules (a plan's site ids are the ids the rows carry), and no blank or padded id.
     private static string? TextProblem(string? text) =>
         string.IsNullOrWhiteSpace(text) ? "a value is required"
-        : text.Length > RowValidator.MaxTextLength ? $"longer than {RowValidator.MaxTextLength} characters"
-        : text.Any(char.IsControl) ? "contains a control character"
+        : RowValidator.TextProblem(text) is { } problem ? problem
         : text.Trim() != text ? "starts or ends with a space"
         : null;
 

@@ -61,6 +61,7 @@ public static class SitePlanEndpoints
         var before = old.Count == 0 ? null : Describe(product.Code, step, old);
         db.SitePlanSites.RemoveRange(old);
         var now = clock.GetUtcNow().ToUnixTimeMilliseconds();
+        // Adding 0.0 stores a typed −0 as 0, so a plan reads back as the rows write their positions.
         var rows = sites.Select((s, i) => new SitePlanSite
         {
             ProductId = product.Id, Step = step, Position = i + 1, SiteId = s.SiteId!, SiteXMm = s.SiteXMm!.Value + 0.0, SiteYMm = s.SiteYMm!.Value + 0.0,

@@ -40,10 +40,10 @@ export function param(name, fallback = null) {
 
 const svgNs = 'http://www.w3.org/2000/svg';
 
-/** An SVG element with attributes (shapes in keys and sparklines): svg('polygon', { points: '0,0 4,8' }). */
-export function svg(tag, attrs, ...children) {
+/** An SVG element with attributes (null ones left out) and children (text or nodes): svg('polygon', { points: '0,0 4,8' }). */
+export function svg(tag, attrs = {}, ...children) {
   const node = document.createElementNS(svgNs, tag);
-  for (const [k, v] of Object.entries(attrs)) node.setAttribute(k, String(v));
-  for (const child of children) if (child) node.append(child);
+  for (const [k, v] of Object.entries(attrs)) if (v !== undefined && v !== null) node.setAttribute(k, String(v));
+  for (const c of children) if (c) node.append(c instanceof Node ? c : document.createTextNode(String(c)));
   return node;
 }

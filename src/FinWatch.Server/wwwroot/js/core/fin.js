@@ -3,8 +3,7 @@
 // The profile: straight sidewalls from the bottom width at the foot (isolation-oxide top) to the top width at the
 // height H, both top corners rounded by arcs of radius r, a conformal liner of thickness t around it.
 import { withUnit } from './format.js';
-
-const NS = 'http://www.w3.org/2000/svg';
+import { svg } from './dom.js';
 
 /** Sidewall angle from vertical per side, degrees, positive when wider at the foot: atan((Wb − Wt)/(2H)). */
 export function taperDeg(wt, wb, h) {
@@ -26,13 +25,6 @@ export function maxCornerRadius(wt, wb, h) {
   const t = taperDeg(wt, wb, h);
   if (t == null) return null;
   return (wt / 2) * Math.tan(Math.PI / 4 + (t * Math.PI) / 360);
-}
-
-export function svg(tag, attrs = {}, ...children) {
-  const node = document.createElementNS(NS, tag);
-  for (const [k, v] of Object.entries(attrs)) if (v !== undefined && v !== null) node.setAttribute(k, String(v));
-  for (const c of children) if (c) node.append(c instanceof Node ? c : document.createTextNode(String(c)));
-  return node;
 }
 
 /**

@@ -73,11 +73,17 @@ async function load() {
 
 function redrawAll() {
   summary();
+  // What both charts and the key share, worked out once: the points in view, the x-range, the control chart's y-range
+  // (points and their limits) and the maintenance lines.
   const view = visible();
-  const x = xRange(view);
-  drawControl(view, x);
-  drawDvt(view, x);
-  drawKey(view);
+  const shared = {
+    x: xRange(view),
+    y: fitRange(view.flatMap((p) => [p.value, p.ucl, p.lcl])) ?? { min: 0, max: 1 },
+    maintenance: maintenanceLines(view),
+  };
+  drawControl(view, shared);
+  drawDvt(view, shared);
+  drawKey(view, shared);
   signalsTable(view);
 }
 
@@ -129,7 +135,7 @@ function maintenanceLines(view) {
 
 const sigmaOf = (p) => (p.ucl != null && p.centre != null ? (p.ucl - p.centre) / 3 : null);
 
-function drawControl(view, x) {
+function drawControl(view, { x, y, maintenance }) {
   const line = (pick) => view.map((p) => ({ x: p.seq, y: pick(p) }));
   const zone = (k) => line((p) => (sigmaOf(p) == null ? null : p.centre + k * sigmaOf(p)));
   const s = spec();
@@ -139,7 +145,6 @@ function drawControl(view, x) {
   const specStyle = { borderColor: palette.spec, borderDash: [12, 4], pointRadius: 0, borderWidth: 1.5 };
   // The y-axis fits the data, the control limits and the target; specification limits outside that range are said
   // by a marker at the plot's edge instead of squeezing the data into a band.
-  const y = fitRange(view.flatMap((p) => [p.value, p.ucl, p.lcl])) ?? { min: 0, max: 1 };
   const inside = (v) => v != null && v >= y.min && v <= y.max;
   const datasets = [
     {
@@ -159,7 +164,6 @@ function drawControl(view, x) {
   if (inside(s?.target)) datasets.push({ label: 'target', data: flat(s.target), borderColor: palette.spec, borderDash: [2, 3], pointRadius: 0, borderWidth: 1.5 });
   if (inside(s?.upper)) datasets.push({ label: 'USL', data: flat(s.upper), ...specStyle });
   if (inside(s?.lower)) datasets.push({ label: 'LSL', data: flat(s.lower), ...specStyle });
-  const maintenance = maintenanceLines(view);
   if (maintenance.length) {
     datasets.push({
       label: 'maintenance', data: maintenance.map((m) => ({ x: m.x, y: y.max })), maintenance, showLine: false,
@@ -205,13 +209,12 @@ function tooltip(view, item) {
   ];
 }
 
-function drawDvt(all, x) {
+function drawDvt(all, { x, maintenance }) {
   const view = all.filter((p) => p.predicted_dvt_sat_mv != null);
   const concern = context.electrical_concern_mv;
   const over = (p) => Math.abs(p.predicted_dvt_sat_mv) > concern;
   const flat = (y) => [{ x: x.min, y }, { x: x.max, y }];
   const y = fitRange(view.map((p) => p.predicted_dvt_sat_mv).concat([concern, -concern])) ?? { min: -concern, max: concern };
-  const maintenance = maintenanceLines(all);
   dvt = drawChart(dvt, $('#dvt'), {
     type: 'line',
     data: {
@@ -270,11 +273,10 @@ function swatch(kind) {
 }
 
 /** The key beside the charts: every shape and line in words, then each rule that fired in view with its meaning. */
-function drawKey(view) {
+function drawKey(view, { y, maintenance }) {
   const s = spec();
   const item = (kind, text) => el('li', {}, swatch(kind), el('span', {}, text));
-  const y = fitRange(view.flatMap((p) => [p.value, p.ucl, p.lcl]));
-  const outside = (v) => v != null && y && (v < y.min || v > y.max);
+  const outside = (v) => v != null && (v < y.min || v > y.max);
   const counts = new Map();
   for (const p of view) for (const r of p.signals) counts.set(r, (counts.get(r) ?? 0) + 1);
   const signalling = view.filter((p) => p.signals.length).length;
@@ -291,7 +293,7 @@ function drawKey(view) {
       s?.target != null && item(outside(s.target) ? 'edge' : 'target', `target ${withUnit(s.target, context.unit)}`),
       (s?.lower != null || s?.upper != null) && item(outside(s.lower) || outside(s.upper) ? 'edge' : 'spec',
         `specification limits${outside(s.lower) || outside(s.upper) ? ': an arrow at the edge marks a limit beyond the plotted range' : ''}`),
-      item('maintenance', `maintenance: ${maintenanceLines(view).length} in view (hover a diamond for what was done)`)),
+      item('maintenance', `maintenance: ${maintenance.length} in view (hover a diamond for what was done)`)),
     el('h3', {}, 'Rules fired in view'),
     counts.size === 0
       ? el('p', { class: 'muted' }, 'No rule fired in this range.')

@@ -127,18 +127,17 @@ function render(flash = new Set()) {
   };
   const wall = layoutSelect.value === 'wall';
   // On a wall screen the charts that need someone are large tiles; the calm ones are one line each underneath.
-  const calm = (list) => (wall ? list.filter((c) => c.state === 'in_control' && c.open_alerts === 0) : []);
-  const loud = (list) => list.filter((c) => !calm(list).includes(c));
+  const isCalm = (c) => wall && c.state === 'in_control' && c.open_alerts === 0;
   const chips = (list) => (list.length === 0 ? '' : el('div', { class: 'calm' },
     el('span', { class: 'state in_control' }, `${list.length} in control, no active alert:`),
     list.map((c) => el('a', { class: 'chip', href: `chart.html?context=${encodeURIComponent(c.code)}`, dataset: { context: c.code } }, c.title))));
+  const section = (list) => [el('div', { class: 'board' }, list.filter((c) => !isCalm(c)).map(make)), chips(list.filter(isCalm))];
   if (viewSelect.value !== 'chambers') {
-    fill(board, el('div', { class: 'board' }, loud(contexts).map(make)), chips(calm(contexts)));
+    fill(board, section(contexts));
     return;
   }
   fill(board, groups(contexts).map((g) => el('section', { class: 'group', 'aria-label': g.name },
-    el('h2', {}, g.name, el('span', { class: 'muted' }, ` · ${g.summary}`)),
-    el('div', { class: 'board' }, loud(g.list).map(make)), chips(calm(g.list)))));
+    el('h2', {}, g.name, el('span', { class: 'muted' }, ` · ${g.summary}`)), section(g.list))));
 }
 
 /**

@@ -120,8 +120,8 @@ async function showLot(id) {
   const state = { step: null, wafer: null, site: null };
   fill(stepSelect, lot.steps.map((s) => el('option', { value: s.step }, `${s.step} (${s.wafers.length} wafers)`)));
   // Without a chosen step the lot opens on its most complete one: the step with the most measured values.
-  const measured = (st) => st.wafers.reduce((n, w) => n + w.sites.reduce((k, x) => k + mapped.filter(([name]) => x[name] != null).length, 0), 0);
-  const fullest = lot.steps.reduce((best, st) => (measured(st) > measured(best) ? st : best), lot.steps[0]);
+  const measured = lot.steps.map((st) => st.wafers.reduce((n, w) => n + w.sites.reduce((k, x) => k + mapped.filter(([name]) => x[name] != null).length, 0), 0));
+  const fullest = lot.steps[measured.indexOf(Math.max(...measured))];
   const wantedStep = param('step');
   stepSelect.value = lot.steps.some((s) => s.step === wantedStep) ? wantedStep : fullest.step;
   const scaleSelect = $('#scale');
