@@ -589,3 +589,85 @@ VALUES ('20261205184747_AddSitePlans', '10.0.15');
 
 COMMIT;
 
+BEGIN TRANSACTION;
+ALTER TABLE "alerts" ADD "escalated_to" TEXT NULL;
+
+ALTER TABLE "alerts" ADD "escalation_level" INTEGER NOT NULL DEFAULT 0;
+
+CREATE TABLE "notification_outbox" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_notification_outbox" PRIMARY KEY AUTOINCREMENT,
+    "key" TEXT NOT NULL,
+    "alert_id" INTEGER NOT NULL,
+    "event" TEXT NOT NULL,
+    "channel" TEXT NOT NULL,
+    "target" TEXT NOT NULL,
+    "recipient" TEXT NULL,
+    "payload" TEXT NOT NULL,
+    "status" TEXT NOT NULL,
+    "attempts" INTEGER NOT NULL,
+    "created_at_ms" INTEGER NOT NULL,
+    "next_attempt_at_ms" INTEGER NOT NULL,
+    "claimed_by" TEXT NULL,
+    "claimed_until_ms" INTEGER NULL,
+    "sent_at_ms" INTEGER NULL,
+    "last_error" TEXT NULL,
+    CONSTRAINT "FK_notification_outbox_alerts_alert_id" FOREIGN KEY ("alert_id") REFERENCES "alerts" ("id") ON DELETE RESTRICT
+);
+
+CREATE TABLE "notification_rules" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_notification_rules" PRIMARY KEY AUTOINCREMENT,
+    "owner" TEXT NOT NULL,
+    "channel" TEXT NOT NULL,
+    "webhook" TEXT NULL,
+    "min_severity" TEXT NOT NULL,
+    "min_severity_rank" INTEGER NOT NULL,
+    "product" TEXT NULL,
+    "step" TEXT NULL,
+    "equipment" TEXT NULL,
+    "context" TEXT NULL,
+    "created_at_ms" INTEGER NOT NULL,
+    "created_by" TEXT NOT NULL
+);
+
+CREATE TABLE "shift_roster" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_shift_roster" PRIMARY KEY AUTOINCREMENT,
+    "shift" TEXT NOT NULL,
+    "person" TEXT NOT NULL,
+    "from_date" TEXT NOT NULL,
+    "to_date" TEXT NULL
+);
+
+CREATE TABLE "notification_deliveries" (
+    "id" INTEGER NOT NULL CONSTRAINT "PK_notification_deliveries" PRIMARY KEY AUTOINCREMENT,
+    "message_id" INTEGER NOT NULL,
+    "alert_id" INTEGER NOT NULL,
+    "attempt" INTEGER NOT NULL,
+    "at_ms" INTEGER NOT NULL,
+    "duration_ms" INTEGER NOT NULL,
+    "outcome" TEXT NOT NULL,
+    "detail" TEXT NOT NULL,
+    "by" TEXT NOT NULL,
+    CONSTRAINT "FK_notification_deliveries_notification_outbox_message_id" FOREIGN KEY ("message_id") REFERENCES "notification_outbox" ("id") ON DELETE RESTRICT
+);
+
+CREATE INDEX "IX_notification_deliveries_alert_id" ON "notification_deliveries" ("alert_id");
+
+CREATE INDEX "IX_notification_deliveries_message_id" ON "notification_deliveries" ("message_id");
+
+CREATE INDEX "IX_notification_outbox_alert_id" ON "notification_outbox" ("alert_id");
+
+CREATE UNIQUE INDEX "IX_notification_outbox_key" ON "notification_outbox" ("key");
+
+CREATE INDEX "IX_notification_outbox_status_next_attempt_at_ms" ON "notification_outbox" ("status", "next_attempt_at_ms");
+
+CREATE INDEX "IX_notification_rules_owner" ON "notification_rules" ("owner");
+
+CREATE INDEX "IX_shift_roster_shift" ON "shift_roster" ("shift");
+
+UPDATE alerts SET escalation_level = 1 WHERE escalated_at_ms IS NOT NULL
+
+INSERT INTO "__EFMigrationsHistory" ("MigrationId", "ProductVersion")
+VALUES ('20261205235920_Notifications', '10.0.15');
+
+COMMIT;
+

@@ -32,6 +32,10 @@ public abstract class FinWatchDbContext(DbContextOptions options) : IdentityUser
     public DbSet<ApiKey> ApiKeys => Set<ApiKey>();
     public DbSet<AuditEntry> AuditEntries => Set<AuditEntry>();
     public DbSet<ShiftHandover> ShiftHandovers => Set<ShiftHandover>();
+    public DbSet<NotificationRule> NotificationRules => Set<NotificationRule>();
+    public DbSet<RosterEntry> Roster => Set<RosterEntry>();
+    public DbSet<OutboxMessage> Outbox => Set<OutboxMessage>();
+    public DbSet<DeliveryAttempt> DeliveryAttempts => Set<DeliveryAttempt>();
 
     protected override void OnModelCreating(ModelBuilder builder)
     {

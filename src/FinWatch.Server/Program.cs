@@ -22,6 +22,7 @@ var features = new FeatureList(builder, args)
     .Add<ModelFeature>()
     .Add<CalibrationsFeature>()
     .Add<MonitorFeature>()
+    .Add<NotifyFeature>()
     .Add<MaintenanceFeature>()
     .Add<ReportsFeature>();
 var app = builder.Build();

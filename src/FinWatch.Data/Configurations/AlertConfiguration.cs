@@ -19,6 +19,7 @@ internal sealed class AlertConfiguration : IEntityTypeConfiguration<Alert>
         builder.Property(a => a.Severity).HasMaxLength(16);
         builder.Property(a => a.AcknowledgedBy).HasMaxLength(200);
         builder.Property(a => a.ClosedBy).HasMaxLength(200);
+        builder.Property(a => a.EscalatedTo).HasMaxLength(2000);
         builder.HasOne<ChartContext>().WithMany().HasForeignKey(a => a.ContextId).OnDelete(DeleteBehavior.Restrict);
     }
 }

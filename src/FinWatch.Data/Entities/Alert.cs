@@ -68,6 +68,12 @@ public sealed class Alert
 
     public int SeverityRank { get; set; }
     public long? EscalatedAtMs { get; set; }
+
+    /// <summary>Escalation steps taken: 0 none, 1 the on-shift supervisors, 2 and on the configured next levels.</summary>
+    public int EscalationLevel { get; set; }
+
+    /// <summary>The people of the latest escalation step, comma separated (empty when it found nobody).</summary>
+    public string? EscalatedTo { get; set; }
     public string? AcknowledgedBy { get; set; }
     public long? AcknowledgedAtMs { get; set; }
     public string? ClosedBy { get; set; }

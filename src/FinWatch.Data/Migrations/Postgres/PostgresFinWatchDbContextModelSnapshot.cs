@@ -66,6 +66,15 @@ namespace FinWatch.Data.Migrations.Postgres
                         .HasColumnType("bigint")
                         .HasColumnName("escalated_at_ms");
 
+                    b.Property<string>("EscalatedTo")
+                        .HasMaxLength(2000)
+                        .HasColumnType("character varying(2000)")
+                        .HasColumnName("escalated_to");
+
+                    b.Property<int>("EscalationLevel")
+                        .HasColumnType("integer")
+                        .HasColumnName("escalation_level");
+
                     b.Property<long>("FirstPointId")
                         .HasColumnType("bigint")
                         .HasColumnName("first_point_id");
@@ -507,6 +516,62 @@ namespace FinWatch.Data.Migrations.Postgres
                         .IsUnique();
 
                     b.ToTable("chart_points", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.DeliveryAttempt", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("bigint")
+                        .HasColumnName("id");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<long>("Id"));
+
+                    b.Property<long>("AlertId")
+                        .HasColumnType("bigint")
+                        .HasColumnName("alert_id");
+
+                    b.Property<long>("AtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("at_ms");
+
+                    b.Property<int>("Attempt")
+                        .HasColumnType("integer")
+                        .HasColumnName("attempt");
+
+                    b.Property<string>("By")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("character varying(100)")
+                        .HasColumnName("by");
+
+                    b.Property<string>("Detail")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("character varying(2000)")
+                        .HasColumnName("detail");
+
+                    b.Property<int>("DurationMs")
+                        .HasColumnType("integer")
+                        .HasColumnName("duration_ms");
+
+                    b.Property<long>("MessageId")
+                        .HasColumnType("bigint")
+                        .HasColumnName("message_id");
+
+                    b.Property<string>("Outcome")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("character varying(16)")
+                        .HasColumnName("outcome");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("AlertId");
+
+                    b.HasIndex("MessageId");
+
+                    b.ToTable("notification_deliveries", (string)null);
                 });
 
             modelBuilder.Entity("FinWatch.Data.Entities.ElectricalTest", b =>
@@ -1288,6 +1353,174 @@ namespace FinWatch.Data.Migrations.Postgres
                     b.ToTable("model_stamps", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.NotificationRule", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("bigint")
+                        .HasColumnName("id");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<long>("Id"));
+
+                    b.Property<string>("Channel")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("character varying(16)")
+                        .HasColumnName("channel");
+
+                    b.Property<string>("Context")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("context");
+
+                    b.Property<long>("CreatedAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("created_at_ms");
+
+                    b.Property<string>("CreatedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("created_by");
+
+                    b.Property<string>("Equipment")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("equipment");
+
+                    b.Property<string>("MinSeverity")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("character varying(16)")
+                        .HasColumnName("min_severity");
+
+                    b.Property<int>("MinSeverityRank")
+                        .HasColumnType("integer")
+                        .HasColumnName("min_severity_rank");
+
+                    b.Property<string>("Owner")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("owner");
+
+                    b.Property<string>("Product")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("product");
+
+                    b.Property<string>("Step")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("step");
+
+                    b.Property<string>("Webhook")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)")
+                        .HasColumnName("webhook");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Owner");
+
+                    b.ToTable("notification_rules", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.OutboxMessage", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("bigint")
+                        .HasColumnName("id");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<long>("Id"));
+
+                    b.Property<long>("AlertId")
+                        .HasColumnType("bigint")
+                        .HasColumnName("alert_id");
+
+                    b.Property<int>("Attempts")
+                        .HasColumnType("integer")
+                        .HasColumnName("attempts");
+
+                    b.Property<string>("Channel")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("character varying(16)")
+                        .HasColumnName("channel");
+
+                    b.Property<string>("ClaimedBy")
+                        .HasMaxLength(100)
+                        .HasColumnType("character varying(100)")
+                        .HasColumnName("claimed_by");
+
+                    b.Property<long?>("ClaimedUntilMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("claimed_until_ms");
+
+                    b.Property<long>("CreatedAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("created_at_ms");
+
+                    b.Property<string>("Event")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("character varying(16)")
+                        .HasColumnName("event");
+
+                    b.Property<string>("Key")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("key");
+
+                    b.Property<string>("LastError")
+                        .HasMaxLength(2000)
+                        .HasColumnType("character varying(2000)")
+                        .HasColumnName("last_error");
+
+                    b.Property<long>("NextAttemptAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("next_attempt_at_ms");
+
+                    b.Property<string>("Payload")
+                        .IsRequired()
+                        .HasColumnType("text")
+                        .HasColumnName("payload");
+
+                    b.Property<string>("Recipient")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("recipient");
+
+                    b.Property<long?>("SentAtMs")
+                        .HasColumnType("bigint")
+                        .HasColumnName("sent_at_ms");
+
+                    b.Property<string>("Status")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("character varying(16)")
+                        .HasColumnName("status");
+
+                    b.Property<string>("Target")
+                        .IsRequired()
+                        .HasMaxLength(320)
+                        .HasColumnType("character varying(320)")
+                        .HasColumnName("target");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("AlertId");
+
+                    b.HasIndex("Key")
+                        .IsUnique();
+
+                    b.HasIndex("Status", "NextAttemptAtMs");
+
+                    b.ToTable("notification_outbox", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.Product", b =>
                 {
                     b.Property<int>("Id")
@@ -1381,6 +1614,45 @@ namespace FinWatch.Data.Migrations.Postgres
                         .IsUnique();
 
                     b.ToTable("products", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.RosterEntry", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("bigint")
+                        .HasColumnName("id");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<long>("Id"));
+
+                    b.Property<string>("FromDate")
+                        .IsRequired()
+                        .HasMaxLength(10)
+                        .HasColumnType("character varying(10)")
+                        .HasColumnName("from_date");
+
+                    b.Property<string>("Person")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)")
+                        .HasColumnName("person");
+
+                    b.Property<string>("Shift")
+                        .IsRequired()
+                        .HasMaxLength(32)
+                        .HasColumnType("character varying(32)")
+                        .HasColumnName("shift");
+
+                    b.Property<string>("ToDate")
+                        .HasMaxLength(10)
+                        .HasColumnType("character varying(10)")
+                        .HasColumnName("to_date");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Shift");
+
+                    b.ToTable("shift_roster", (string)null);
                 });
 
             modelBuilder.Entity("FinWatch.Data.Entities.ShiftHandover", b =>
@@ -1662,6 +1934,15 @@ namespace FinWatch.Data.Migrations.Postgres
                         .IsRequired();
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.DeliveryAttempt", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.OutboxMessage", null)
+                        .WithMany()
+                        .HasForeignKey("MessageId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.ElectricalTest", b =>
                 {
                     b.HasOne("FinWatch.Data.Entities.ModelParameterSet", null)
@@ -1724,6 +2005,15 @@ namespace FinWatch.Data.Migrations.Postgres
                     b.HasOne("FinWatch.Data.Entities.Product", null)
                         .WithMany()
                         .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.OutboxMessage", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.Alert", null)
+                        .WithMany()
+                        .HasForeignKey("AlertId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
                 });

@@ -59,6 +59,15 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .HasColumnType("INTEGER")
                         .HasColumnName("escalated_at_ms");
 
+                    b.Property<string>("EscalatedTo")
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("escalated_to");
+
+                    b.Property<int>("EscalationLevel")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("escalation_level");
+
                     b.Property<long>("FirstPointId")
                         .HasColumnType("INTEGER")
                         .HasColumnName("first_point_id");
@@ -490,6 +499,60 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .IsUnique();
 
                     b.ToTable("chart_points", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.DeliveryAttempt", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<long>("AlertId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("alert_id");
+
+                    b.Property<long>("AtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("at_ms");
+
+                    b.Property<int>("Attempt")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("attempt");
+
+                    b.Property<string>("By")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("by");
+
+                    b.Property<string>("Detail")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("detail");
+
+                    b.Property<int>("DurationMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("duration_ms");
+
+                    b.Property<long>("MessageId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("message_id");
+
+                    b.Property<string>("Outcome")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("outcome");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("AlertId");
+
+                    b.HasIndex("MessageId");
+
+                    b.ToTable("notification_deliveries", (string)null);
                 });
 
             modelBuilder.Entity("FinWatch.Data.Entities.ElectricalTest", b =>
@@ -1255,6 +1318,170 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.ToTable("model_stamps", (string)null);
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.NotificationRule", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<string>("Channel")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("channel");
+
+                    b.Property<string>("Context")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("context");
+
+                    b.Property<long>("CreatedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("created_at_ms");
+
+                    b.Property<string>("CreatedBy")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("created_by");
+
+                    b.Property<string>("Equipment")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("equipment");
+
+                    b.Property<string>("MinSeverity")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("min_severity");
+
+                    b.Property<int>("MinSeverityRank")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("min_severity_rank");
+
+                    b.Property<string>("Owner")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("owner");
+
+                    b.Property<string>("Product")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("product");
+
+                    b.Property<string>("Step")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("step");
+
+                    b.Property<string>("Webhook")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("webhook");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Owner");
+
+                    b.ToTable("notification_rules", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.OutboxMessage", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<long>("AlertId")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("alert_id");
+
+                    b.Property<int>("Attempts")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("attempts");
+
+                    b.Property<string>("Channel")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("channel");
+
+                    b.Property<string>("ClaimedBy")
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("claimed_by");
+
+                    b.Property<long?>("ClaimedUntilMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("claimed_until_ms");
+
+                    b.Property<long>("CreatedAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("created_at_ms");
+
+                    b.Property<string>("Event")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("event");
+
+                    b.Property<string>("Key")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("key");
+
+                    b.Property<string>("LastError")
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("last_error");
+
+                    b.Property<long>("NextAttemptAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("next_attempt_at_ms");
+
+                    b.Property<string>("Payload")
+                        .IsRequired()
+                        .HasColumnType("TEXT")
+                        .HasColumnName("payload");
+
+                    b.Property<string>("Recipient")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("recipient");
+
+                    b.Property<long?>("SentAtMs")
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("sent_at_ms");
+
+                    b.Property<string>("Status")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("status");
+
+                    b.Property<string>("Target")
+                        .IsRequired()
+                        .HasMaxLength(320)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("target");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("AlertId");
+
+                    b.HasIndex("Key")
+                        .IsUnique();
+
+                    b.HasIndex("Status", "NextAttemptAtMs");
+
+                    b.ToTable("notification_outbox", (string)null);
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.Product", b =>
                 {
                     b.Property<int>("Id")
@@ -1346,6 +1573,43 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .IsUnique();
 
                     b.ToTable("products", (string)null);
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.RosterEntry", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER")
+                        .HasColumnName("id");
+
+                    b.Property<string>("FromDate")
+                        .IsRequired()
+                        .HasMaxLength(10)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("from_date");
+
+                    b.Property<string>("Person")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("person");
+
+                    b.Property<string>("Shift")
+                        .IsRequired()
+                        .HasMaxLength(32)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("shift");
+
+                    b.Property<string>("ToDate")
+                        .HasMaxLength(10)
+                        .HasColumnType("TEXT")
+                        .HasColumnName("to_date");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Shift");
+
+                    b.ToTable("shift_roster", (string)null);
                 });
 
             modelBuilder.Entity("FinWatch.Data.Entities.ShiftHandover", b =>
@@ -1619,6 +1883,15 @@ namespace FinWatch.Data.Migrations.Sqlite
                         .IsRequired();
                 });
 
+            modelBuilder.Entity("FinWatch.Data.Entities.DeliveryAttempt", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.OutboxMessage", null)
+                        .WithMany()
+                        .HasForeignKey("MessageId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
             modelBuilder.Entity("FinWatch.Data.Entities.ElectricalTest", b =>
                 {
                     b.HasOne("FinWatch.Data.Entities.ModelParameterSet", null)
@@ -1681,6 +1954,15 @@ namespace FinWatch.Data.Migrations.Sqlite
                     b.HasOne("FinWatch.Data.Entities.Product", null)
                         .WithMany()
                         .HasForeignKey("ProductId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("FinWatch.Data.Entities.OutboxMessage", b =>
+                {
+                    b.HasOne("FinWatch.Data.Entities.Alert", null)
+                        .WithMany()
+                        .HasForeignKey("AlertId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
                 });

@@ -8,11 +8,12 @@ using Microsoft.EntityFrameworkCore;
 
 namespace FinWatch.Server.Features.Access;
 
-public sealed record PersonRequest(string? Name, string? Role, string? Password, bool? Disabled);
+/// <summary>A person to add or change; <c>email</c> is where e-mail notifications go (an empty string removes it).</summary>
+public sealed record PersonRequest(string? Name, string? Role, string? Password, bool? Disabled, string? Email = null);
 
 public sealed record PasswordRequest(string? Password);
 
-public sealed record PersonResponse(string Name, string Role, DateTimeOffset CreatedAt, DateTimeOffset? DisabledAt, DateTimeOffset? LockedUntil);
+public sealed record PersonResponse(string Name, string Role, DateTimeOffset CreatedAt, DateTimeOffset? DisabledAt, DateTimeOffset? LockedUntil, string? Email);
 
 public sealed record KeyRequest(string? Name, string? Scope);
 
@@ -39,19 +40,31 @@ public static class PeopleEndpoints
     }
 
     internal static PersonResponse Describe(FinWatchUser u, TimeProvider clock) => new(u.UserName!, u.Role, DateTimeOffset.FromUnixTimeMilliseconds(u.CreatedAtMs),
-        u.DisabledAtMs is { } d ? DateTimeOffset.FromUnixTimeMilliseconds(d) : null, u.LockoutEnd > clock.GetUtcNow() ? u.LockoutEnd : null);
+        u.DisabledAtMs is { } d ? DateTimeOffset.FromUnixTimeMilliseconds(d) : null, u.LockoutEnd > clock.GetUtcNow() ? u.LockoutEnd : null, u.Email);
 
     internal static KeyResponse Describe(ApiKey k) => new(k.Id, k.Name, k.Scope, k.Prefix, k.CreatedBy, DateTimeOffset.FromUnixTimeMilliseconds(k.CreatedAtMs),
         k.RevokedBy, k.RevokedAtMs is { } r ? DateTimeOffset.FromUnixTimeMilliseconds(r) : null, k.LastUsedAtMs is { } l ? DateTimeOffset.FromUnixTimeMilliseconds(l) : null);
+
+    /// <summary>Null when the address is absent, empty or a single e-mail address; otherwise what is wrong with it.</summary>
+    private static string? EmailProblem(string? email) =>
+        string.IsNullOrWhiteSpace(email) ? null
+        : email.Trim().Length > 254 || !MimeKit.MailboxAddress.TryParse(email.Trim(), out var m) || m.Address != email.Trim() || !m.Address.Contains('@', StringComparison.Ordinal)
+            ? $"email '{email}' is not an e-mail address (name@example.org)"
+            : null;
 
     private static async Task<Ok<List<PersonResponse>>> ListAsync(UserManager<FinWatchUser> users, TimeProvider clock) =>
         TypedResults.Ok((await users.Users.OrderBy(u => u.UserName).ToListAsync()).Select(u => Describe(u, clock)).ToList());
 
     /// <summary>Creates a person (also used by the <c>admin add</c> command); the errors are keyed by field.</summary>
     public static async Task<(FinWatchUser? User, ValidationErrors Errors)> AddPersonAsync(
-        UserManager<FinWatchUser> users, FinWatchDbContext db, string? name, string? role, string? password, string by, TimeProvider clock)
+        UserManager<FinWatchUser> users, FinWatchDbContext db, string? name, string? role, string? password, string by, TimeProvider clock, string? email = null)
     {
         var errors = new ValidationErrors();
+        if (EmailProblem(email) is { } bad)
+        {
+            errors["email"] = bad;
+        }
+
         if (string.IsNullOrWhiteSpace(name) || name.Trim().Length > 100)
         {
             errors["name"] = "name is 1 to 100 letters, digits, spaces, '.', '-' or '_'";
@@ -71,7 +84,10 @@ public static class PeopleEndpoints
             return (null, errors);
         }
 
-        var user = new FinWatchUser { UserName = name!.Trim(), Role = role!, CreatedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds() };
+        var user = new FinWatchUser
+        {
+            UserName = name!.Trim(), Role = role!, CreatedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds(), Email = string.IsNullOrWhiteSpace(email) ? null : email.Trim(),
+        };
         var created = await users.CreateAsync(user, password ?? "");
         if (!created.Succeeded)
         {
@@ -87,7 +103,7 @@ public static class PeopleEndpoints
     private static async Task<Results<Created<PersonResponse>, ValidationProblem>> CreateAsync(
         PersonRequest r, UserManager<FinWatchUser> users, FinWatchDbContext db, TimeProvider clock, HttpContext http)
     {
-        var (user, errors) = await AddPersonAsync(users, db, r.Name, r.Role, r.Password, http.User.Who(), clock);
+        var (user, errors) = await AddPersonAsync(users, db, r.Name, r.Role, r.Password, http.User.Who(), clock, r.Email);
         return user is null ? Problems.Invalid(errors) : TypedResults.Created($"/api/people/{Uri.EscapeDataString(user.UserName!)}", Describe(user, clock));
     }
 
@@ -105,6 +121,11 @@ public static class PeopleEndpoints
             return Problems.Invalid("role", $"role is one of {string.Join(", ", Roles.Ladder)}");
         }
 
+        if (EmailProblem(r.Email) is { } bad)
+        {
+            return Problems.Invalid("email", bad);
+        }
+
         if (user.UserName == http.User.Who() && (r.Disabled == true || (r.Role is not null && r.Role != Roles.Administrator)))
         {
             return Problems.Invalid("name", "you cannot disable yourself or take away your own administration");
@@ -112,6 +133,10 @@ public static class PeopleEndpoints
 
         var before = Describe(user, clock);
         user.Role = r.Role ?? user.Role;
+        if (r.Email is not null)
+        {
+            user.Email = r.Email.Trim().Length == 0 ? null : r.Email.Trim();
+        }
         if (r.Disabled is { } disabled)
         {
             user.DisabledAtMs = disabled ? user.DisabledAtMs ?? clock.GetUtcNow().ToUnixTimeMilliseconds() : null;

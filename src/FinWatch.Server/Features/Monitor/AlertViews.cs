@@ -17,7 +17,8 @@ public static class AlertViews
             DateTimeOffset.FromUnixTimeMilliseconds(a.RaisedAtMs), DateTimeOffset.FromUnixTimeMilliseconds(a.UpdatedAtMs), a.EscalatedAtMs is not null,
             DateTimeOffset.FromUnixTimeMilliseconds(a.FirstSignalAtMs), DateTimeOffset.FromUnixTimeMilliseconds(a.LastSignalAtMs), T(a.BackInControlAtMs),
             a.PointCount, a.SignalCount, a.LotCount, a.WaferCount, a.FirstSeq, a.LastSeq, a.LotId, a.WaferSlot, a.Chamber, a.PredictedDvtSatMv,
-            a.AcknowledgedBy, T(a.AcknowledgedAtMs), a.ClosedBy, T(a.ClosedAtMs));
+            a.AcknowledgedBy, T(a.AcknowledgedAtMs), a.ClosedBy, T(a.ClosedAtMs), a.EscalationLevel,
+            a.EscalatedTo is { Length: > 0 } to ? to.Split(',') : []);
     }
 
     /// <summary>A rule id in words.</summary>

@@ -1,5 +1,6 @@
 using FinWatch.Data;
 using FinWatch.Data.Entities;
+using FinWatch.Server.Features.Notify;
 using FinWatch.Server.Features.Parameters;
 using FinWatch.Server.Infrastructure;
 using Microsoft.EntityFrameworkCore;
@@ -19,7 +20,7 @@ namespace FinWatch.Server.Features.Monitor;
 /// (the ingest lock), so none is skipped.
 /// </summary>
 public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dialect, MonitorGate gate, TimeProvider clock, MonitorFeed feed, Telemetry telemetry,
-    IOptions<MonitorOptions> options, ILogger<MonitorEvaluator> logger)
+    IOptions<MonitorOptions> options, IOptions<NotifyOptions> notify, OutboxSignal outbox, ILogger<MonitorEvaluator> logger)
     : IBatchStoredListener
 {
     /// <summary>More than the longest rule window (N7, 15 points), so the replayed state equals the full history's.</summary>
@@ -27,6 +28,9 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
 
     // The alerts this evaluation opened, for the telemetry (severity, opening rule).
     private readonly List<(string Severity, string Rule)> raised = [];
+
+    // Notifications written to the outbox by this evaluation: the sender is woken after the commit.
+    private int notified;
 
     /// <summary>A batch was stored: evaluate it (and any batch before it that is still pending).</summary>
     public async Task BatchStoredAsync(StoredBatch batch, CancellationToken cancellationToken) => await EvaluatePendingAsync(cancellationToken);
@@ -62,6 +66,12 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
 
         measured.Completed();
         feed.Publish(published);
+        if (notified > 0)
+        {
+            outbox.Nudge();
+            notified = 0;
+        }
+
         return published;
     }
 
@@ -228,6 +238,8 @@ public sealed class MonitorEvaluator(FinWatchDbContext db, IDatabaseDialect dial
             if (e.Raised)
             {
                 raised.Add((e.Alert.Severity, e.Alert.Rule));
+                // The notifications of a new alert commit with it (the outbox), or neither does.
+                notified += await NotificationOutbox.StageRaisedAsync(db, notify.Value, e.Alert, context, now, cancellationToken);
             }
         }
 

@@ -93,6 +93,16 @@ public sealed class AuthorizationMatrixTests : IntegrationTest
         ["GET /api/maintenance"] = "read",
         ["POST /api/maintenance/import"] = "disposition",
         ["GET /api/contexts/{code}/maintenance"] = "floor",
+        ["GET /api/notifications/channels"] = "read",
+        ["GET /api/notifications/rules"] = "read",
+        ["POST /api/notifications/rules"] = "read",
+        ["PUT /api/notifications/rules/{id:long}"] = "read",
+        ["DELETE /api/notifications/rules/{id:long}"] = "read",
+        ["GET /api/notifications/messages"] = "read",
+        ["POST /api/notifications/messages/{id:long}/send-again"] = "disposition",
+        ["GET /api/roster/"] = "read",
+        ["PUT /api/roster/"] = "disposition",
+        ["GET /api/roster/on-shift"] = "read",
     };
 
     private static readonly Dictionary<string, string[]> Rights = new(StringComparer.Ordinal)
