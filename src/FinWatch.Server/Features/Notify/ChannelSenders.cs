@@ -177,7 +177,7 @@ public sealed class MailSender(IOptions<NotifyOptions> options, IOptions<ShiftOp
 
     /// <summary>The one date-time format of the pages (05 Dec 2026, 14:30), here in the shift pattern's zone, named.</summary>
     public static string Time(DateTimeOffset t, TimeZoneInfo zone) =>
-        TimeZoneInfo.ConvertTime(t, zone).ToString("dd MMM yyyy, HH:mm", CultureInfo.GetCultureInfo("en-GB")) + " " + zone.Id;
+        TimeZoneInfo.ConvertTime(t, zone).ToString("dd MMM yyyy, HH:mm", CultureInfo.InvariantCulture) + " " + zone.Id;
 
     private static string Signed(double mv) => (mv < 0 ? "−" : "+") + Math.Abs(mv).ToString("0.0", CultureInfo.InvariantCulture);
 }
