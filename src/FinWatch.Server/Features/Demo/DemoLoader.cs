@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.IO.Pipelines;
 using System.Text;
 using FinWatch.Data;
@@ -8,7 +9,10 @@ using FinWatch.Server.Features.Products;
 using FinWatch.Server.Features.Maintenance;
 using FinWatch.Server.Features.Measurements;
 using FinWatch.Server.Features.Model.Calibrations;
+using FinWatch.Server.Features.Access;
 using FinWatch.Server.Features.Monitor;
+using FinWatch.Server.Features.Reports;
+using Microsoft.AspNetCore.Identity;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
 
@@ -18,7 +22,8 @@ namespace FinWatch.Server.Features.Demo;
 /// Loads the invented demo fab into an empty database: creates its products, then streams the generated CSV through
 /// the normal ingest (validation, derivation, one transaction), exactly as a metrology tool's file would arrive.
 /// </summary>
-public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<DemoOptions> options, TimeProvider clock, ILogger<DemoLoader> logger)
+public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<DemoOptions> options, IOptions<ShiftOptions> shifts, TimeProvider clock,
+    ILogger<DemoLoader> logger)
     : BackgroundService
 {
     /// <summary>"idle", "loading", "loaded", "skipped" (database not empty) or "failed".</summary>
@@ -50,6 +55,7 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
 
         await db.SaveChangesAsync(stoppingToken);
         await StoreSitePlansAsync(db, stoppingToken);
+        await StoreCrewAsync(db, scope.ServiceProvider.GetRequiredService<UserManager<FinWatchUser>>(), stoppingToken);
 
         var ingest = scope.ServiceProvider.GetRequiredService<IngestMeasurements>();
         var seed = options.Value.Seed;
@@ -202,6 +208,48 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         }
     }
 
+    /// <summary>
+    /// The invented crews: who works which shift (role names, not people's names), in the roster from a month ago; the
+    /// area engineer works days off the roster (an escalation level an administrator can name).
+    /// </summary>
+    public static readonly (string Name, string Role, string? Shift)[] Crew =
+    [
+        ("early-supervisor", Roles.Supervisor, "early"), ("early-technician", Roles.Technician, "early"),
+        ("late-supervisor", Roles.Supervisor, "late"), ("night-supervisor", Roles.Supervisor, "night"),
+        ("etch-area-engineer", Roles.Engineer, null),
+    ];
+
+    // The crew as people (random passwords: an administrator sets one to sign in as them), the roster of the
+    // configured pattern's shifts, and a browser rule of the demo engineer for high alerts; each audited as the API does.
+    private async Task StoreCrewAsync(FinWatchDbContext db, UserManager<FinWatchUser> users, CancellationToken cancellationToken)
+    {
+        var pattern = shifts.Value.EffectivePattern.Select(s => s.Name).ToList();
+        var from = DateOnly.FromDateTime(clock.GetUtcNow().UtcDateTime.AddDays(-30)).ToString(Features.Notify.Roster.DateFormat, CultureInfo.InvariantCulture);
+        foreach (var (name, role, shift) in Crew)
+        {
+            var (user, errors) = await PeopleEndpoints.AddPersonAsync(users, db, name, role, $"{Guid.NewGuid():N}-Aa1!", Recorder, clock, $"{name}@fab.example");
+            if (user is null)
+            {
+                LogCrewSkipped(name, string.Join("; ", errors.ToDictionary().Values.SelectMany(m => m)));
+                continue;
+            }
+
+            if (shift is not null)
+            {
+                // A configured pattern may name its shifts otherwise: the crew then takes them in order.
+                var on = pattern.Contains(shift) ? shift : pattern[Array.IndexOf(Crew, (name, role, shift)) % pattern.Count];
+                db.Roster.Add(new RosterEntry { Shift = on, Person = name, FromDate = from });
+            }
+        }
+
+        db.NotificationRules.Add(new NotificationRule
+        {
+            Owner = DemoMonitor.DemoEngineer, Channel = Features.Notify.NotificationChannels.Browser, MinSeverity = "high", MinSeverityRank = 3,
+            CreatedAtMs = clock.GetUtcNow().ToUnixTimeMilliseconds(), CreatedBy = Recorder,
+        });
+        await db.SaveChangesAsync(cancellationToken);
+    }
+
     /// <summary>The site plans the invented metrology measures by, so the data-entry page fills its grid from them.</summary>
     private async Task StoreSitePlansAsync(FinWatchDbContext db, CancellationToken cancellationToken)
     {
@@ -230,6 +278,9 @@ public sealed partial class DemoLoader(IServiceScopeFactory scopes, IOptions<Dem
         UpdatedAtMs = now,
         Specs = p.Specs.Select(s => new SpecLimit { Parameter = s.Parameter, Lower = s.Lower, Target = s.Target, Upper = s.Upper }).ToList(),
     };
+
+    [LoggerMessage(Level = LogLevel.Warning, Message = "Demo: the invented crew member {Name} was not added: {Errors}")]
+    private partial void LogCrewSkipped(string name, string errors);
 
     [LoggerMessage(Level = LogLevel.Information, Message = "Demo: the database already holds products; the invented demo fab is not loaded again")]
     private partial void LogSkipped();

@@ -91,6 +91,28 @@ public class DemoLoaderTests
     }
 
     [Fact]
+    public async Task Demo_HasItsInventedCrewOnTheRoster_ASupervisorOnEachShift()
+    {
+        using var factory = DemoFactory();
+        using var client = factory.CreateClient();
+        Assert.Equal("loaded", await WaitForDemoAsync(factory));
+
+        // The fake clock's 08:00 UTC is in the default pattern's early shift (06:00–14:00).
+        var now = System.Text.Json.JsonDocument.Parse(await client.GetStringAsync("/api/roster/on-shift")).RootElement;
+        Assert.Equal("early", now.GetProperty("shift").GetString());
+        Assert.Equal(["early-supervisor"], now.GetProperty("supervisors").EnumerateArray().Select(e => e.GetString()));
+        Assert.Equal(["early-supervisor", "early-technician"],
+            now.GetProperty("people").EnumerateArray().Select(e => e.GetProperty("name").GetString()));
+        foreach (var at in new[] { "2026-12-01T15:00:00Z", "2026-12-01T23:00:00Z" })
+        {
+            var other = System.Text.Json.JsonDocument.Parse(await client.GetStringAsync($"/api/roster/on-shift?at={at}")).RootElement;
+            Assert.Single(other.GetProperty("supervisors").EnumerateArray());
+        }
+
+        Assert.Equal(DemoLoader.Crew.Length, await factory.QueryAsync(db => db.Users.CountAsync(u => u.Email != null && u.Email.EndsWith("@fab.example"))));
+    }
+
+    [Fact]
     public async Task Demo_RecordsThePlantedMaintenancesInTheChamberLog_MovedWithTheHistory()
     {
         using var factory = DemoFactory();

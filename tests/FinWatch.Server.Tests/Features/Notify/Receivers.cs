@@ -114,7 +114,17 @@ public sealed class WebhookReceiver : IAsyncDisposable
                 body, Now(), TimeSpan.FromMinutes(5));
             var status = script.TryDequeue(out var s) ? s : 200;
             Calls.Enqueue(new WebhookCall(key, valid, System.Text.Encoding.UTF8.GetString(body), status, DateTimeOffset.UtcNow));
+            if (status is >= 300 and < 400)
+            {
+                http.Response.Headers.Location = "/elsewhere"; // a sender must not follow it
+            }
+
             return Results.StatusCode(status);
+        });
+        app.MapPost("/elsewhere", () =>
+        {
+            Interlocked.Increment(ref redirected);
+            return Results.Ok();
         });
     }
 
@@ -127,6 +137,11 @@ public sealed class WebhookReceiver : IAsyncDisposable
     }
 
     public string Url { get; private set; } = "";
+
+    private int redirected;
+
+    /// <summary>Calls that arrived at the address a redirect pointed to.</summary>
+    public int Redirected => Volatile.Read(ref redirected);
 
     /// <summary>The receiver's clock for the timestamp check (the sending server's fake clock in the in-process tests).</summary>
     public Func<DateTimeOffset> Now { get; set; } = () => DateTimeOffset.UtcNow;

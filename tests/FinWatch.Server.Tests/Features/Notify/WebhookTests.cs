@@ -97,6 +97,18 @@ public sealed class WebhookTests : NotificationTestBase
     }
 
     [Fact]
+    public async Task Redirect_IsNotFollowed_TheCallFails()
+    {
+        receiver.Answer(307);
+        await ChartAsync();
+        await AddRuleAsync(new { channel = "webhook", webhook = "lot-hold", min_severity = "low" });
+        await RaiseAsync();
+        await EventuallyAsync(async () => (await MessagesAsync("?status=failed")).Length == 1, "a redirect fails the call");
+        Assert.Equal("lot-hold refused the call: 307 Temporary Redirect; not tried again", (await MessagesAsync()).Single().GetProperty("last_error").GetString());
+        Assert.Equal(0, receiver.Redirected); // only configured addresses are ever called
+    }
+
+    [Fact]
     public void RetryDelay_DoublesFromTheFirstDelay_UpToTheCap()
     {
         // Exponential backoff: delay(n) = first · 2^(n−1), capped (common practice; no published source).
