@@ -4,8 +4,7 @@ using FinWatch.Server.Infrastructure;
 // A command of the executable (`backup <file>`, `help`) runs instead of the web server.
 if (await ServerCommands.TryRunAsync(args) is { } exitCode) return exitCode;
 
-// Switches without a value (`--demo`) are read by their features; the configuration reader would take the next
-// argument as their value, so a setting written after `--demo` would be lost.
+// Value-less switches (`--demo`) are read by their features, not the configuration reader (it would eat the next).
 var builder = WebApplication.CreateBuilder([.. args.Where(a => a != "--demo")]);
 builder.AddFinWatchHost();
 var features = new FeatureList(builder, args)
