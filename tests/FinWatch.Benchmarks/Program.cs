@@ -8,7 +8,7 @@ using FinWatch.Benchmarks;
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- run-length
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- model
 //   dotnet run -c Release --project tests/FinWatch.Benchmarks -- solver
-//   dotnet run -c Release --project tests/FinWatch.Benchmarks -- push [minutes] [clients] [lots-per-minute]
+//   dotnet run -c Release --project tests/FinWatch.Benchmarks -- push [minutes] [clients[,clients…]] [lots-per-minute]
 //   FINWATCH_BENCH_POSTGRES=... dotnet run -c Release --project tests/FinWatch.Benchmarks -- timerange [rows]
 return args.FirstOrDefault() switch
 {
@@ -19,14 +19,14 @@ return args.FirstOrDefault() switch
     "run-length" => RunLengthBenchmark.Run(),
     "model" => ModelBenchmark.Run(),
     "solver" => SolverBenchmark.Run(),
-    "push" => await PushBenchmark.RunAsync(Arg(1, 3.0), (int)Arg(2, 500), Arg(3, 50)),
+    "push" => await PushBenchmark.RunAsync(Arg(1, 3.0), args.Length > 2 ? [.. args[2].Split(',').Select(c => int.Parse(c, System.Globalization.CultureInfo.InvariantCulture))] : [500, 1000], Arg(3, 50)),
     "timerange" => await TimeRangeBenchmark.RunAsync((long)Arg(1, 10_000_000)),
     _ => Usage(),
 };
 
 static int Usage()
 {
-    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | csv [rows] [rounds] | csv-agree [inputs] [seed] | rules | run-length | model | solver | push [minutes] [clients] [lots-per-minute] | timerange [rows]");
+    Console.Error.WriteLine("usage: FinWatch.Benchmarks ingest [rows] | csv [rows] [rounds] | csv-agree [inputs] [seed] | rules | run-length | model | solver | push [minutes] [clients[,clients…]] [lots-per-minute] | timerange [rows]");
     return 2;
 }
 

@@ -2,6 +2,7 @@ using FinWatch.Data;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.AspNetCore.TestHost;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.DependencyInjection.Extensions;
@@ -20,6 +21,8 @@ public class FinWatchAppFactory : WebApplicationFactory<Program>
     public static readonly DateTimeOffset Now = new(2026, 12, 1, 8, 0, 0, TimeSpan.Zero);
 
     private readonly Dictionary<string, string?> settings = new(StringComparer.Ordinal);
+
+    private readonly List<Action<IServiceCollection>> serviceChanges = [];
 
     public FinWatchAppFactory()
     {
@@ -51,6 +54,13 @@ public class FinWatchAppFactory : WebApplicationFactory<Program>
         return this;
     }
 
+    /// <summary>Changes the app's services before the host starts, after the app has registered its own (for example to observe one).</summary>
+    public FinWatchAppFactory WithServices(Action<IServiceCollection> change)
+    {
+        serviceChanges.Add(change);
+        return this;
+    }
+
     protected override void ConfigureWebHost(IWebHostBuilder builder)
     {
         builder.UseEnvironment("Testing");
@@ -73,6 +83,7 @@ public class FinWatchAppFactory : WebApplicationFactory<Program>
                 o.DefaultForbidScheme = TestAuthHandler.SchemeName;
             });
         });
+        builder.ConfigureTestServices(services => serviceChanges.ForEach(change => change(services)));
     }
 
     /// <summary>Runs a query against the app's database in a fresh scope.</summary>

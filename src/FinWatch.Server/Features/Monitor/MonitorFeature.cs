@@ -1,3 +1,4 @@
+using System.Text.Json.Serialization;
 using FinWatch.Server.Features.Monitor;
 using FinWatch.Server.Infrastructure;
 
@@ -13,8 +14,11 @@ public sealed class MonitorFeature : IFeature
     {
         var services = builder.Services;
         services.AddOptions<MonitorOptions>().BindConfiguration(MonitorOptions.Section).ValidateDataAnnotations().ValidateOnStart();
-        // The hub speaks the same JSON as the HTTP API, so a page handles a pushed point like a fetched one.
-        var signalR = services.AddSignalR().AddJsonProtocol(o => o.PayloadSerializerOptions.UseFinWatchJson());
+        // The hub speaks the same JSON as the HTTP API, so a page handles a pushed point like a fetched one, except that
+        // it leaves out empty (null) fields: every screen parses every entry it is sent, and the pages test for a missing
+        // value with == null, which holds for both.
+        var signalR = services.AddSignalR().AddJsonProtocol(o =>
+            o.PayloadSerializerOptions.UseFinWatchJson().DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull);
         if (builder.Configuration[SignalRScaleOut.RedisKey] is { Length: > 0 } redis)
         {
             // Several instances: each sends through Redis, so a screen on any instance gets points ingested on any other.

@@ -30,8 +30,11 @@ public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> 
         try
         {
             // One frame per group and publish (an ingest's points and alerts together), not one per entry: a lot
-            // brings dozens of entries for hundreds of screens, and frames, not bytes, are what cost.
-            await hub.Clients.Group(MonitorHub.AllGroup).Feed(messages);
+            // brings dozens of entries for hundreds of screens. SignalR turns each frame into bytes once for its whole
+            // group, whatever the number of screens in it. The screens that watch everything (floor overview, alert
+            // queue) use a point entry only to learn which chart changed, so theirs come without the point: every
+            // screen parses all it is sent, and those points were nearly half of what was parsed (docs/performance.md).
+            await hub.Clients.Group(MonitorHub.AllGroup).Feed(WithoutPoints(messages));
             telemetry.FramePushed(audience, sent: true);
             audience = OneContext;
             foreach (var group in messages.GroupBy(m => m.Context, StringComparer.Ordinal))
@@ -51,6 +54,10 @@ public sealed partial class MonitorFeed(IHubContext<MonitorHub, IMonitorClient> 
             order.Release();
         }
     }
+
+    /// <summary>The entries as the screens that watch everything get them: a point entry keeps its number, kind and context.</summary>
+    private static List<FeedMessage> WithoutPoints(IReadOnlyList<FeedMessage> messages) =>
+        [.. messages.Select(m => m.Point is null ? m : m with { Point = null })];
 
     [LoggerMessage(Level = LogLevel.Warning, Message = "Live feed: sending to clients failed; they will catch up by feed number")]
     private partial void LogSendFailed(Exception e);

@@ -5,7 +5,8 @@ namespace FinWatch.Server.Features.Monitor;
 
 /// <summary>
 /// What the server calls on a connected browser: the feed entries (points and alert changes) of one commit, in number
-/// order. A client that watches everything and some contexts too may get an entry twice; it keeps the first.
+/// order. A client that watches everything and some contexts too may get an entry twice; it keeps the first, which is
+/// the one for everything (a point entry without its point), so a page that draws points watches their contexts only.
 /// </summary>
 public interface IMonitorClient
 {
@@ -52,7 +53,10 @@ public sealed class MonitorHub(FeedReader feed, Telemetry telemetry) : Hub<IMoni
         return await feed.HeadAsync(Context.ConnectionAborted);
     }
 
-    /// <summary>Receive every entry from now on (floor overview, alert queue); returns the newest feed number, as <see cref="Watch"/>.</summary>
+    /// <summary>
+    /// Receive every entry from now on (floor overview, alert queue), point entries without their point (number, kind and
+    /// context: which chart changed); returns the newest feed number, as <see cref="Watch"/>.
+    /// </summary>
     public async Task<long> WatchAll()
     {
         await Groups.AddToGroupAsync(Context.ConnectionId, AllGroup);
