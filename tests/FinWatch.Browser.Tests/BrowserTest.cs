@@ -22,6 +22,9 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
     protected IPage Page { get; private set; } = null!;
     protected string BaseUrl { get; private set; } = "";
 
+    /// <summary>The run's Chromium, for a test that needs a second browser (a wall screen beside a person's browser).</summary>
+    protected IBrowser Chromium => browser.Browser;
+
     /// <summary>Settings for the server before it starts (for example the demo).</summary>
     protected virtual void Configure(FinWatchAppFactory factory)
     {
