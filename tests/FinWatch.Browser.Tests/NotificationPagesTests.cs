@@ -262,3 +262,37 @@ public sealed class DeliveriesPageTests(BrowserFixture browser) : MonitoredChart
         AssertNoPageProblems();
     }
 }
+
+/// <summary>The people page: an e-mail address for alerts, given when a person is added and changed in their row.</summary>
+public sealed class PeopleEmailTests(BrowserFixture browser) : BrowserTest(browser)
+{
+    protected override bool SignIn => false;
+
+    [BrowserFact]
+    public async Task Administrator_AddsAPersonWithAnAddress_ChangesIt_AndSeesWhyABadOneIsRefused()
+    {
+        ExpectedFailures.Add("/api/people/"); // the refused address, on purpose
+        await SignInAsync("area administrator 5", "administrator");
+        await OpenAsync("people.html");
+        await Page.Locator("#p-name").FillAsync("night supervisor 2");
+        await Page.Locator("#p-role").SelectOptionAsync("supervisor");
+        await Page.Locator("#p-email").FillAsync("night.supervisor@fab.example");
+        await Page.Locator("#p-password").FillAsync(PersonPassword);
+        await Page.Locator("#p-add").ClickAsync();
+        await Assertions.Expect(Page.Locator("#people-result")).ToContainTextAsync("night supervisor 2 added as supervisor.");
+        var address = Page.GetByLabel("e-mail address of night supervisor 2");
+        await Assertions.Expect(address).ToHaveValueAsync("night.supervisor@fab.example");
+
+        await address.FillAsync("bay3.supervisor@fab.example");
+        await address.PressAsync("Enter");
+        await Assertions.Expect(Page.Locator("#people-result")).ToContainTextAsync("Alerts for night supervisor 2 by e-mail go to bay3.supervisor@fab.example.");
+        var stored = (await Client.GetFromJsonAsync<JsonElement>("/api/people")).EnumerateArray().Single(p => p.GetProperty("name").GetString() == "night supervisor 2");
+        Assert.Equal("bay3.supervisor@fab.example", stored.GetProperty("email").GetString());
+
+        await address.FillAsync("not an address");
+        await address.PressAsync("Enter");
+        await Assertions.Expect(Page.Locator("#people-result .problem")).ToContainTextAsync("is not an e-mail address");
+        await ScreenshotIfAskedAsync("people-email");
+        AssertNoPageProblems();
+    }
+}

@@ -129,6 +129,7 @@ export function alarm(host, toggle) {
       el('span', { class: 'alarm-rule' }, a.rule_text),
       el('span', { class: 'alarm-lot' }, lotWafer(a)),
       el('span', { class: 'alarm-when' }, `raised ${when(a.raised_at)}`),
+      a.escalation_level > 0 ? el('b', { class: 'alarm-escalated' }, `escalated to ${(a.escalated_to ?? []).join(', ') || 'the next step'}`) : '',
       el('span', { class: 'alert-state open' }, alertStateWords.open))));
   }
 

@@ -72,6 +72,7 @@ function show(roster) {
 /** Says so when the roster has no line. */
 function empty() {
   $('#roster-empty').classList.toggle('hidden', body.rows.length > 0);
+  $('#roster-box').classList.toggle('hidden', body.rows.length === 0);
 }
 
 /** @param {string[]} names */
