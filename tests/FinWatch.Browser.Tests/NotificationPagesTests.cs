@@ -74,6 +74,7 @@ public sealed class NotificationPagesTests(BrowserFixture browser) : MonitoredCh
         if (await screenSound.GetAttributeAsync("data-sound") == "blocked")
         {
             await Assertions.Expect(screenSound).ToContainTextAsync("plays sound only after someone clicks");
+            await ScreenshotIfAskedAsync("wall-banner-sound-blocked", screen);
             await screen.Locator("#allow-sound").ClickAsync();
         }
 
@@ -249,7 +250,7 @@ public sealed class DeliveriesPageTests(BrowserFixture browser) : MonitoredChart
     }
 
     [BrowserFact]
-    public async Task ATechnician_SeesTheFailedCall_WithoutSendAgain()
+    public async Task ATechnician_SeesTheFailedCall_WithoutSendAgain_AndTheRosterWithoutEditing()
     {
         await FailedCallAsync();
 
@@ -259,6 +260,10 @@ public sealed class DeliveriesPageTests(BrowserFixture browser) : MonitoredChart
         await OpenAsync("deliveries.html");
         await Assertions.Expect(Page.Locator(".message .send-state")).ToHaveTextAsync("failed");
         await Assertions.Expect(Page.Locator(".message button")).ToHaveCountAsync(0);
+        // Nor does a technician change the roster: it is shown, not offered for editing.
+        await OpenAsync("roster.html");
+        await Assertions.Expect(Page.Locator("#roster-intro")).ToContainTextAsync("Supervisors and up change it.");
+        await Assertions.Expect(Page.Locator("#add-line")).ToBeHiddenAsync();
         AssertNoPageProblems();
     }
 }

@@ -88,6 +88,8 @@ export async function notifyOnThisBrowser(person, pageWatchesAll) {
   let rulesAt = 0;
   /** @type {Map<string, any>} */
   let charts = new Map();
+  /** Alert changes already being weighed on this page. @type {Set<string>} */
+  const weighing = new Set();
 
   /** The person's browser rules, asked again after a minute (they may have changed them on another page). */
   async function browserRules() {
@@ -111,7 +113,8 @@ export async function notifyOnThisBrowser(person, pageWatchesAll) {
     // Newly raised: open, and not changed since it was raised (a later point changes updated_at).
     const raised = a.state === 'open' && a.raised_at === a.updated_at;
     const key = toMe ? `${a.id}:escalated:${a.escalation_level}` : `${a.id}:raised`;
-    if ((!toMe && !raised) || told.has(key)) return;
+    if ((!toMe && !raised) || told.has(key) || weighing.has(key)) return;
+    weighing.add(key); // at once: the same change can arrive twice (two feeds, or two entries of one commit)
     const mine = await browserRules();
     if (mine.length === 0) return;
     // An escalation is meant for the person whatever their filters (as their e-mail and webhooks get it); a new alert
