@@ -22,6 +22,9 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
     protected IPage Page { get; private set; } = null!;
     protected string BaseUrl { get; private set; } = "";
 
+    /// <summary>The run's Chromium, for a test that needs a second browser (a wall screen beside a person's browser).</summary>
+    protected IBrowser Chromium => browser.Browser;
+
     /// <summary>Settings for the server before it starts (for example the demo).</summary>
     protected virtual void Configure(FinWatchAppFactory factory)
     {
@@ -119,13 +122,13 @@ public abstract class BrowserTest(BrowserFixture browser) : IAsyncLifetime
     /// <summary>Waits until the page's live-feed line says it is connected and current.</summary>
     protected Task WaitLiveAsync() => Page.Locator(".link-state[data-state='live']").WaitForAsync();
 
-    /// <summary>Photographs the whole page to FINWATCH_SCREENSHOTS/<paramref name="name"/>.png when that folder is set.</summary>
-    protected async Task ScreenshotIfAskedAsync(string name)
+    /// <summary>Photographs the whole page (the test's, or another) to FINWATCH_SCREENSHOTS/<paramref name="name"/>.png when that folder is set.</summary>
+    protected async Task ScreenshotIfAskedAsync(string name, IPage? page = null)
     {
         if (Environment.GetEnvironmentVariable("FINWATCH_SCREENSHOTS") is { Length: > 0 } dir)
         {
             Directory.CreateDirectory(dir);
-            await Page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(dir, name + ".png"), FullPage = true });
+            await (page ?? Page).ScreenshotAsync(new PageScreenshotOptions { Path = Path.Combine(dir, name + ".png"), FullPage = true });
         }
     }
 

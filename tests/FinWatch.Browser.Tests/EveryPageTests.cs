@@ -17,7 +17,7 @@ public sealed class EveryPageTests(BrowserFixture browser) : BrowserTest(browser
     [
         "index.html", "index.html?view=chambers&layout=wall", "chart.html?context=TRI-TOP&range=all", "alerts.html?state=all",
         "limits.html?context=TRI-TOP", "lot.html", "lot.html?lot=M0001", "whatif.html", "entry.html",
-        "shift.html?date=2026-11-26&shift=early", "maintenance.html", "audit.html", "people.html",
+        "shift.html?date=2026-11-26&shift=early", "maintenance.html", "audit.html", "notify.html", "roster.html", "deliveries.html?status=all", "people.html",
     ];
 
     protected override bool SignIn => false;

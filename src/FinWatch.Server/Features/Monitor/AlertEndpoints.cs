@@ -16,7 +16,9 @@ public static class AlertEndpoints
     public static void Map(IEndpointRouteBuilder app)
     {
         var group = app.MapGroup("/api/alerts").WithTags("Monitor");
-        group.MapGet("/", ListAsync).WithSummary("Alerts, most severe and newest first; filter by state, context, severity, escalated, lot");
+        // The list is what the live feed already pushes to the floor (wall screens too, whose banner loads the open ones);
+        // the detail, with comments and history, stays with people who read.
+        group.MapGet("/", ListAsync).RequireAuthorization(Permissions.Floor).WithSummary("Alerts, most severe and newest first; filter by state, context, severity, escalated, lot");
         group.MapGet("/counts", CountsAsync).WithSummary("How many alerts are not acknowledged, not closed, and escalated (the navigation's badge)");
         group.MapGet("/{id:long}", GetAsync).WithSummary("One alert with its reaction plan, history and points");
         group.MapPost("/{id:long}/acknowledge", (long id, AlertActionRequest r, HttpContext http, FinWatchDbContext db, IDatabaseDialect dialect, TimeProvider clock,

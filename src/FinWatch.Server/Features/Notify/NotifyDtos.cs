@@ -13,8 +13,12 @@ public sealed record NotificationRuleRequest(string? Channel, string? Webhook, s
 public sealed record NotificationRuleResponse(long Id, string Owner, string Channel, string? Webhook, string MinSeverity, string? Product, string? Step,
     string? Equipment, string? Context, DateTimeOffset CreatedAt, string CreatedBy, string Description);
 
-/// <summary>What the notification channels can do here: e-mail configured (and its sender), the configured webhooks (name and host only).</summary>
-public sealed record ChannelsResponse(bool EmailConfigured, string? EmailFrom, IReadOnlyList<WebhookInfo> Webhooks, IReadOnlyList<EscalationLevelInfo> Escalation);
+/// <summary>
+/// What the notification channels can do here: e-mail configured (and its sender), the configured webhooks (name and host
+/// only), the escalation levels, and the caller's own e-mail address (none: e-mail rules are not open to them yet).
+/// </summary>
+public sealed record ChannelsResponse(bool EmailConfigured, string? EmailFrom, IReadOnlyList<WebhookInfo> Webhooks, IReadOnlyList<EscalationLevelInfo> Escalation,
+    string? YourEmail);
 
 public sealed record WebhookInfo(string Name, string Host);
 

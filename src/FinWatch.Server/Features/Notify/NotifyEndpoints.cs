@@ -26,7 +26,7 @@ public static class NotifyEndpoints
     public static void Map(IEndpointRouteBuilder app)
     {
         var n = app.MapGroup("/api/notifications").WithTags("Notifications");
-        n.MapGet("/channels", Channels).RequireAuthorization(Permissions.Read).WithSummary("E-mail configured or not, the configured webhooks, the escalation levels");
+        n.MapGet("/channels", ChannelsAsync).RequireAuthorization(Permissions.Read).WithSummary("E-mail configured or not, the configured webhooks, the escalation levels, and the caller's own e-mail address");
         n.MapGet("/rules", ListRulesAsync).RequireAuthorization(Permissions.Read).WithSummary("Notification rules, of one owner or everyone's");
         n.MapPost("/rules", CreateRuleAsync).RequireAuthorization(Permissions.Read).WithSummary("Add a notification rule (your own; an administrator's for anyone)");
         n.MapPut("/rules/{id:long}", UpdateRuleAsync).RequireAuthorization(Permissions.Read).WithSummary("Change a notification rule");
@@ -42,13 +42,16 @@ public static class NotifyEndpoints
         r.MapGet("/on-shift", OnShiftAsync).RequireAuthorization(Permissions.Read).WithSummary("Who is on shift at a moment (default now)");
     }
 
-    private static Ok<ChannelsResponse> Channels(IOptions<NotifyOptions> options, IOptions<MonitorOptions> monitor)
+    private static async Task<Ok<ChannelsResponse>> ChannelsAsync(HttpContext http, FinWatchDbContext db, IOptions<NotifyOptions> options, IOptions<MonitorOptions> monitor,
+        CancellationToken cancellationToken)
     {
         var o = options.Value;
+        var who = http.User.Who();
+        var email = await db.Users.AsNoTracking().Where(u => u.UserName == who).Select(u => u.Email).SingleOrDefaultAsync(cancellationToken);
         var levels = new List<EscalationLevelInfo> { new(1, monitor.Value.EscalateAfterMinutes, "the supervisors on shift") };
         levels.AddRange(o.Escalation.Select((l, i) => new EscalationLevelInfo(i + 2, l.AfterMinutes, string.Join(", ", l.People))));
         return TypedResults.Ok(new ChannelsResponse(o.Smtp.Configured, o.Smtp.Configured ? o.Smtp.From : null,
-            [.. o.Webhooks.Select(w => new WebhookInfo(w.Name, new Uri(w.Url).Host))], levels));
+            [.. o.Webhooks.Select(w => new WebhookInfo(w.Name, new Uri(w.Url).Host))], levels, email));
     }
 
     public static NotificationRuleResponse Describe(NotificationRule r)

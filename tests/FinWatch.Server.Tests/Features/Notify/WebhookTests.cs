@@ -21,6 +21,21 @@ public sealed class WebhookTests : NotificationTestBase
     protected override async Task AfterStopAsync() => await receiver.DisposeAsync();
 
     [Fact]
+    public async Task Channels_NameTheConfiguredWebhooks_AndTellTheCallerTheirOwnAddress()
+    {
+        await AddPersonAsync("test engineer", "engineer", "bay.engineer@fab.example"); // the engineer identity's name
+        using var asEngineer = new HttpRequestMessage(HttpMethod.Get, "/api/notifications/channels");
+        asEngineer.Headers.Add(TestAuthHandler.Header, "engineer");
+        var mine = await ReadJsonAsync(await Client.SendAsync(asEngineer));
+        Assert.Equal("bay.engineer@fab.example", mine.GetProperty("your_email").GetString());
+        Assert.Equal("lot-hold", mine.GetProperty("webhooks")[0].GetProperty("name").GetString());
+        Assert.False(mine.GetProperty("email_configured").GetBoolean());
+
+        var admin = await Client.GetFromJsonAsync<JsonElement>("/api/notifications/channels"); // no such person stored: no address
+        Assert.True(!admin.TryGetProperty("your_email", out var none) || none.ValueKind == JsonValueKind.Null, admin.ToString());
+    }
+
+    [Fact]
     public async Task FirstCallAnswered500_IsRetriedAfterTheBackoff_SignedWithTheSameKey_AndLogged()
     {
         receiver.Answer(500);

@@ -86,3 +86,11 @@ export async function sendText(url, text, contentType = 'text/csv') {
   const type = response.headers.get('content-type') ?? '';
   return { status: response.status, ok: response.ok, body: type.includes('json') ? await response.json() : null };
 }
+
+/** The server's problems keyed by field ({} when the error has none), each as one line of text. */
+export function fieldProblems(error) {
+  /** @type {Record<string, string>} */
+  const out = {};
+  for (const [field, messages] of Object.entries(error?.problem?.errors ?? {})) out[field] = [].concat(messages).join(' ');
+  return out;
+}

@@ -34,6 +34,12 @@ export function when(iso) {
   return d.toLocaleString('en-GB', { year: 'numeric', month: 'short', day: '2-digit', hour: '2-digit', minute: '2-digit' });
 }
 
+/** A calendar day (YYYY-MM-DD, a shift's date or a roster line's) as when() writes its date: "05 Dec 2026". */
+export function day(iso) {
+  if (!iso) return '—';
+  return new Date(`${iso}T12:00:00Z`).toLocaleDateString('en-GB', { year: 'numeric', month: 'short', day: '2-digit', timeZone: 'UTC' });
+}
+
 export const zoneName = zone;
 
 /** The words for a context state; the shape comes from the CSS class of the same name. */

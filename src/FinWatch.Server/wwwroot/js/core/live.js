@@ -77,7 +77,8 @@ export class LiveFeed {
   #deliver(entry) {
     if (entry.seq <= this.lastSeq) return; // already handled (the page load or an earlier catch-up had it)
     this.lastSeq = entry.seq;
-    if (entry.kind === 'alert') document.dispatchEvent(new CustomEvent('finwatch:alert')); // the navigation's count
+    // The navigation's count, the desktop notifications and a wall screen's banner listen for alert changes.
+    if (entry.kind === 'alert') document.dispatchEvent(new CustomEvent('finwatch:alert', { detail: entry.alert }));
     this.onEntry(entry);
   }
 

@@ -5,6 +5,7 @@
 import { el } from './dom.js';
 import { getJson, sendJson, resetAntiforgery } from './api.js';
 import { when, zoneName } from './format.js';
+import { notifyOnThisBrowser } from './notify.js';
 
 const pages = [
   ['index.html', 'Floor', 'floor'],
@@ -17,14 +18,26 @@ const pages = [
   ['shift.html', 'Shift report', 'read'],
   ['maintenance.html', 'Maintenance', 'read'],
   ['audit.html', 'Audit', 'read'],
+  ['notify.html', 'Notify', 'read'],
   ['people.html', 'People & keys', 'administer'],
 ];
+
+/** Pages behind one link of the strip, linked to each other in a row at the top of each (the strip has no room for more). */
+const sections = {
+  'notify.html': [['notify.html', 'Notify me'], ['roster.html', 'Shift roster'], ['deliveries.html', 'Deliveries of e-mails and webhooks']],
+};
+/** The strip's link a page belongs under. @param {string} page */
+const sectionOf = (page) => Object.keys(sections).find((top) => sections[top].some(([href]) => href === page)) ?? page;
 
 /** Who the page is shown to (GET /api/auth/me), known once the frame has asked. */
 export const me = getJson('/api/auth/me').catch(() => ({ signed_in: false, permissions: [] }));
 
-/** Adds the top strip before <main>; returns the element that shows the live-connection state. */
-export function frame(current) {
+/**
+ * Adds the top strip before <main>; returns the element that shows the live-connection state. A page whose own live
+ * feed watches every chart says so (watchesAll), and the desktop notifications use its feed instead of opening another.
+ * @param {string} current @param {{ watchesAll?: boolean }} [options]
+ */
+export function frame(current, { watchesAll = false } = {}) {
   const nav = el('nav', { 'aria-label': 'FinWatch pages' });
   const who = el('span', { class: 'who' });
   const mark = el('span', { class: 'demo-mark hidden', role: 'status' });
@@ -34,14 +47,19 @@ export function frame(current) {
   // One date-time format on every page, and the zone said once, here.
   document.body.append(el('footer', { class: 'zone-note' }, `Times are in ${zoneName}, this browser's time zone, written as ${when(Date.now())}.`));
   me.then((m) => {
-    const needed = pages.find(([href]) => href === current)?.[2] ?? 'read';
+    const needed = pages.find(([href]) => href === sectionOf(current))?.[2] ?? 'read';
     if (!m.signed_in && current !== 'signin.html') {
       location.href = `signin.html?next=${encodeURIComponent(location.pathname.slice(1) + location.search)}`;
       return;
     }
+    const top = sectionOf(current);
     nav.append(...pages.filter(([, , p]) => m.permissions.includes(p) || !m.signed_in)
-      .map(([href, label]) => el('a', { href, 'aria-current': href === current ? 'page' : null }, label,
+      .map(([href, label]) => el('a', { href, 'aria-current': href === top ? 'page' : null }, label,
         href === 'alerts.html' ? el('span', { class: 'count hidden', id: 'unacknowledged' }) : '')));
+    if (sections[top]) {
+      document.querySelector('main')?.prepend(el('nav', { class: 'section-nav', 'aria-label': 'notification pages' },
+        sections[top].map(([href, label]) => el('a', { href, 'aria-current': href === current ? 'page' : null }, label))));
+    }
     if (m.via === 'demo') show(mark, 'Demo · invented data', `Demo mode: signed in automatically as ${m.name}. Every fab, product, lot and person shown is invented.`);
     else if (m.via === 'display') show(mark, 'Wall screen · read-only', `Wall screen (${m.name}): floor and charts only, read-only`);
     if (m.signed_in && m.via !== 'display') {
@@ -50,7 +68,12 @@ export function frame(current) {
         ? el('button', { type: 'button', class: 'quiet', id: 'sign-out', onclick: signOut }, 'Sign out')
         : el('a', { href: 'signin.html', title: 'Sign in with your own name and password' }, 'Sign in'));
     }
-    if (m.signed_in && m.permissions.includes('read')) watchAlertCounts();
+    if (m.signed_in && m.permissions.includes('read')) {
+      watchAlertCounts();
+      notifyOnThisBrowser(m.name, watchesAll).catch(() => {
+        // without the live feed no desktop notification: the feed line of the page says it is offline
+      });
+    }
     if (m.signed_in && !m.permissions.includes(needed)) {
       document.querySelector('main')?.prepend(el('p', { class: 'problem' }, `Your role (${m.role}) may not use this page.`));
     }

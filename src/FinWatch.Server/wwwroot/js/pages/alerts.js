@@ -8,8 +8,9 @@ import { getJson, sendJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
 import { LiveFeed } from '../core/live.js';
 import { withUnit, when, alertStateWords } from '../core/format.js';
+import { sendState, channelTarget, occasion, timing } from '../core/outbox.js';
 
-const banner = frame('alerts.html');
+const banner = frame('alerts.html', { watchesAll: true });
 const filters = /** @type {HTMLFormElement} */ ($('#filters'));
 const queue = /** @type {HTMLElement} */ ($('#queue'));
 const detail = /** @type {HTMLElement} */ ($('#detail'));
@@ -133,7 +134,7 @@ function excursion(a, d) {
 async function select(id) {
   selected = id;
   remember();
-  const d = await getJson(`/api/alerts/${id}`);
+  const [d, messages] = await Promise.all([getJson(`/api/alerts/${id}`), getJson(`/api/notifications/messages?alert=${id}`)]);
   const a = d.alert;
   const typed = /** @type {HTMLTextAreaElement | null} */ ($('#action-comment'))?.value ?? '';
   const previous = shown.id;
@@ -205,12 +206,34 @@ async function select(id) {
           el('td', {}, el('a', { href: `lot.html?lot=${encodeURIComponent(p.lot_id)}` }, p.lot_id), p.wafer_slot ? ` · W${p.wafer_slot}` : ''),
           el('td', {}, p.chamber ?? ''), el('td', { class: 'num' }, withUnit(p.value, unit)),
           el('td', { class: 'num' }, withUnit(p.predicted_dvt_sat_mv, 'mV', 1)), el('td', {}, p.signals.join(', ')))))))),
+    notificationsSent(a, messages),
     el('h3', {}, 'History'),
     el('ol', { class: 'history' }, historyItems(d.history)));
   for (const b of queue.querySelectorAll('.alert-item')) {
     const button = b.querySelector('button');
     if (button) button.textContent = Number(/** @type {HTMLElement} */ (b).dataset.alert) === id ? 'Shown on the right' : 'Show';
   }
+}
+
+/**
+ * Who was told about the alert beyond the pages: its escalation in words and each e-mail or webhook call with its
+ * state (desktop notifications and wall screens are not sent from FinWatch's outbox, so they are not listed).
+ * @param {any} a @param {any[]} messages
+ */
+function notificationsSent(a, messages) {
+  const to = (a.escalated_to ?? []).join(', ') || 'nobody named';
+  const escalation = a.escalation_level === 0 ? 'Not escalated.'
+    : a.escalation_level === 1 ? `Escalated to the supervisors on shift: ${to}.`
+      : `Escalated to step ${a.escalation_level}: ${to}.`;
+  return el('section', { id: 'notifications', 'aria-labelledby': 'notifications-h' },
+    el('h3', { id: 'notifications-h' }, 'Notifications sent'),
+    el('p', {}, escalation),
+    messages.length === 0
+      ? el('p', { class: 'muted' }, 'No e-mail or webhook call about this alert: no rule of anyone took it.')
+      : el('ul', { class: 'sent-list' }, messages.map((m) => el('li', { dataset: { message: m.id } },
+        sendState(m.status), ` ${channelTarget(m)} · ${occasion(m)} · ${m.attempts} attempt${m.attempts === 1 ? '' : 's'} · ${timing(m)}`,
+        m.last_error ? el('div', { class: 'error' }, `Last error: ${m.last_error}`) : ''))),
+    el('p', {}, el('a', { href: 'deliveries.html?status=all' }, 'All deliveries')));
 }
 
 /** @type {Record<string, string>} */

@@ -4,9 +4,11 @@ import { el, fill, $, svg, param } from '../core/dom.js';
 import { getJson } from '../core/api.js';
 import { frame, me } from '../core/shell.js';
 import { LiveFeed } from '../core/live.js';
+import { alarm } from '../core/alarm.js';
 import { fixed, unitLabel, when, stateWords, maintenanceSince } from '../core/format.js';
 
-const banner = frame('index.html');
+const banner = frame('index.html', { watchesAll: true });
+const waiting = alarm($('#alarm-host'), /** @type {HTMLInputElement} */ ($('#alarm-on')));
 const board = $('#board');
 const tally = $('#tally');
 let contexts = [];
@@ -164,7 +166,7 @@ function groups(list) {
 
 async function load() {
   await loadTools();
-  contexts = await getJson('/api/contexts');
+  [contexts] = await Promise.all([getJson('/api/contexts'), waiting.load()]);
   render();
   budget();
 }

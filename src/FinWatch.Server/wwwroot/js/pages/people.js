@@ -1,5 +1,6 @@
 // @ts-check
-// People and keys (administrators): add people, change roles, disable, set passwords; create and revoke keys.
+// People and keys (administrators): add people (with an e-mail address for alerts), change roles and addresses,
+// disable, set passwords; create and revoke keys.
 import { el, fill, $ } from '../core/dom.js';
 import { getJson, sendJson } from '../core/api.js';
 import { frame } from '../core/shell.js';
@@ -18,9 +19,12 @@ async function loadPeople() {
   fill($('#people tbody'), people.map((p) => {
     const role = el('select', { 'aria-label': `role of ${p.name}` }, roles.map((r) => el('option', { value: r, selected: r === p.role }, r)));
     role.addEventListener('change', () => change(p.name, { role: role.value }, `${p.name} is now ${role.value}.`));
+    const email = el('input', { type: 'email', value: p.email ?? '', placeholder: 'none', 'aria-label': `e-mail address of ${p.name}`, class: 'email' });
+    email.addEventListener('change', () => change(p.name, { email: email.value },
+      email.value ? `Alerts for ${p.name} by e-mail go to ${email.value}.` : `${p.name} has no e-mail address now.`));
     const password = el('input', { type: 'password', placeholder: 'new password', 'aria-label': `new password for ${p.name}`, autocomplete: 'new-password' });
     return el('tr', { dataset: { person: p.name } },
-      el('td', {}, p.name), el('td', {}, role), el('td', {}, when(p.created_at)),
+      el('td', {}, p.name), el('td', {}, role), el('td', {}, email), el('td', {}, when(p.created_at)),
       el('td', {}, p.disabled_at ? `disabled ${when(p.disabled_at)}` : p.locked_until ? `locked until ${when(p.locked_until)}` : 'active'),
       el('td', {},
         el('button', { type: 'button', class: 'quiet', onclick: () => change(p.name, { disabled: !p.disabled_at }, `${p.name} ${p.disabled_at ? 'enabled' : 'disabled'}.`) },
@@ -51,7 +55,7 @@ async function setPassword(name, password) {
 $('#add-person').addEventListener('submit', async (event) => {
   event.preventDefault();
   try {
-    const p = await sendJson('POST', '/api/people', { name: $('#p-name').value, role: $('#p-role').value, password: $('#p-password').value });
+    const p = await sendJson('POST', '/api/people', { name: $('#p-name').value, role: $('#p-role').value, password: $('#p-password').value, email: $('#p-email').value || null });
     report('#people-result', null, `${p.name} added as ${p.role}.`);
     $('#add-person').reset();
   } catch (e) {
